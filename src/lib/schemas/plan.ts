@@ -36,7 +36,7 @@ export type CableSize = (typeof CABLE_SIZES)[number];
 export const MATERIALS = ['wood', 'steel', 'concrete', 'fiberglass'] as const;
 export type Material = (typeof MATERIALS)[number];
 
-const finite = () => z.number({ invalid_type_error: 'must be a number' }).finite('must be a finite number');
+const finite = () => z.number({ invalid_type_error: 'must be a number', required_error: 'is required' }).finite('must be a finite number');
 const positive = () => finite().positive('must be greater than 0');
 const id = () =>
   z
@@ -56,7 +56,7 @@ export const systemSchema = z
     clearingCycles: positive().max(300, 'must be at most 300 cycles'),
     xOverR: finite().min(0, 'must be 0 or more').max(100, 'must be at most 100'),
     phaseSpacingM: positive().max(100, 'must be at most 100 m').optional(),
-  })
+  }, { required_error: 'is required', invalid_type_error: 'must be an object' })
   .passthrough();
 export type PlanSystem = z.infer<typeof systemSchema>;
 
@@ -66,7 +66,7 @@ export const criteriaSchema = z
       .union([z.literal(50), z.literal(70)], { errorMap: () => ({ message: 'must be 50 or 70' }) })
       .optional(),
     bodyOhms: positive().max(100000, 'must be at most 100000 ohms').optional(),
-  })
+  }, { invalid_type_error: 'must be an object' })
   .passthrough();
 export type PlanCriteria = z.infer<typeof criteriaSchema>;
 
@@ -123,7 +123,9 @@ export const nodeSchema = z.discriminatedUnion(
     errorMap: (issue, ctx) =>
       issue.code === 'invalid_union_discriminator'
         ? { message: `must be one of ${NODE_KINDS.join(', ')}` }
-        : { message: ctx.defaultError },
+        : issue.code === 'invalid_type'
+          ? { message: 'must be an object' }
+          : { message: ctx.defaultError },
   },
 );
 export type PlanNode = z.infer<typeof nodeSchema>;
@@ -157,7 +159,9 @@ export const linkSchema = z.discriminatedUnion(
     errorMap: (issue, ctx) =>
       issue.code === 'invalid_union_discriminator'
         ? { message: `must be one of ${LINK_KINDS.join(', ')}` }
-        : { message: ctx.defaultError },
+        : issue.code === 'invalid_type'
+          ? { message: 'must be an object' }
+          : { message: ctx.defaultError },
   },
 );
 export type PlanLink = z.infer<typeof linkSchema>;
@@ -178,6 +182,7 @@ export function findReferenceIssues(input: unknown): PlanIssue[] {
   const doc = input && typeof input === 'object' ? (input as Record<string, unknown>) : {};
   const nodes = asList(doc.nodes) as LooseNode[];
   const links = asList(doc.links) as LooseLink[];
+  const nodesReadable = Array.isArray(doc.nodes);
   const nodeById = new Map<string, LooseNode>();
   nodes.forEach((node, i) => {
     if (typeof node.id !== 'string') return;
@@ -200,7 +205,8 @@ export function findReferenceIssues(input: unknown): PlanIssue[] {
       if (nodeById.has(link.id) || linkIds.has(link.id)) issues.push({ path: `links[${i}].id`, message: `duplicate id "${link.id}"` });
       linkIds.add(link.id);
     }
-    for (const end of ['from', 'to'] as const) {
+    // With no readable node list, every reference would be "missing": report the list once instead.
+    for (const end of nodesReadable ? (['from', 'to'] as const) : []) {
       const ref = link[end];
       if (typeof ref === 'string' && !nodeById.has(ref)) issues.push({ path: `links[${i}].${end}`, message: `no node with id "${ref}"` });
     }
@@ -231,9 +237,9 @@ export const planSchema = z
       .max(200, 'must be at most 200 characters'),
     system: systemSchema,
     criteria: criteriaSchema.optional(),
-    nodes: z.array(nodeSchema, { invalid_type_error: 'must be a list' }).max(MAX_NODES, `must hold at most ${MAX_NODES} nodes`),
-    links: z.array(linkSchema, { invalid_type_error: 'must be a list' }).max(MAX_LINKS, `must hold at most ${MAX_LINKS} links`),
-  })
+    nodes: z.array(nodeSchema, { invalid_type_error: 'must be a list', required_error: 'is required' }).max(MAX_NODES, `must hold at most ${MAX_NODES} nodes`),
+    links: z.array(linkSchema, { invalid_type_error: 'must be a list', required_error: 'is required' }).max(MAX_LINKS, `must hold at most ${MAX_LINKS} links`),
+  }, { invalid_type_error: 'must be a plan document (a JSON object)' })
   .passthrough();
 export type PlanDocument = z.infer<typeof planSchema>;
 

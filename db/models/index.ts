@@ -1,0 +1,37 @@
+/** All Sequelize models and their associations; tables themselves come from db/migrations. */
+import type { Sequelize } from 'sequelize';
+import { initAuditEvent } from './audit-event';
+import { initLoginAttempt } from './login-attempt';
+import { initOrganization } from './organization';
+import { initPasswordToken } from './password-token';
+import { initPlan } from './plan';
+import { initPlanRevision } from './plan-revision';
+import { initSession } from './session';
+import { initUser } from './user';
+
+export function defineModels(sequelize: Sequelize) {
+  const models = {
+    Organization: initOrganization(sequelize),
+    User: initUser(sequelize),
+    Session: initSession(sequelize),
+    Plan: initPlan(sequelize),
+    PlanRevision: initPlanRevision(sequelize),
+    AuditEvent: initAuditEvent(sequelize),
+    LoginAttempt: initLoginAttempt(sequelize),
+    PasswordToken: initPasswordToken(sequelize),
+  };
+  const { User, Session, Plan, PlanRevision, Organization } = models;
+  User.belongsTo(Organization, { foreignKey: 'organizationId', as: 'organization' });
+  Session.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+  Plan.belongsTo(User, { foreignKey: 'authorId', as: 'author' });
+  Plan.hasMany(PlanRevision, { foreignKey: 'planId', as: 'revisions' });
+  PlanRevision.belongsTo(Plan, { foreignKey: 'planId', as: 'plan' });
+  return models;
+}
+
+export type Models = ReturnType<typeof defineModels>;
+export type { AuditEvent } from './audit-event';
+export type { Organization } from './organization';
+export type { Plan } from './plan';
+export type { PlanRevision } from './plan-revision';
+export type { User } from './user';

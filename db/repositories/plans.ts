@@ -1,0 +1,242 @@
+/**
+ * Plans and their revisions. Every function takes the organisation id: a plan of another
+ * organisation is simply not found. Revisions are only ever inserted.
+ */
+import { Op, Transaction, type Order, type WhereOptions } from 'sequelize';
+import type { PlanStatus } from '../../src/lib/domain/plan-status';
+import { isEditable } from '../../src/lib/domain/plan-status';
+import type { ListPlansQuery } from '../../src/lib/schemas/api';
+import { planSchema, type PlanDocument } from '../../src/lib/schemas/plan';
+import type { Db } from '../connection';
+import type { Plan, PlanRevision } from '../models';
+import { recordEvent } from './audit';
+
+export interface PlanSummary {
+  id: number;
+  title: string;
+  structure: string;
+  status: PlanStatus;
+  blockers: number | null;
+  warnings: number | null;
+  authorId: string;
+  authorName: string;
+  currentRevision: number;
+  createdAt: Date;
+  updatedAt: Date;
+}
+
+/** A stored check report; its shape is the checker's contract (plan-format.md). */
+export type StoredReport = { summary?: { blockers: number; warnings: number; notes: number } } & Record<string, unknown>;
+
+export interface PlanDetail extends PlanSummary {
+  document: PlanDocument;
+  report: StoredReport | null;
+  revisionCreatedAt: Date;
+  revisionCreatedBy: string;
+}
+
+export interface PlanPage {
+  items: PlanSummary[];
+  total: number;
+  page: number;
+  pageSize: number;
+  pages: number;
+}
+
+type PlanRow = Plan & { author?: { name: string } };
+
+function toSummary(row: PlanRow): PlanSummary {
+  return {
+    id: row.id,
+    title: row.title,
+    structure: row.structure,
+    status: row.status,
+    blockers: row.blockers,
+    warnings: row.warnings,
+    authorId: row.authorId,
+    authorName: row.author?.name ?? '',
+    currentRevision: row.currentRevision,
+    createdAt: row.createdAt,
+    updatedAt: row.updatedAt,
+  };
+}
+
+/** Parses a stored document with the plan schema: a corrupt row is an error, never silently used. */
+export function readStoredDocument(text: string): PlanDocument {
+  return planSchema.parse(JSON.parse(text));
+}
+
+function toDetail(row: PlanRow, revision: PlanRevision): PlanDetail {
+  return {
+    ...toSummary(row),
+    document: readStoredDocument(revision.document),
+    report: revision.report ? (JSON.parse(revision.report) as StoredReport) : null,
+    revisionCreatedAt: revision.createdAt,
+    revisionCreatedBy: revision.createdBy,
+  };
+}
+
+const SORT_COLUMNS: Record<ListPlansQuery['sort'], string> = {
+  updated: 'updatedAt',
+  created: 'createdAt',
+  title: 'title',
+  status: 'status',
+  blockers: 'blockers',
+  structure: 'structure',
+};
+
+const authorInclude = (db: Db) => ({ model: db.models.User, as: 'author', attributes: ['name'] });
+
+/** One page of the organisation's plans, filtered and sorted (ties broken by id for stable paging). */
+export async function listPlans(db: Db, organizationId: number, query: ListPlansQuery & { authorId?: string; statuses?: PlanStatus[] }): Promise<PlanPage> {
+  const where: WhereOptions = { organizationId };
+  if (query.status) Object.assign(where, { status: query.status });
+  else if (query.statuses) Object.assign(where, { status: { [Op.in]: query.statuses } });
+  if (query.authorId) Object.assign(where, { authorId: query.authorId });
+  if (query.q) Object.assign(where, { title: { [Op.like]: `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%` } });
+  const defaultDir = query.sort === 'updated' || query.sort === 'created' || query.sort === 'blockers' ? 'DESC' : 'ASC';
+  const dir = query.dir ? (query.dir.toUpperCase() as 'ASC' | 'DESC') : defaultDir;
+  const order: Order = [[SORT_COLUMNS[query.sort], dir], ['id', dir]];
+  const { rows, count } = await db.models.Plan.findAndCountAll({
+    where,
+    order,
+    include: [authorInclude(db)],
+    limit: query.pageSize,
+    offset: (query.page - 1) * query.pageSize,
+  });
+  return {
+    items: (rows as PlanRow[]).map(toSummary),
+    total: count,
+    page: query.page,
+    pageSize: query.pageSize,
+    pages: Math.max(1, Math.ceil(count / query.pageSize)),
+  };
+}
+
+export async function countPlansByStatus(db: Db, organizationId: number, authorId?: string): Promise<Record<PlanStatus, number>> {
+  const rows = (await db.models.Plan.findAll({
+    where: { organizationId, ...(authorId ? { authorId } : {}) },
+    attributes: ['status', [db.sequelize.fn('COUNT', db.sequelize.col('id')), 'n']],
+    group: ['status'],
+    raw: true,
+  })) as unknown as { status: PlanStatus; n: number | string }[];
+  const counts: Record<PlanStatus, number> = { draft: 0, submitted: 0, returned: 0, approved: 0 };
+  for (const r of rows) counts[r.status] = Number(r.n);
+  return counts;
+}
+
+export async function getPlan(db: Db, organizationId: number, id: number): Promise<PlanDetail | null> {
+  const row = (await db.models.Plan.findOne({ where: { id, organizationId }, include: [authorInclude(db)] })) as PlanRow | null;
+  if (!row) return null;
+  const revision = await db.models.PlanRevision.findOne({ where: { planId: id, number: row.currentRevision } });
+  return revision ? toDetail(row, revision) : null;
+}
+
+export interface NewPlan {
+  organizationId: number;
+  authorId: string;
+  title: string;
+  structure: string;
+  document: PlanDocument;
+  report: StoredReport | null;
+  status?: PlanStatus;
+}
+
+/** Creates a plan with its first revision, in one transaction, and records it in the audit trail. */
+export async function createPlan(db: Db, input: NewPlan): Promise<PlanDetail> {
+  const id = await db.sequelize.transaction(async (transaction) => {
+    const plan = await db.models.Plan.create(
+      {
+        organizationId: input.organizationId,
+        authorId: input.authorId,
+        title: input.title,
+        structure: input.structure,
+        status: input.status ?? 'draft',
+        currentRevision: 1,
+        blockers: input.report?.summary?.blockers ?? null,
+        warnings: input.report?.summary?.warnings ?? null,
+      },
+      { transaction },
+    );
+    await db.models.PlanRevision.create(
+      {
+        planId: plan.id,
+        number: 1,
+        document: JSON.stringify({ ...input.document, title: input.title }),
+        report: input.report ? JSON.stringify(input.report) : null,
+        createdBy: input.authorId,
+      },
+      { transaction },
+    );
+    await recordEvent(db, { organizationId: input.organizationId, actorId: input.authorId, action: 'plan.created', subjectType: 'plan', subjectId: plan.id, details: { revision: 1, title: input.title } }, transaction);
+    return plan.id;
+  });
+  return (await getPlan(db, input.organizationId, id))!;
+}
+
+export type SaveResult =
+  | { kind: 'saved'; plan: PlanDetail }
+  | { kind: 'stale'; current: PlanDetail }
+  | { kind: 'not-editable'; current: PlanDetail }
+  | { kind: 'not-found' };
+
+export interface DraftSave {
+  expectedRevision: number;
+  title?: string;
+  structure?: string;
+  document: PlanDocument;
+  report: StoredReport | null;
+}
+
+/**
+ * Saves a new revision of a draft. The plan row is locked for the transaction, so of two saves
+ * made from the same revision exactly one wins; the other is told the current revision.
+ */
+export async function saveDraft(db: Db, organizationId: number, planId: number, actorId: string, save: DraftSave): Promise<SaveResult> {
+  const outcome = await db.sequelize.transaction({ isolationLevel: Transaction.ISOLATION_LEVELS.READ_COMMITTED }, async (transaction) => {
+    const plan = await db.models.Plan.findOne({ where: { id: planId, organizationId }, lock: transaction.LOCK.UPDATE, transaction });
+    if (!plan) return 'not-found' as const;
+    if (!isEditable(plan.status)) return 'not-editable' as const;
+    if (plan.currentRevision !== save.expectedRevision) return 'stale' as const;
+    const number = plan.currentRevision + 1;
+    const title = save.title ?? save.document.title;
+    await db.models.PlanRevision.create(
+      { planId, number, document: JSON.stringify({ ...save.document, title }), report: save.report ? JSON.stringify(save.report) : null, createdBy: actorId },
+      { transaction },
+    );
+    await plan.update(
+      {
+        currentRevision: number,
+        lockVersion: plan.lockVersion + 1,
+        title,
+        ...(save.structure !== undefined ? { structure: save.structure } : {}),
+        blockers: save.report?.summary?.blockers ?? null,
+        warnings: save.report?.summary?.warnings ?? null,
+      },
+      { transaction },
+    );
+    await recordEvent(db, { organizationId, actorId, action: 'plan.saved', subjectType: 'plan', subjectId: planId, details: { revision: number } }, transaction);
+    return 'saved' as const;
+  });
+  if (outcome === 'not-found') return { kind: 'not-found' };
+  const current = (await getPlan(db, organizationId, planId))!;
+  if (outcome === 'saved') return { kind: 'saved', plan: current };
+  return { kind: outcome, current };
+}
+
+/** Stores a check report on the current revision (the report is derived data, not the document). */
+export async function storeReport(db: Db, organizationId: number, planId: number, revision: number, report: StoredReport): Promise<boolean> {
+  const plan = await db.models.Plan.findOne({ where: { id: planId, organizationId } });
+  // Only the current revision takes a report: an older one is fixed once a later one exists.
+  if (!plan || plan.currentRevision !== revision) return false;
+  await db.models.PlanRevision.update({ report: JSON.stringify(report) }, { where: { planId, number: revision } });
+  await plan.update({ blockers: report.summary?.blockers ?? null, warnings: report.summary?.warnings ?? null });
+  return true;
+}
+
+/** A short description of the structure from the document's first structure node. */
+export function describeStructure(document: PlanDocument): string {
+  const structure = document.nodes.find((n) => n.kind === 'structure');
+  if (!structure || structure.kind !== 'structure') return '';
+  return `${structure.label ?? 'Structure'} (${structure.material})`;
+}

@@ -1,0 +1,49 @@
+/** Failed sign-ins and one-time password links, stored so that they hold across restarts and instances. */
+import { createHash, randomBytes } from 'node:crypto';
+import { Op } from 'sequelize';
+import { normaliseEmail } from '../../src/lib/domain/people';
+import type { Db } from '../connection';
+
+/** Failures for this e-mail since `since`, oldest first. */
+export async function recentFailures(db: Db, email: string, since: Date): Promise<Date[]> {
+  const rows = await db.models.LoginAttempt.findAll({
+    where: { email: normaliseEmail(email), at: { [Op.gte]: since } },
+    order: [['at', 'ASC']],
+    attributes: ['at'],
+  });
+  return rows.map((r) => r.at);
+}
+
+export async function recordFailure(db: Db, email: string, at: Date): Promise<void> {
+  await db.models.LoginAttempt.create({ email: normaliseEmail(email), at });
+}
+
+export async function clearFailures(db: Db, email: string): Promise<void> {
+  await db.models.LoginAttempt.destroy({ where: { email: normaliseEmail(email) } });
+}
+
+const hashToken = (token: string) => createHash('sha256').update(token).digest('hex');
+
+/** Creates a one-time token for a person; returns the token itself (only its hash is stored). */
+export async function createPasswordToken(db: Db, userId: string, purpose: 'invite' | 'reset', expiresAt: Date): Promise<string> {
+  const token = randomBytes(24).toString('base64url');
+  await db.models.PasswordToken.create({ tokenHash: hashToken(token), userId, purpose, expiresAt, usedAt: null });
+  return token;
+}
+
+/** Finds a usable token (not used, not expired) and the person it belongs to. */
+export async function findUsableToken(db: Db, token: string, now: Date): Promise<{ userId: string; purpose: 'invite' | 'reset' } | null> {
+  const row = await db.models.PasswordToken.findOne({
+    where: { tokenHash: hashToken(token), usedAt: null, expiresAt: { [Op.gt]: now } },
+  });
+  return row ? { userId: row.userId, purpose: row.purpose } : null;
+}
+
+/** Marks the token used; false when another request used it first. */
+export async function consumeToken(db: Db, token: string, now: Date): Promise<boolean> {
+  const [count] = await db.models.PasswordToken.update(
+    { usedAt: now },
+    { where: { tokenHash: hashToken(token), usedAt: null, expiresAt: { [Op.gt]: now } } },
+  );
+  return count === 1;
+}

@@ -1,0 +1,144 @@
+/**
+ * Invented demo plans for the demo organisation. Every name, place and number is made up;
+ * no real utility, structure or product is described.
+ */
+import type { PlanDocument, PlanLink, PlanNode } from '../../src/lib/schemas/plan';
+import type { PlanStatus } from '../../src/lib/domain/plan-status';
+
+const system = { nominalKv: 12.47, frequencyHz: 60 as const, faultKa: 8, clearingCycles: 15, xOverR: 8, phaseSpacingM: 0.9 };
+
+const jumper = (id: string, from: string, to: string, cable: '2/0' | '4/0' | '2', lengthM: number, spanM: number): PlanLink => ({ id, kind: 'jumper', from, to, cable, lengthM, spanM, clampKa: 30, clampCycles: 15 });
+const reach = (id: string, from: string, to: string): PlanLink => ({ id, kind: 'reach', from, to });
+
+function document(title: string, nodes: PlanNode[], links: PlanLink[]): PlanDocument {
+  return { format: 'bondmap-plan', version: 1, title, system, criteria: { bodyKg: 50, bodyOhms: 1000 }, nodes, links };
+}
+
+const phases = (y: number): PlanNode[] => [
+  { id: 'A', kind: 'phase', phase: 'A', label: 'Phase A', position: { x: 80, y } },
+  { id: 'B', kind: 'phase', phase: 'B', label: 'Phase B', position: { x: 240, y } },
+  { id: 'C', kind: 'phase', phase: 'C', label: 'Phase C', position: { x: 400, y } },
+];
+
+export interface DemoPlan {
+  title: string;
+  status: PlanStatus;
+  author: 'lead' | 'admin';
+  document: PlanDocument;
+}
+
+export const DEMO_PLANS: DemoPlan[] = [
+  {
+    title: 'Pole 14 on Wren Hollow Road, bucket work',
+    status: 'approved',
+    author: 'lead',
+    document: document(
+      'Pole 14 on Wren Hollow Road, bucket work',
+      [
+        ...phases(40),
+        { id: 'N', kind: 'neutral', label: 'Neutral', groundOhms: 5, position: { x: 240, y: 200 } },
+        { id: 'P14', kind: 'structure', material: 'wood', label: 'Pole 14', position: { x: 240, y: 320 } },
+        { id: 'CB', kind: 'cluster-bar', label: 'Cluster bar', position: { x: 240, y: 130 } },
+        { id: 'BK', kind: 'bucket', insulatedBoom: true, label: 'Bucket', position: { x: 480, y: 140 } },
+        { id: 'W1', kind: 'worker', standsOn: 'BK', label: 'Lineworker in bucket', position: { x: 560, y: 80 } },
+      ],
+      [
+        jumper('jA', 'A', 'CB', '2/0', 2.4, 2.0),
+        jumper('jB', 'B', 'CB', '2/0', 1.8, 1.5),
+        jumper('jC', 'C', 'CB', '2/0', 2.4, 2.0),
+        jumper('jN', 'CB', 'N', '2/0', 1.8, 1.5),
+        jumper('jBK', 'BK', 'CB', '2/0', 3.0, 2.5),
+        reach('rA', 'W1', 'A'),
+        reach('rB', 'W1', 'B'),
+        reach('rC', 'W1', 'C'),
+      ],
+    ),
+  },
+  {
+    title: 'Pole 31 at Millrace Crossing, climber',
+    status: 'submitted',
+    author: 'lead',
+    document: document(
+      'Pole 31 at Millrace Crossing, climber',
+      [
+        ...phases(40),
+        { id: 'N', kind: 'neutral', label: 'Neutral', groundOhms: 8, position: { x: 240, y: 220 } },
+        { id: 'P31', kind: 'structure', material: 'wood', label: 'Pole 31', position: { x: 240, y: 330 } },
+        { id: 'XA', kind: 'crossarm', material: 'wood', label: 'Crossarm', position: { x: 240, y: 90 } },
+        { id: 'CB', kind: 'cluster-bar', label: 'Cluster bar at the climber\'s feet', position: { x: 240, y: 160 } },
+        { id: 'W1', kind: 'worker', standsOn: 'CB', label: 'Climber', position: { x: 420, y: 170 } },
+      ],
+      [
+        jumper('jA', 'A', 'CB', '2/0', 2.4, 2.0),
+        jumper('jB', 'B', 'CB', '2/0', 1.5, 1.2),
+        jumper('jC', 'C', 'CB', '2/0', 2.4, 2.0),
+        jumper('jN', 'CB', 'N', '2/0', 1.2, 1.0),
+        reach('rA', 'W1', 'A'),
+        reach('rC', 'W1', 'C'),
+      ],
+    ),
+  },
+  {
+    title: 'Riser pole 7 behind the Fernbrook depot, ground crew',
+    status: 'returned',
+    author: 'lead',
+    document: document(
+      'Riser pole 7 behind the Fernbrook depot, ground crew',
+      [
+        ...phases(40),
+        { id: 'N', kind: 'neutral', label: 'Neutral', groundOhms: 5, position: { x: 240, y: 200 } },
+        { id: 'P7', kind: 'structure', material: 'wood', label: 'Pole 7', position: { x: 240, y: 320 } },
+        { id: 'CB', kind: 'cluster-bar', label: 'Cluster bar', position: { x: 240, y: 130 } },
+        { id: 'TR', kind: 'truck', label: 'Line truck', position: { x: 520, y: 300 } },
+        { id: 'G', kind: 'earth', label: 'Earth', position: { x: 400, y: 420 } },
+        { id: 'W2', kind: 'worker', standsOn: 'G', label: 'Ground worker at the truck', position: { x: 620, y: 380 } },
+      ],
+      [
+        jumper('jA', 'A', 'CB', '2/0', 2.4, 2.0),
+        jumper('jB', 'B', 'CB', '2/0', 1.8, 1.5),
+        jumper('jC', 'C', 'CB', '2/0', 2.4, 2.0),
+        jumper('jN', 'CB', 'N', '2/0', 1.8, 1.5),
+        jumper('jTR', 'TR', 'CB', '2/0', 12, 9),
+        reach('rTR', 'W2', 'TR'),
+      ],
+    ),
+  },
+  {
+    title: 'Pole 22 on Thistle Lane, new draft',
+    status: 'draft',
+    author: 'lead',
+    document: document(
+      'Pole 22 on Thistle Lane, new draft',
+      [
+        ...phases(40),
+        { id: 'N', kind: 'neutral', label: 'Neutral', position: { x: 240, y: 200 } },
+        { id: 'P22', kind: 'structure', material: 'wood', label: 'Pole 22', position: { x: 240, y: 320 } },
+        { id: 'CB', kind: 'cluster-bar', label: 'Cluster bar', position: { x: 240, y: 130 } },
+        { id: 'W1', kind: 'worker', standsOn: 'P22', label: 'Climber', position: { x: 420, y: 170 } },
+      ],
+      [jumper('jA', 'A', 'CB', '2/0', 2.4, 2.0), jumper('jN', 'CB', 'N', '2/0', 1.8, 1.5), reach('rA', 'W1', 'A'), reach('rB', 'W1', 'B')],
+    ),
+  },
+];
+
+export const OTHER_ORG_PLAN: DemoPlan = {
+  title: 'Tower 3 on the Quillback line',
+  status: 'draft',
+  author: 'lead',
+  document: document(
+    'Tower 3 on the Quillback line',
+    [
+      ...phases(40),
+      { id: 'SW', kind: 'shield-wire', label: 'Shield wire', groundOhms: 10, position: { x: 240, y: -40 } },
+      { id: 'T3', kind: 'structure', material: 'steel', label: 'Tower 3', groundOhms: 15, position: { x: 240, y: 300 } },
+      { id: 'W1', kind: 'worker', standsOn: 'T3', label: 'Climber on the tower', position: { x: 420, y: 160 } },
+    ],
+    [
+      jumper('jA', 'A', 'T3', '4/0', 3, 2.5),
+      jumper('jB', 'B', 'T3', '4/0', 3, 2.5),
+      jumper('jC', 'C', 'T3', '4/0', 3, 2.5),
+      { id: 'bSW', kind: 'bond', from: 'SW', to: 'T3' },
+      reach('rB', 'W1', 'B'),
+    ],
+  ),
+};

@@ -1,0 +1,72 @@
+/**
+ * The invented demo: one co-operative with a person in each role and plans in every state, and
+ * a second organisation that proves isolation. Idempotent: what exists already is left alone.
+ */
+import type { Db } from '../connection';
+import { createPerson, findOrganizationBySlug } from '../repositories/people';
+import { createPlan, describeStructure } from '../repositories/plans';
+import { checkPlan } from '../../src/lib/domain/checker';
+import { hash } from '@node-rs/argon2';
+import type { Role } from '../../src/lib/domain/roles';
+import { DEMO_PLANS, OTHER_ORG_PLAN, type DemoPlan } from './demo-plans';
+
+export const DEMO_PASSWORD = 'bondmap-demo';
+
+export const DEMO_SIGN_INS: { email: string; role: Role; name: string; org: 'demo' | 'other' }[] = [
+  { email: 'admin@demo.test', role: 'admin', name: 'Odile Marchetti', org: 'demo' },
+  { email: 'reviewer@demo.test', role: 'reviewer', name: 'Tobias Lindqvist-Oyelaran', org: 'demo' },
+  { email: 'reviewer2@demo.test', role: 'reviewer', name: 'Priya Vantongeren', org: 'demo' },
+  { email: 'lead@demo.test', role: 'crew_lead', name: 'Casimir Abernethy', org: 'demo' },
+  { email: 'apprentice@demo.test', role: 'apprentice', name: 'Junie Halvorsen-Mbeki', org: 'demo' },
+  { email: 'lead@other.test', role: 'crew_lead', name: 'Rosalind Fairweather-Osei', org: 'other' },
+  { email: 'admin@other.test', role: 'admin', name: 'Emeric Stavros-Lund', org: 'other' },
+];
+
+const ORGS = {
+  demo: { slug: 'larkspur-valley', name: 'Larkspur Valley Electric Co-operative' },
+  other: { slug: 'quillback-ridge', name: 'Quillback Ridge Power Co-operative' },
+};
+
+async function ensureOrg(db: Db, key: 'demo' | 'other'): Promise<number> {
+  const existing = await findOrganizationBySlug(db, ORGS[key].slug);
+  if (existing) return existing.id;
+  return (await db.models.Organization.create(ORGS[key])).id;
+}
+
+async function seedPlans(db: Db, organizationId: number, authorId: string, plans: DemoPlan[]): Promise<number> {
+  if ((await db.models.Plan.count({ where: { organizationId } })) > 0) return 0;
+  for (const plan of plans) {
+    await createPlan(db, {
+      organizationId,
+      authorId,
+      title: plan.title,
+      structure: describeStructure(plan.document),
+      document: plan.document,
+      report: checkPlan(plan.document),
+      status: plan.status,
+    });
+  }
+  return plans.length;
+}
+
+/** Seeds the demo; returns how many people and plans it added. */
+export async function seedDemo(db: Db): Promise<{ people: number; plans: number }> {
+  const orgIds = { demo: await ensureOrg(db, 'demo'), other: await ensureOrg(db, 'other') };
+  const passwordHash = await hash(DEMO_PASSWORD, { memoryCost: 19456, timeCost: 2, parallelism: 1 });
+  let people = 0;
+  const ids: Record<string, string> = {};
+  for (const s of DEMO_SIGN_INS) {
+    const row = await db.models.User.findOne({ where: { email: s.email } });
+    if (row) {
+      ids[s.email] = row.id;
+      continue;
+    }
+    const person = await createPerson(db, { organizationId: orgIds[s.org], email: s.email, name: s.name, role: s.role, passwordHash });
+    ids[s.email] = person.id;
+    people += 1;
+  }
+  const plans =
+    (await seedPlans(db, orgIds.demo, ids['lead@demo.test'], DEMO_PLANS)) +
+    (await seedPlans(db, orgIds.other, ids['lead@other.test'], [OTHER_ORG_PLAN]));
+  return { people, plans };
+}

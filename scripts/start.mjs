@@ -1,0 +1,38 @@
+// `npm start`: from a fresh machine to a running Bondmap. Installs what is missing (npm packages,
+// Debian's mariadb-server), starts or reuses the project's own MariaDB, migrates, seeds the
+// invented demo, builds when sources changed, serves, and prints the address and sign-ins.
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { ensureBuild, ensureDependencies, ROOT, run, say, startServer } from './lib.mjs';
+
+const port = Number(process.env.PORT ?? 4321);
+
+try {
+  ensureDependencies();
+  const envFile = join(ROOT, '.data', 'dev-app-env.json');
+  run('npx', ['tsx', 'db/cli.ts', 'up', '--profile', 'dev', '--env-out', envFile]);
+  const dbEnv = JSON.parse(readFileSync(envFile, 'utf8'));
+  ensureBuild();
+  const { child, url } = await startServer({ port, env: { ...dbEnv, BONDMAP_PUBLIC_URL: process.env.BONDMAP_PUBLIC_URL ?? `http://127.0.0.1:${port}` } });
+  const demo = process.env.BONDMAP_DEMO === '0' ? '' : `
+  Demo sign-ins (invented people; for the demo only — never use these on a real system),
+  all with the password  bondmap-demo :
+    admin@demo.test        admin
+    reviewer@demo.test     reviewer   (also reviewer2@demo.test)
+    lead@demo.test         crew lead
+    apprentice@demo.test   apprentice
+    lead@other.test        crew lead of a second organisation (shows isolation)
+`;
+  console.log(`
+  Bondmap is running at ${url}
+${demo}
+  Ctrl+C stops the app; MariaDB keeps running for next time (npm run db:stop stops it).
+`);
+  const stop = () => child.kill('SIGTERM');
+  process.on('SIGINT', stop);
+  process.on('SIGTERM', stop);
+  child.on('exit', (code) => process.exit(code ?? 0));
+} catch (error) {
+  say(error instanceof Error ? error.message : String(error));
+  process.exit(1);
+}

@@ -1,0 +1,85 @@
+// `npm test`: sets up everything the suite needs on a fresh machine (npm packages; Debian's
+// mariadb-server, chromium, ngspice and poppler-utils), starts its own MariaDB with a separate
+// database, runs unit and component tests, builds and serves the app against the test database,
+// runs the API and browser tests, and stops what it started.
+import { spawn } from 'node:child_process';
+import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
+import { join } from 'node:path';
+import { ensureBuild, ensureDebianPackages, ensureDependencies, ROOT, run, say, startServer } from './lib.mjs';
+
+const port = Number(process.env.BONDMAP_TEST_PORT ?? 4391);
+const results = join(ROOT, 'artifacts', 'test-results');
+let server = null;
+let startedDb = false;
+
+function vitest(projects, env, outFile) {
+  const args = ['vitest', 'run', ...projects.flatMap((p) => ['--project', p]), '--reporter=default', '--reporter=json', `--outputFile.json=${outFile}`];
+  return new Promise((done) => {
+    const child = spawn('npx', args, { cwd: ROOT, stdio: 'inherit', env: { ...process.env, ...env } });
+    child.on('exit', (code) => done(code ?? 1));
+  });
+}
+
+function tally(files) {
+  let passed = 0;
+  let failed = 0;
+  let skipped = 0;
+  for (const file of files) {
+    if (!existsSync(file)) continue;
+    const report = JSON.parse(readFileSync(file, 'utf8'));
+    passed += report.numPassedTests ?? 0;
+    failed += report.numFailedTests ?? 0;
+    skipped += (report.numPendingTests ?? 0) + (report.numTodoTests ?? 0);
+  }
+  return { passed, failed, skipped };
+}
+
+async function main() {
+  ensureDependencies();
+  ensureDebianPackages([
+    ['/usr/sbin/mariadbd', 'mariadb-server'],
+    ['/usr/bin/chromium', 'chromium'],
+    ['/usr/bin/ngspice', 'ngspice'],
+    ['/usr/bin/pdftotext', 'poppler-utils'],
+  ]);
+  rmSync(results, { recursive: true, force: true });
+  mkdirSync(results, { recursive: true });
+
+  startedDb = !existsSync(join(ROOT, '.data', 'test', 'mariadbd.pid'));
+  const envFile = join(ROOT, '.data', 'test-app-env.json');
+  // A fresh schema every run, with the invented demo seeded (the browser tests sign in as its people).
+  run('npx', ['tsx', 'db/cli.ts', 'reset', '--profile', 'test', '--env-out', envFile]);
+  const dbEnv = JSON.parse(readFileSync(envFile, 'utf8'));
+
+  const unitCode = await vitest(['unit', 'components'], {}, join(results, 'unit.json'));
+
+  ensureBuild();
+  ({ child: server } = await startServer({ port, env: { ...dbEnv, BONDMAP_PUBLIC_URL: `http://127.0.0.1:${port}` }, stdio: ['ignore', 'ignore', 'inherit'] }));
+  const serverEnv = { ...dbEnv, BONDMAP_TEST_URL: `http://127.0.0.1:${port}`, BONDMAP_TEST_PROFILE: 'test' };
+  const apiCode = await vitest(['api', 'e2e'], serverEnv, join(results, 'server.json'));
+
+  const { passed, failed, skipped } = tally([join(results, 'unit.json'), join(results, 'server.json')]);
+  console.log(`\nSuite: ${passed} passed, ${failed} failed${skipped ? `, ${skipped} skipped` : ''}`);
+  return unitCode === 0 && apiCode === 0 ? 0 : 1;
+}
+
+async function cleanUp() {
+  if (server && server.exitCode === null) server.kill('SIGTERM');
+  if (startedDb) {
+    try {
+      run('npx', ['tsx', 'db/cli.ts', 'stop', '--profile', 'test']);
+    } catch (error) {
+      say(`could not stop the test database: ${error.message}`);
+    }
+  }
+}
+
+let code = 1;
+try {
+  code = await main();
+} catch (error) {
+  say(error instanceof Error ? error.message : String(error));
+} finally {
+  await cleanUp();
+}
+process.exit(code);

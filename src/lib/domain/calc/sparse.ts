@@ -1,0 +1,321 @@
+/**
+ * Sparse LDLᵀ factorisation of a complex symmetric matrix (a nodal admittance matrix: symmetric,
+ * not Hermitian), with a minimum-degree ordering. Grounding networks are mostly trees with a few
+ * loops, so the factor has almost no fill and one factorisation serves every right-hand side.
+ *
+ * No pivoting: every branch of a grounding network has a positive resistance, so the real part of
+ * the admittance matrix of its earthed part is positive definite and every leading minor is
+ * non-zero. Parts with no path to earth must be left out before factorising (see network.ts).
+ */
+
+/** A symmetric complex matrix: its diagonal and its strictly-off-diagonal entries, each pair once. */
+export interface SymmetricEntries {
+  size: number;
+  diagRe: Float64Array;
+  diagIm: Float64Array;
+  /** Off-diagonal entries (row, col), in either order, each unordered pair at most once. */
+  offRow: Int32Array;
+  offCol: Int32Array;
+  offRe: Float64Array;
+  offIm: Float64Array;
+}
+
+export interface LdlFactor {
+  size: number;
+  /** perm[original index] = position in the elimination order. */
+  perm: Int32Array;
+  /** Column pointers and row positions of L (strictly lower, in elimination positions). */
+  colPtr: Int32Array;
+  rowPos: Int32Array;
+  lRe: Float64Array;
+  lIm: Float64Array;
+  dRe: Float64Array;
+  dIm: Float64Array;
+  /** Scratch for solves, so repeated solves allocate nothing. */
+  workRe: Float64Array;
+  workIm: Float64Array;
+}
+
+/** Binary min-heap of (key, value) with lazy deletion, for the minimum-degree ordering. */
+class MinHeap {
+  private keys: number[] = [];
+  private values: number[] = [];
+  get length(): number {
+    return this.keys.length;
+  }
+  push(key: number, value: number): void {
+    const { keys, values } = this;
+    let i = keys.length;
+    keys.push(key);
+    values.push(value);
+    while (i > 0) {
+      const parent = (i - 1) >> 1;
+      if (keys[parent] <= key) break;
+      keys[i] = keys[parent];
+      values[i] = values[parent];
+      i = parent;
+    }
+    keys[i] = key;
+    values[i] = value;
+  }
+  /** Removes the smallest entry and returns its [key, value]. */
+  pop(): [number, number] {
+    const { keys, values } = this;
+    const top: [number, number] = [keys[0], values[0]];
+    const lastKey = keys.pop() as number;
+    const lastValue = values.pop() as number;
+    const n = keys.length;
+    if (n > 0) {
+      let i = 0;
+      for (;;) {
+        let child = 2 * i + 1;
+        if (child >= n) break;
+        if (child + 1 < n && keys[child + 1] < keys[child]) child += 1;
+        if (keys[child] >= lastKey) break;
+        keys[i] = keys[child];
+        values[i] = values[child];
+        i = child;
+      }
+      keys[i] = lastKey;
+      values[i] = lastValue;
+    }
+    return top;
+  }
+}
+
+/**
+ * Minimum-degree elimination on the matrix graph. Returns the order and, for each eliminated
+ * vertex, its neighbours at elimination time: exactly the row pattern of its column of L.
+ */
+export function minimumDegreeOrder(size: number, offRow: Int32Array, offCol: Int32Array): { order: Int32Array; pattern: number[][] } {
+  const adjacency: Set<number>[] = Array.from({ length: size }, () => new Set<number>());
+  for (let e = 0; e < offRow.length; e++) {
+    adjacency[offRow[e]].add(offCol[e]);
+    adjacency[offCol[e]].add(offRow[e]);
+  }
+  const heap = new MinHeap();
+  for (let v = 0; v < size; v++) heap.push(adjacency[v].size, v);
+  const done = new Uint8Array(size);
+  const order = new Int32Array(size);
+  const pattern: number[][] = new Array(size);
+  let step = 0;
+  while (heap.length > 0) {
+    const [degree, v] = heap.pop();
+    if (done[v] || degree !== adjacency[v].size) continue; // stale heap entry
+    done[v] = 1;
+    order[step++] = v;
+    const neighbours = [...adjacency[v]];
+    pattern[v] = neighbours;
+    for (const a of neighbours) adjacency[a].delete(v);
+    for (let i = 0; i < neighbours.length; i++) {
+      const setA = adjacency[neighbours[i]];
+      for (let j = i + 1; j < neighbours.length; j++) {
+        if (!setA.has(neighbours[j])) {
+          setA.add(neighbours[j]);
+          adjacency[neighbours[j]].add(neighbours[i]);
+        }
+      }
+    }
+    for (const a of neighbours) heap.push(adjacency[a].size, a);
+    adjacency[v].clear();
+  }
+  return { order, pattern };
+}
+
+/** Factorises A = L·D·Lᵀ (complex symmetric, no conjugation) after a minimum-degree ordering. */
+export function factorSymmetric(matrix: SymmetricEntries): LdlFactor {
+  const n = matrix.size;
+  const { order, pattern } = minimumDegreeOrder(n, matrix.offRow, matrix.offCol);
+  const perm = new Int32Array(n);
+  for (let k = 0; k < n; k++) perm[order[k]] = k;
+
+  // Column structure of L in elimination positions, rows sorted ascending.
+  const colPtr = new Int32Array(n + 1);
+  for (let k = 0; k < n; k++) colPtr[k + 1] = colPtr[k] + pattern[order[k]].length;
+  const rowPos = new Int32Array(colPtr[n]);
+  for (let k = 0; k < n; k++) {
+    const rows = pattern[order[k]].map((v) => perm[v]).sort((a, b) => a - b);
+    rowPos.set(rows, colPtr[k]);
+  }
+  // Row structure: for each row j, the columns k < j holding an entry, with the entry's index.
+  const rowCount = new Int32Array(n + 1);
+  for (let p = 0; p < rowPos.length; p++) rowCount[rowPos[p] + 1]++;
+  for (let j = 0; j < n; j++) rowCount[j + 1] += rowCount[j];
+  const rowFill = rowCount.slice(0, n);
+  const rowEntry = new Int32Array(rowPos.length);
+  const rowCol = new Int32Array(rowPos.length);
+  for (let k = 0; k < n; k++) {
+    for (let p = colPtr[k]; p < colPtr[k + 1]; p++) {
+      const slot = rowFill[rowPos[p]]++;
+      rowEntry[slot] = p;
+      rowCol[slot] = k;
+    }
+  }
+  // Entries of A below the diagonal, grouped by column in elimination positions.
+  const aPtr = new Int32Array(n + 1);
+  const m = matrix.offRow.length;
+  for (let e = 0; e < m; e++) aPtr[Math.min(perm[matrix.offRow[e]], perm[matrix.offCol[e]]) + 1]++;
+  for (let j = 0; j < n; j++) aPtr[j + 1] += aPtr[j];
+  const aFill = aPtr.slice(0, n);
+  const aRow = new Int32Array(m);
+  const aRe = new Float64Array(m);
+  const aIm = new Float64Array(m);
+  for (let e = 0; e < m; e++) {
+    const i = perm[matrix.offRow[e]];
+    const j = perm[matrix.offCol[e]];
+    const slot = aFill[Math.min(i, j)]++;
+    aRow[slot] = Math.max(i, j);
+    aRe[slot] = matrix.offRe[e];
+    aIm[slot] = matrix.offIm[e];
+  }
+
+  const lRe = new Float64Array(rowPos.length);
+  const lIm = new Float64Array(rowPos.length);
+  const dRe = new Float64Array(n);
+  const dIm = new Float64Array(n);
+  const wRe = new Float64Array(n);
+  const wIm = new Float64Array(n);
+  for (let j = 0; j < n; j++) {
+    wRe[j] = matrix.diagRe[order[j]];
+    wIm[j] = matrix.diagIm[order[j]];
+    for (let p = aPtr[j]; p < aPtr[j + 1]; p++) {
+      wRe[aRow[p]] += aRe[p];
+      wIm[aRow[p]] += aIm[p];
+    }
+    // Left-looking update from every earlier column k with L[j,k] ≠ 0.
+    for (let s = rowCount[j]; s < rowCount[j + 1]; s++) {
+      const k = rowCol[s];
+      const q = rowEntry[s];
+      const lr = lRe[q];
+      const li = lIm[q];
+      const tr = lr * dRe[k] - li * dIm[k];
+      const ti = lr * dIm[k] + li * dRe[k];
+      wRe[j] -= lr * tr - li * ti;
+      wIm[j] -= lr * ti + li * tr;
+      for (let p = q + 1; p < colPtr[k + 1]; p++) {
+        const i = rowPos[p];
+        wRe[i] -= lRe[p] * tr - lIm[p] * ti;
+        wIm[i] -= lRe[p] * ti + lIm[p] * tr;
+      }
+    }
+    const pr = wRe[j];
+    const pi = wIm[j];
+    const mag2 = pr * pr + pi * pi;
+    if (!(mag2 > 0) || !Number.isFinite(mag2)) {
+      throw new Error(`singular admittance matrix at unknown ${order[j]}: a part of the network has no path to earth`);
+    }
+    dRe[j] = pr;
+    dIm[j] = pi;
+    const invRe = pr / mag2;
+    const invIm = -pi / mag2;
+    for (let p = colPtr[j]; p < colPtr[j + 1]; p++) {
+      const i = rowPos[p];
+      lRe[p] = wRe[i] * invRe - wIm[i] * invIm;
+      lIm[p] = wRe[i] * invIm + wIm[i] * invRe;
+      wRe[i] = 0;
+      wIm[i] = 0;
+    }
+    wRe[j] = 0;
+    wIm[j] = 0;
+  }
+  return { size: n, perm, colPtr, rowPos, lRe, lIm, dRe, dIm, workRe: wRe, workIm: wIm };
+}
+
+/** Solves A·x = b with a factor from factorSymmetric; b and x are indexed by original unknown. */
+export function solveSymmetric(
+  factor: LdlFactor,
+  bRe: Float64Array,
+  bIm: Float64Array,
+  xRe: Float64Array = new Float64Array(factor.size),
+  xIm: Float64Array = new Float64Array(factor.size),
+): { re: Float64Array; im: Float64Array } {
+  const { size: n, perm, colPtr, rowPos, lRe, lIm, dRe, dIm, workRe: yRe, workIm: yIm } = factor;
+  for (let i = 0; i < n; i++) {
+    yRe[perm[i]] = bRe[i];
+    yIm[perm[i]] = bIm[i];
+  }
+  for (let j = 0; j < n; j++) {
+    const vr = yRe[j];
+    const vi = yIm[j];
+    if (vr === 0 && vi === 0) continue;
+    for (let p = colPtr[j]; p < colPtr[j + 1]; p++) {
+      const i = rowPos[p];
+      yRe[i] -= lRe[p] * vr - lIm[p] * vi;
+      yIm[i] -= lRe[p] * vi + lIm[p] * vr;
+    }
+  }
+  for (let j = 0; j < n; j++) {
+    const mag2 = dRe[j] * dRe[j] + dIm[j] * dIm[j];
+    const vr = yRe[j];
+    const vi = yIm[j];
+    yRe[j] = (vr * dRe[j] + vi * dIm[j]) / mag2;
+    yIm[j] = (vi * dRe[j] - vr * dIm[j]) / mag2;
+  }
+  for (let j = n - 1; j >= 0; j--) {
+    let sr = yRe[j];
+    let si = yIm[j];
+    for (let p = colPtr[j]; p < colPtr[j + 1]; p++) {
+      const i = rowPos[p];
+      sr -= lRe[p] * yRe[i] - lIm[p] * yIm[i];
+      si -= lRe[p] * yIm[i] + lIm[p] * yRe[i];
+    }
+    yRe[j] = sr;
+    yIm[j] = si;
+  }
+  for (let i = 0; i < n; i++) {
+    xRe[i] = yRe[perm[i]];
+    xIm[i] = yIm[perm[i]];
+  }
+  return { re: xRe, im: xIm };
+}
+
+/**
+ * Solves A·X = B for `count` right-hand sides at once, in place, in elimination positions:
+ * `block[(position·count + r)·2]` holds the real part of right-hand side r at that position, the
+ * next slot its imaginary part (position = factor.perm[original index]). Walking L once for many
+ * right-hand sides is several times faster than one solve after another.
+ */
+export function solveBlockInPlace(factor: LdlFactor, block: Float64Array, count: number): void {
+  const { size: n, colPtr, rowPos, lRe, lIm, dRe, dIm } = factor;
+  const stride = 2 * count;
+  for (let j = 0; j < n; j++) {
+    const bj = j * stride;
+    for (let p = colPtr[j]; p < colPtr[j + 1]; p++) {
+      const lr = lRe[p];
+      const li = lIm[p];
+      const bi = rowPos[p] * stride;
+      for (let r = 0; r < stride; r += 2) {
+        const vr = block[bj + r];
+        const vi = block[bj + r + 1];
+        block[bi + r] -= lr * vr - li * vi;
+        block[bi + r + 1] -= lr * vi + li * vr;
+      }
+    }
+  }
+  for (let j = 0; j < n; j++) {
+    const mag2 = dRe[j] * dRe[j] + dIm[j] * dIm[j];
+    const ir = dRe[j] / mag2;
+    const ii = -dIm[j] / mag2;
+    const bj = j * stride;
+    for (let r = 0; r < stride; r += 2) {
+      const vr = block[bj + r];
+      const vi = block[bj + r + 1];
+      block[bj + r] = vr * ir - vi * ii;
+      block[bj + r + 1] = vr * ii + vi * ir;
+    }
+  }
+  for (let j = n - 1; j >= 0; j--) {
+    const bj = j * stride;
+    for (let p = colPtr[j]; p < colPtr[j + 1]; p++) {
+      const lr = lRe[p];
+      const li = lIm[p];
+      const bi = rowPos[p] * stride;
+      for (let r = 0; r < stride; r += 2) {
+        const xr = block[bi + r];
+        const xi = block[bi + r + 1];
+        block[bj + r] -= lr * xr - li * xi;
+        block[bj + r + 1] -= lr * xi + li * xr;
+      }
+    }
+  }
+}

@@ -1,0 +1,161 @@
+/**
+ * The checker: zones, calculations and rules composed into one check report
+ * (shared/design/plan-format.md, "Check report"). Pure: same plan, same report.
+ */
+import type { PlanDocument } from '../schemas/plan';
+import { calc as defaultCalc } from './calc/index';
+import type { CalcEntryPoints, FaultFigures, NetworkFigures } from './calc/contract';
+import { buildPlanModel } from './plan-model';
+import {
+  CAUTION,
+  REPORT_FORMAT,
+  REPORT_VERSION,
+  type CheckReport,
+  type Figure,
+  type Finding,
+  type ReportContact,
+  type ReportJumper,
+  type ReportRod,
+} from './report';
+import { compareFindings, runRules } from './rules/index';
+import { mapZones } from './zones';
+
+export const CALC_FAILED = 'calc-failed';
+
+
+/** A figure as the report carries it: null instead of NaN or an infinity. */
+const figure = (value: number | null | undefined): Figure => (typeof value === 'number' && Number.isFinite(value) ? value : null);
+
+const EMPTY_NETWORK: NetworkFigures = { contacts: [], jumpers: [], rods: [], assumptions: [], unsolvedPhases: [] };
+
+/** The fault figures the schema's bounds guarantee even when the calculation fails. */
+function fallbackFault(plan: PlanDocument): FaultFigures {
+  const durationS = plan.system.clearingCycles / plan.system.frequencyHz;
+  return { symmetricalKa: plan.system.faultKa, durationS, decrementFactor: NaN, asymmetricalKa: NaN, peakFactor: NaN, peakKa: NaN, peakForceNPerM: null };
+}
+
+function calcFailed(error: unknown): Finding {
+  const detail = error instanceof Error ? error.message : String(error);
+  return {
+    rule: CALC_FAILED,
+    severity: 'blocker',
+    elements: [],
+    message: `The fault and network figures could not be computed (${detail}); the plan cannot be shown safe until this is fixed.`,
+    basis: 'Bondmap checker: a figure that cannot be computed cannot show the plan safe',
+  };
+}
+
+/** Runs the calculations, turning a thrown error into a blocker rather than a failed request. */
+function runCalc(plan: PlanDocument, calc: CalcEntryPoints) {
+  const extra: Finding[] = [];
+  let fault: FaultFigures | undefined;
+  let tolerableBodyAmps = NaN;
+  let network = EMPTY_NETWORK;
+  try {
+    fault = calc.computeFault(plan.system);
+    tolerableBodyAmps = calc.tolerableBodyAmps(fault.durationS, plan.criteria?.bodyKg ?? 50);
+    network = calc.analyseNetwork(plan);
+  } catch (error) {
+    extra.push(calcFailed(error));
+  }
+  return { fault: fault ?? fallbackFault(plan), tolerableBodyAmps, network, extra };
+}
+
+function toReportContact(contact: NetworkFigures['contacts'][number]): ReportContact {
+  const solved = contact.status === 'solved';
+  return {
+    worker: contact.worker,
+    surface: contact.surface,
+    touchVolts: solved ? figure(contact.touchVolts) : null,
+    bodyAmps: solved ? figure(contact.bodyAmps) : null,
+    limitAmps: figure(contact.limitAmps),
+    worstPhase: contact.worstPhase,
+    status: contact.status,
+  };
+}
+
+function toReportJumper(jumper: NetworkFigures['jumpers'][number]): ReportJumper {
+  return {
+    link: jumper.link,
+    ohms: figure(jumper.ohms),
+    dutyKa: figure(jumper.dutyKa),
+    cableRatingKa: figure(jumper.cableRatingKa),
+    clampRatingKa: figure(jumper.clampRatingKa),
+    resistanceOhms: figure(jumper.resistanceOhms),
+    reactanceOhms: figure(jumper.reactanceOhms),
+    fusingKa: figure(jumper.fusingKa),
+    currentKa: figure(jumper.currentKa),
+  };
+}
+
+function toReportRod(rod: NetworkFigures['rods'][number]): ReportRod {
+  return {
+    node: rod.node,
+    ohms: figure(rod.ohms),
+    method: rod.method,
+    barricadeRadiusM: figure(rod.barricadeRadiusM),
+    tolerableStepVolts: figure(rod.tolerableStepVolts),
+    barricadeMethod: rod.barricadeMethod,
+    currentKa: figure(rod.currentKa),
+    potentialRiseVolts: figure(rod.potentialRiseVolts),
+  };
+}
+
+/**
+ * Checks a parsed plan: bonded zones (OSHA 29 CFR 1910.269(n)(3)), fault figures and body-current
+ * limits (IEEE Std 80, IEC 60909-0), cable and clamp ratings (ASTM F855, secondhand) and every rule
+ * of rules/, returned as the version-1 check report. `calc` is replaceable for tests.
+ */
+export function checkPlan(plan: PlanDocument, calc: CalcEntryPoints = defaultCalc): CheckReport {
+  const model = buildPlanModel(plan);
+  const zones = mapZones(model);
+  const { fault, tolerableBodyAmps, network, extra } = runCalc(plan, calc);
+  const durationS = fault.durationS;
+  const frequencyHz = plan.system.frequencyHz;
+  const ruleFindings = runRules({
+    plan,
+    model,
+    zones,
+    fault,
+    tolerableBodyAmps,
+    network,
+    cableRatingKa(cable) {
+      try {
+        return calc.cableRating(cable, durationS, frequencyHz).ratingKa;
+      } catch {
+        return NaN;
+      }
+    },
+  });
+  const findings = [...ruleFindings, ...extra].sort(compareFindings);
+  const count = (severity: Finding['severity']) => findings.filter((f) => f.severity === severity).length;
+  const blockers = count('blocker');
+  return {
+    format: REPORT_FORMAT,
+    version: REPORT_VERSION,
+    ok: blockers === 0,
+    summary: { blockers, warnings: count('warning'), notes: count('note') },
+    findings,
+    fault: {
+      symmetricalKa: figure(fault.symmetricalKa),
+      durationS: figure(fault.durationS),
+      decrementFactor: figure(fault.decrementFactor),
+      asymmetricalKa: figure(fault.asymmetricalKa),
+      peakFactor: figure(fault.peakFactor),
+      peakKa: figure(fault.peakKa),
+      peakForceNPerM: figure(fault.peakForceNPerM),
+    },
+    tolerableBodyAmps: figure(tolerableBodyAmps),
+    zones: zones.zones.map((zone) => ({
+      nodes: zone.nodes,
+      grounded: zone.grounded,
+      ...(zone.groundedOnlyViaPoleGround ? { groundedOnlyViaPoleGround: true } : {}),
+      ...(zone.poleGroundDependent.length > 0 ? { poleGroundDependent: zone.poleGroundDependent } : {}),
+    })),
+    contacts: network.contacts.map(toReportContact),
+    jumpers: network.jumpers.map(toReportJumper),
+    rods: network.rods.map(toReportRod),
+    assumptions: network.assumptions.map((a) => ({ ...a, value: figure(a.value) })),
+    caution: CAUTION,
+  };
+}

@@ -1,0 +1,17 @@
+/** The four roles of an organisation and what each may do (product.md, "Who uses it"). */
+export const ROLES = ['admin', 'reviewer', 'crew_lead', 'apprentice'] as const;
+export type Role = (typeof ROLES)[number];
+
+export const ROLE_LABELS: Record<Role, string> = {
+  admin: 'Admin',
+  reviewer: 'Reviewer',
+  crew_lead: 'Crew lead',
+  apprentice: 'Apprentice',
+};
+
+export function isRole(value: unknown): value is Role {
+  return typeof value === 'string' && (ROLES as readonly string[]).includes(value);
+}
+
+/** Roles that may create and edit plans. */
+export const PLAN_AUTHOR_ROLES: readonly Role[] = ['crew_lead', 'admin'];

@@ -1,0 +1,37 @@
+/**
+ * Number formatting for finding messages: the rounding a crew lead reads comfortably, units
+ * always written out.
+ */
+
+const fixed = (value: number, digits: number) => (Number.isFinite(value) ? value.toFixed(digits) : 'an unknown value of');
+
+/** Current in kA to one decimal: "10.5 kA". */
+export const kiloamps = (valueKa: number) => `${fixed(valueKa, 1)} kA`;
+
+/** Current in A to three decimals, the precision of the Dalziel limits ("0.232 A"); one decimal from 10 A. */
+export const amps = (valueA: number) => `${fixed(valueA, Math.abs(valueA) >= 10 ? 1 : 3)} A`;
+
+/** Potential: one decimal below 10 V, whole volts below 1 kV, then kV to one decimal. */
+export const volts = (valueV: number) =>
+  Math.abs(valueV) >= 1000 ? `${fixed(valueV / 1000, 1)} kV` : `${fixed(valueV, Math.abs(valueV) >= 10 ? 0 : 1)} V`;
+
+/** Length in m to one decimal: "1.8 m". */
+export const metres = (valueM: number) => `${fixed(valueM, 1)} m`;
+
+/** Time in s, to two decimals (cycles are fractions of a second): "0.25 s". */
+export const seconds = (valueS: number) => `${fixed(valueS, 2)} s`;
+
+/** Resistance in ohms to three significant figures. */
+export const ohms = (value: number) => (Number.isFinite(value) ? `${Number(value.toPrecision(3))} Ω` : 'an unknown resistance');
+
+/** Cable size as the trade writes it: "#2", "4/0", "250 kcmil". */
+export function cableName(cable: string): string {
+  if (cable.includes('/')) return cable;
+  return Number(cable) >= 250 ? `${cable} kcmil` : `#${cable}`;
+}
+
+/** "A, B and C". */
+export function listOf(names: string[]): string {
+  if (names.length <= 1) return names.join('');
+  return `${names.slice(0, -1).join(', ')} and ${names[names.length - 1]}`;
+}

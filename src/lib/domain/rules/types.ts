@@ -1,0 +1,30 @@
+/**
+ * What every checker rule receives and returns. A rule is a pure function of this context; how
+ * findings are shown (panel, JSON, PDF) is someone else's code.
+ */
+import type { CableSize, PlanDocument } from '../../schemas/plan';
+import type { FaultFigures, NetworkFigures } from '../calc/contract';
+import type { PlanModel } from '../plan-model';
+import type { Finding } from '../report';
+import type { ZoneMap } from '../zones';
+
+export type { Finding, Severity } from '../report';
+
+export interface RuleContext {
+  plan: PlanDocument;
+  model: PlanModel;
+  zones: ZoneMap;
+  fault: FaultFigures;
+  /** Dalziel tolerable body current for the clearing time and body weight, A (IEEE Std 80). */
+  tolerableBodyAmps: number;
+  network: NetworkFigures;
+  /** Rating of a cable size for this plan's clearing time and frequency, kA, to suggest a size that suffices. */
+  cableRatingKa(cable: CableSize): number;
+}
+
+export type Rule = (ctx: RuleContext) => Finding[];
+
+/** The body weight the plan's criteria select (plan-format.md: default 50 kg). */
+export function bodyKgOf(plan: PlanDocument): 50 | 70 {
+  return plan.criteria?.bodyKg ?? 50;
+}

@@ -1,0 +1,75 @@
+/** Request bodies and query strings of the HTTP API; the islands' forms use the same schemas. */
+import { z } from 'zod';
+import { PLAN_STATUSES } from '../domain/plan-status';
+import { ROLES } from '../domain/roles';
+import { planSchema } from './plan';
+
+const email = z
+  .string({ required_error: 'is required', invalid_type_error: 'must be a string' })
+  .trim()
+  .min(3, 'must be an e-mail address')
+  .max(254, 'must be at most 254 characters')
+  .email('must be an e-mail address');
+
+export const loginBody = z.object({
+  email,
+  password: z.string({ required_error: 'is required', invalid_type_error: 'must be a string' }).min(1, 'is required').max(1024, 'is too long'),
+});
+
+export const PASSWORD_MIN = 10;
+export const newPassword = z
+  .string({ required_error: 'is required', invalid_type_error: 'must be a string' })
+  .min(PASSWORD_MIN, `must be at least ${PASSWORD_MIN} characters`)
+  .max(256, 'must be at most 256 characters');
+
+export const setPasswordBody = z.object({
+  token: z.string({ required_error: 'is required' }).min(10, 'is not a valid link').max(200, 'is not a valid link'),
+  password: newPassword,
+});
+
+const title = z
+  .string({ required_error: 'is required', invalid_type_error: 'must be a string' })
+  .trim()
+  .min(1, 'must not be empty')
+  .max(200, 'must be at most 200 characters');
+
+export const createPlanBody = z.object({
+  title,
+  structure: z.string({ invalid_type_error: 'must be a string' }).trim().max(200, 'must be at most 200 characters').optional(),
+  document: planSchema,
+});
+
+export const savePlanBody = z.object({
+  expectedRevision: z.number({ required_error: 'is required', invalid_type_error: 'must be a number' }).int('must be a whole number').min(1, 'must be at least 1'),
+  title: title.optional(),
+  structure: z.string({ invalid_type_error: 'must be a string' }).trim().max(200, 'must be at most 200 characters').optional(),
+  document: planSchema,
+});
+
+export const PLAN_SORTS = ['updated', 'title', 'status', 'blockers', 'structure', 'created'] as const;
+export type PlanSort = (typeof PLAN_SORTS)[number];
+
+export const listPlansQuery = z.object({
+  status: z.enum(PLAN_STATUSES, { errorMap: () => ({ message: `must be one of ${PLAN_STATUSES.join(', ')}` }) }).optional(),
+  q: z.string().trim().max(200, 'must be at most 200 characters').optional(),
+  sort: z.enum(PLAN_SORTS, { errorMap: () => ({ message: `must be one of ${PLAN_SORTS.join(', ')}` }) }).default('updated'),
+  dir: z.enum(['asc', 'desc'], { errorMap: () => ({ message: 'must be asc or desc' }) }).optional(),
+  page: z.coerce.number({ invalid_type_error: 'must be a number' }).int('must be a whole number').min(1, 'must be at least 1').max(100000, 'is too large').default(1),
+  pageSize: z.coerce.number({ invalid_type_error: 'must be a number' }).int('must be a whole number').min(1, 'must be at least 1').max(100, 'must be at most 100').default(20),
+});
+export type ListPlansQuery = z.infer<typeof listPlansQuery>;
+
+export const createUserBody = z.object({
+  email,
+  name: z.string({ required_error: 'is required', invalid_type_error: 'must be a string' }).trim().min(1, 'must not be empty').max(200, 'must be at most 200 characters'),
+  role: z.enum(ROLES, { errorMap: () => ({ message: `must be one of ${ROLES.join(', ')}` }) }),
+});
+
+export const updateUserBody = z
+  .object({
+    role: z.enum(ROLES, { errorMap: () => ({ message: `must be one of ${ROLES.join(', ')}` }) }).optional(),
+    disabled: z.boolean({ invalid_type_error: 'must be true or false' }).optional(),
+  })
+  .refine((v) => v.role !== undefined || v.disabled !== undefined, { message: 'give role or disabled', path: ['role'] });
+
+export const idParam = z.coerce.number({ invalid_type_error: 'must be a number' }).int('must be a whole number').min(1, 'must be at least 1').max(2 ** 31, 'is too large');

@@ -1,0 +1,132 @@
+/**
+ * Sessions and passwords. The only file that knows Lucia: Lucia 3 is deprecated upstream, so
+ * everything else calls the functions here and a later swap touches one file.
+ */
+import { hash, verify } from '@node-rs/argon2';
+import type { APIContext, AstroCookies } from 'astro';
+import { Lucia, TimeSpan, type Adapter, type DatabaseSession, type DatabaseUser } from 'lucia';
+import { Op } from 'sequelize';
+import { getDb, type Db } from '../../../db/connection';
+import { findPerson } from '../../../db/repositories/people';
+import type { Person } from '../domain/people';
+
+/** Lucia's storage over our Sequelize models (sessions table; users resolved through people.ts). */
+class SequelizeSessionAdapter implements Adapter {
+  constructor(private readonly db: () => Db) {}
+
+  async getSessionAndUser(sessionId: string): Promise<[DatabaseSession | null, DatabaseUser | null]> {
+    const row = await this.db().models.Session.findByPk(sessionId);
+    if (!row) return [null, null];
+    const user = await this.db().models.User.findByPk(row.userId, { attributes: ['id', 'organizationId', 'disabled'] });
+    if (!user) return [null, null];
+    return [
+      { id: row.id, userId: row.userId, expiresAt: row.expiresAt, attributes: {} },
+      { id: user.id, attributes: { organizationId: user.organizationId, disabled: user.disabled } },
+    ];
+  }
+
+  async getUserSessions(userId: string): Promise<DatabaseSession[]> {
+    const rows = await this.db().models.Session.findAll({ where: { userId } });
+    return rows.map((r) => ({ id: r.id, userId: r.userId, expiresAt: r.expiresAt, attributes: {} }));
+  }
+
+  async setSession(session: DatabaseSession): Promise<void> {
+    await this.db().models.Session.create({ id: session.id, userId: session.userId, expiresAt: session.expiresAt });
+  }
+
+  async updateSessionExpiration(sessionId: string, expiresAt: Date): Promise<void> {
+    await this.db().models.Session.update({ expiresAt }, { where: { id: sessionId } });
+  }
+
+  async deleteSession(sessionId: string): Promise<void> {
+    await this.db().models.Session.destroy({ where: { id: sessionId } });
+  }
+
+  async deleteUserSessions(userId: string): Promise<void> {
+    await this.db().models.Session.destroy({ where: { userId } });
+  }
+
+  async deleteExpiredSessions(): Promise<void> {
+    await this.db().models.Session.destroy({ where: { expiresAt: { [Op.lte]: new Date() } } });
+  }
+}
+
+const lucia = new Lucia(new SequelizeSessionAdapter(getDb), {
+  sessionExpiresIn: new TimeSpan(12, 'h'),
+  sessionCookie: { name: 'bondmap_session', attributes: { sameSite: 'lax' } },
+  getUserAttributes: (attributes) => attributes,
+});
+
+declare module 'lucia' {
+  interface Register {
+    Lucia: typeof lucia;
+    DatabaseUserAttributes: { organizationId: number; disabled: boolean };
+  }
+}
+
+export const SESSION_COOKIE = lucia.sessionCookieName;
+
+function writeCookie(cookies: AstroCookies, url: URL, cookie: ReturnType<typeof lucia.createBlankSessionCookie>): void {
+  // Secure whenever the app is reached over HTTPS; plain http on 127.0.0.1 for the local demo.
+  const secure = url.protocol === 'https:' || (process.env.BONDMAP_PUBLIC_URL ?? '').startsWith('https:');
+  cookies.set(cookie.name, cookie.value, { ...cookie.attributes, secure, httpOnly: true, sameSite: 'lax', path: '/' });
+}
+
+/** Starts a session for the person and sets the cookie on the response. */
+export async function signIn(ctx: Pick<APIContext, 'cookies' | 'url'>, userId: string): Promise<void> {
+  const session = await lucia.createSession(userId, {});
+  writeCookie(ctx.cookies, ctx.url, lucia.createSessionCookie(session.id));
+}
+
+/** Ends the current session (if any) and clears the cookie. */
+export async function signOut(ctx: Pick<APIContext, 'cookies' | 'url' | 'locals'>): Promise<void> {
+  if (ctx.locals.sessionId) await lucia.invalidateSession(ctx.locals.sessionId);
+  writeCookie(ctx.cookies, ctx.url, lucia.createBlankSessionCookie());
+}
+
+/** Ends every session of a person (used when they are disabled or their password changes). */
+export async function endAllSessions(userId: string): Promise<void> {
+  await lucia.invalidateUserSessions(userId);
+}
+
+/**
+ * Reads the session cookie and returns the signed-in person, refreshing the cookie when Lucia
+ * extends the session. A disabled person is treated as signed out.
+ */
+export async function readSession(ctx: Pick<APIContext, 'cookies' | 'url'>): Promise<{ person: Person; sessionId: string } | null> {
+  const id = ctx.cookies.get(SESSION_COOKIE)?.value;
+  if (!id) return null;
+  const { session, user } = await lucia.validateSession(id);
+  if (!session || !user) {
+    writeCookie(ctx.cookies, ctx.url, lucia.createBlankSessionCookie());
+    return null;
+  }
+  if (user.disabled) {
+    await lucia.invalidateUserSessions(user.id);
+    writeCookie(ctx.cookies, ctx.url, lucia.createBlankSessionCookie());
+    return null;
+  }
+  if (session.fresh) writeCookie(ctx.cookies, ctx.url, lucia.createSessionCookie(session.id));
+  const person = await findPerson(getDb(), user.organizationId, user.id);
+  return person ? { person, sessionId: session.id } : null;
+}
+
+// OWASP's minimum for Argon2id: 19 MiB memory, 2 iterations, 1 lane.
+const ARGON = { memoryCost: 19456, timeCost: 2, parallelism: 1 } as const;
+
+export function hashPassword(password: string): Promise<string> {
+  return hash(password, ARGON);
+}
+
+// A fixed hash to verify against when the e-mail is unknown, so both failures take as long.
+let decoyHash: Promise<string> | null = null;
+
+/** Verifies a password against a stored hash; with no hash it still does the work, then fails. */
+export async function verifyPassword(passwordHash: string | null, password: string): Promise<boolean> {
+  if (!passwordHash) {
+    decoyHash ??= hashPassword('bondmap-decoy-password');
+    await verify(await decoyHash, password).catch(() => false);
+    return false;
+  }
+  return verify(passwordHash, password).catch(() => false);
+}

@@ -1,0 +1,31 @@
+import { getDb } from '../../../../db/connection';
+import { createPlan, describeStructure, listPlans } from '../../../../db/repositories/plans';
+import { createPlanBody, listPlansQuery } from '../../../lib/schemas/api';
+import { checkDocument } from '../../../lib/server/checking';
+import { requireRole, requireUser } from '../../../lib/server/guards';
+import { endpoint, json, readJson, readQuery } from '../../../lib/server/http';
+import { planJson, summaryJson } from '../../../lib/server/plan-json';
+
+/** The organisation's plans, one page at a time: ?status=&q=&sort=&dir=&page=&pageSize= */
+export const GET = endpoint(async (ctx) => {
+  const person = requireUser(ctx);
+  const query = readQuery(ctx.url, listPlansQuery);
+  const page = await listPlans(getDb(), person.organizationId, query);
+  return json({ ...page, items: page.items.map(summaryJson) });
+});
+
+/** Creates a draft plan from `{title, structure?, document}`; the first revision carries its check. */
+export const POST = endpoint(async (ctx) => {
+  const person = requireRole(ctx, 'crew_lead', 'admin');
+  const body = await readJson(ctx, createPlanBody);
+  const document = { ...body.document, title: body.title };
+  const plan = await createPlan(getDb(), {
+    organizationId: person.organizationId,
+    authorId: person.id,
+    title: body.title,
+    structure: body.structure ?? describeStructure(document),
+    document,
+    report: checkDocument(document),
+  });
+  return json({ plan: planJson(plan) }, 201, { location: `/api/plans/${plan.id}` });
+});

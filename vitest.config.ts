@@ -1,0 +1,48 @@
+import { defineConfig } from 'vitest/config';
+
+// Four projects: pure units, React components in jsdom, the HTTP API against the built server
+// and the real MariaDB, and whole flows in Chromium. scripts/test.mjs starts what they need.
+export default defineConfig({
+  test: {
+    // Server-backed tests share one app server and one database; files run one after another.
+    fileParallelism: false,
+    projects: [
+      {
+        test: {
+          name: 'unit',
+          include: ['tests/unit/**/*.test.ts'],
+          environment: 'node',
+        },
+      },
+      {
+        esbuild: { jsx: 'automatic' },
+        test: {
+          name: 'components',
+          include: ['tests/components/**/*.test.{ts,tsx}'],
+          environment: 'jsdom',
+          setupFiles: ['tests/helpers/setup-dom.ts'],
+        },
+      },
+      {
+        test: {
+          name: 'api',
+          include: ['tests/api/**/*.test.ts'],
+          environment: 'node',
+          globalSetup: ['tests/helpers/global-server.ts'],
+          testTimeout: 30000,
+          hookTimeout: 120000,
+        },
+      },
+      {
+        test: {
+          name: 'e2e',
+          include: ['tests/e2e/**/*.test.ts'],
+          environment: 'node',
+          globalSetup: ['tests/helpers/global-server.ts'],
+          testTimeout: 90000,
+          hookTimeout: 120000,
+        },
+      },
+    ],
+  },
+});
