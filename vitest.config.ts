@@ -1,7 +1,8 @@
 import { defineConfig } from 'vitest/config';
 
 // Four projects: pure units, React components in jsdom, the HTTP API against the built server
-// and the real MariaDB, and whole flows in Chromium. scripts/test.mjs starts what they need.
+// and the real MariaDB, and whole flows in Chromium. scripts/test.mjs starts the database and the
+// server and passes their addresses in the environment (BONDMAP_TEST_URL, BONDMAP_DB_*).
 export default defineConfig({
   test: {
     // Server-backed tests share one app server and one database; files run one after another.
@@ -28,7 +29,6 @@ export default defineConfig({
           name: 'api',
           include: ['tests/api/**/*.test.ts'],
           environment: 'node',
-          globalSetup: ['tests/helpers/global-server.ts'],
           testTimeout: 30000,
           hookTimeout: 120000,
         },
@@ -38,7 +38,6 @@ export default defineConfig({
           name: 'e2e',
           include: ['tests/e2e/**/*.test.ts'],
           environment: 'node',
-          globalSetup: ['tests/helpers/global-server.ts'],
           testTimeout: 90000,
           hookTimeout: 120000,
         },

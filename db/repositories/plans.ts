@@ -227,8 +227,9 @@ export async function saveDraft(db: Db, organizationId: number, planId: number, 
 /** Stores a check report on the current revision (the report is derived data, not the document). */
 export async function storeReport(db: Db, organizationId: number, planId: number, revision: number, report: StoredReport): Promise<boolean> {
   const plan = await db.models.Plan.findOne({ where: { id: planId, organizationId } });
-  // Only the current revision takes a report: an older one is fixed once a later one exists.
-  if (!plan || plan.currentRevision !== revision) return false;
+  // Only the current revision of a plan still in the crew lead's hands takes a new report: an
+  // older revision is fixed once a later one exists, and a submitted or approved one is under review.
+  if (!plan || plan.currentRevision !== revision || !isEditable(plan.status)) return false;
   await db.models.PlanRevision.update({ report: JSON.stringify(report) }, { where: { planId, number: revision } });
   await plan.update({ blockers: report.summary?.blockers ?? null, warnings: report.summary?.warnings ?? null });
   return true;

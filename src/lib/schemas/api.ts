@@ -2,7 +2,7 @@
 import { z } from 'zod';
 import { PLAN_STATUSES } from '../domain/plan-status';
 import { ROLES } from '../domain/roles';
-import { planSchema } from './plan';
+import { planDocumentSchema } from './plan';
 
 const email = z
   .string({ required_error: 'is required', invalid_type_error: 'must be a string' })
@@ -36,14 +36,14 @@ const title = z
 export const createPlanBody = z.object({
   title,
   structure: z.string({ invalid_type_error: 'must be a string' }).trim().max(200, 'must be at most 200 characters').optional(),
-  document: planSchema,
+  document: planDocumentSchema,
 });
 
 export const savePlanBody = z.object({
   expectedRevision: z.number({ required_error: 'is required', invalid_type_error: 'must be a number' }).int('must be a whole number').min(1, 'must be at least 1'),
   title: title.optional(),
   structure: z.string({ invalid_type_error: 'must be a string' }).trim().max(200, 'must be at most 200 characters').optional(),
-  document: planSchema,
+  document: planDocumentSchema,
 });
 
 export const PLAN_SORTS = ['updated', 'title', 'status', 'blockers', 'structure', 'created'] as const;

@@ -167,6 +167,12 @@ export const linkSchema = z.discriminatedUnion(
 export type PlanLink = z.infer<typeof linkSchema>;
 export type LinkOf<K extends LinkKind> = Extract<PlanLink, { kind: K }>;
 
+/** An issue with its path as zod keeps it (keys and indexes). */
+export interface RawIssue {
+  path: (string | number)[];
+  message: string;
+}
+
 type LooseNode = { id?: unknown; kind?: unknown; standsOn?: unknown; count?: unknown; spacingM?: unknown };
 type LooseLink = { id?: unknown; kind?: unknown; from?: unknown; to?: unknown };
 const asList = (value: unknown): Record<string, unknown>[] =>
@@ -177,8 +183,8 @@ const asList = (value: unknown): Record<string, unknown>[] =>
  * reach links. Works on the raw input, so a document with a wrong type in one field still gets
  * its broken references reported in the same answer.
  */
-export function findReferenceIssues(input: unknown): PlanIssue[] {
-  const issues: PlanIssue[] = [];
+export function findReferenceIssues(input: unknown): RawIssue[] {
+  const issues: RawIssue[] = [];
   const doc = input && typeof input === 'object' ? (input as Record<string, unknown>) : {};
   const nodes = asList(doc.nodes) as LooseNode[];
   const links = asList(doc.links) as LooseLink[];
@@ -186,38 +192,38 @@ export function findReferenceIssues(input: unknown): PlanIssue[] {
   const nodeById = new Map<string, LooseNode>();
   nodes.forEach((node, i) => {
     if (typeof node.id !== 'string') return;
-    if (nodeById.has(node.id)) issues.push({ path: `nodes[${i}].id`, message: `duplicate id "${node.id}"` });
+    if (nodeById.has(node.id)) issues.push({ path: ['nodes', i, 'id'], message: `duplicate id "${node.id}"` });
     else nodeById.set(node.id, node);
   });
   nodes.forEach((node, i) => {
     if (node.kind === 'worker' && typeof node.standsOn === 'string') {
       const target = nodeById.get(node.standsOn);
-      if (!target) issues.push({ path: `nodes[${i}].standsOn`, message: `no node with id "${node.standsOn}"` });
-      else if (target.kind === 'worker') issues.push({ path: `nodes[${i}].standsOn`, message: 'a worker cannot stand on a worker' });
+      if (!target) issues.push({ path: ['nodes', i, 'standsOn'], message: `no node with id "${node.standsOn}"` });
+      else if (target.kind === 'worker') issues.push({ path: ['nodes', i, 'standsOn'], message: 'a worker cannot stand on a worker' });
     }
     if (node.kind === 'ground-rod' && typeof node.count === 'number' && node.count > 1 && node.spacingM === undefined) {
-      issues.push({ path: `nodes[${i}].spacingM`, message: 'is required when count is more than 1' });
+      issues.push({ path: ['nodes', i, 'spacingM'], message: 'is required when count is more than 1' });
     }
   });
   const linkIds = new Set<string>();
   links.forEach((link, i) => {
     if (typeof link.id === 'string') {
-      if (nodeById.has(link.id) || linkIds.has(link.id)) issues.push({ path: `links[${i}].id`, message: `duplicate id "${link.id}"` });
+      if (nodeById.has(link.id) || linkIds.has(link.id)) issues.push({ path: ['links', i, 'id'], message: `duplicate id "${link.id}"` });
       linkIds.add(link.id);
     }
     // With no readable node list, every reference would be "missing": report the list once instead.
     for (const end of nodesReadable ? (['from', 'to'] as const) : []) {
       const ref = link[end];
-      if (typeof ref === 'string' && !nodeById.has(ref)) issues.push({ path: `links[${i}].${end}`, message: `no node with id "${ref}"` });
+      if (typeof ref === 'string' && !nodeById.has(ref)) issues.push({ path: ['links', i, end], message: `no node with id "${ref}"` });
     }
-    if (typeof link.from === 'string' && link.from === link.to) issues.push({ path: `links[${i}].to`, message: 'must differ from "from"' });
+    if (typeof link.from === 'string' && link.from === link.to) issues.push({ path: ['links', i, 'to'], message: 'must differ from "from"' });
     const fromKind = typeof link.from === 'string' ? nodeById.get(link.from)?.kind : undefined;
     const toKind = typeof link.to === 'string' ? nodeById.get(link.to)?.kind : undefined;
     if (link.kind === 'reach' && fromKind !== undefined && fromKind !== 'worker') {
-      issues.push({ path: `links[${i}].from`, message: 'a reach link starts at a worker' });
+      issues.push({ path: ['links', i, 'from'], message: 'a reach link starts at a worker' });
     }
     if ((link.kind === 'jumper' || link.kind === 'bond') && (fromKind === 'worker' || toKind === 'worker')) {
-      issues.push({ path: `links[${i}].kind`, message: 'a worker is joined to surfaces by reach links only; a worker is never a bonding path' });
+      issues.push({ path: ['links', i, 'kind'], message: 'a worker is joined to surfaces by reach links only; a worker is never a bonding path' });
     }
   });
   return issues;
@@ -269,6 +275,22 @@ export type ParseResult = { ok: true; plan: PlanDocument } | { ok: false; issues
  */
 export function parsePlan(input: unknown): ParseResult {
   const result = planSchema.safeParse(input);
-  const issues = [...(result.success ? [] : toPlanIssues(result.error)), ...findReferenceIssues(input)];
+  const references = findReferenceIssues(input).map((i) => ({ path: formatIssuePath(i.path), message: i.message }));
+  const issues = [...(result.success ? [] : toPlanIssues(result.error)), ...references];
   return result.success && issues.length === 0 ? { ok: true, plan: result.data } : { ok: false, issues };
 }
+
+/**
+ * The whole plan document as one zod schema, field types and cross-references together, for
+ * nesting in request bodies (`document.nodes[3].standsOn: no node with id "B9"`).
+ */
+export const planDocumentSchema = z.unknown().transform((input, ctx): PlanDocument => {
+  if (input === undefined) {
+    ctx.addIssue({ code: 'custom', message: 'is required' });
+    return z.NEVER;
+  }
+  const result = planSchema.safeParse(input);
+  if (!result.success) for (const issue of result.error.issues) ctx.addIssue({ ...issue, code: 'custom', message: issue.message });
+  for (const issue of findReferenceIssues(input)) ctx.addIssue({ code: 'custom', path: issue.path, message: issue.message });
+  return result.success ? result.data : z.NEVER;
+});

@@ -1,11 +1,11 @@
-import { getDb } from '../../../../db/connection';
-import { getPlan, saveDraft } from '../../../../db/repositories/plans';
-import { idParam, savePlanBody } from '../../../lib/schemas/api';
-import { checkDocument } from '../../../lib/server/checking';
-import { AppError } from '../../../lib/server/errors';
-import { requireRole, requireUser } from '../../../lib/server/guards';
-import { endpoint, json, parseWith, readJson } from '../../../lib/server/http';
-import { planJson } from '../../../lib/server/plan-json';
+import { getDb } from '../../../../../db/connection';
+import { getPlan, saveDraft } from '../../../../../db/repositories/plans';
+import { idParam, savePlanBody } from '../../../../lib/schemas/api';
+import { checkDocument } from '../../../../lib/server/checking';
+import { AppError } from '../../../../lib/server/errors';
+import { requireRole, requireUser } from '../../../../lib/server/guards';
+import { endpoint, json, parseWith, readJson } from '../../../../lib/server/http';
+import { planJson } from '../../../../lib/server/plan-json';
 
 export const GET = endpoint(async (ctx) => {
   const person = requireUser(ctx);
