@@ -27,7 +27,7 @@ export interface GenerateOptions {
 
 const CABLES = ['2', '1/0', '2/0', '4/0'] as const;
 
-/** Builds a plan of about `elements` nodes and links (each structure adds about twenty). */
+/** Builds a plan of at least `elements` nodes and links, a structure (about twenty elements) at a time. */
 export function generatePlan({ elements, seed, frequencyHz = 60 }: GenerateOptions): PlanDocument {
   const rand = seededRandom(seed);
   const pick = <T>(list: readonly T[]): T => list[Math.floor(rand() * list.length)];
@@ -37,8 +37,9 @@ export function generatePlan({ elements, seed, frequencyHz = 60 }: GenerateOptio
   const link = (l: Record<string, unknown>) => links.push({ id: `l${linkCount++}`, ...l } as PlanLink);
   const jumper = (from: string, to: string) =>
     link({ kind: 'jumper', from, to, cable: pick(CABLES), lengthM: 1 + rand() * 8, ...(rand() < 0.1 ? { ohms: rand() * 0.003 } : {}) });
-  const structures = Math.max(1, Math.round(elements / 21));
-  for (let s = 0; s < structures; s++) {
+  let structures = 0;
+  for (let s = 0; s === 0 || nodes.length + links.length < elements; s++) {
+    structures = s + 1;
     const p = `s${s}`;
     const steel = rand() < 0.3;
     nodes.push(

@@ -1,3 +1,4 @@
+// eslint-disable-next-line @typescript-eslint/triple-slash-reference -- Astro's own generated types are referenced this way
 /// <reference path="../.astro/types.d.ts" />
 
 declare namespace App {

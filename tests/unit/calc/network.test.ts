@@ -185,3 +185,21 @@ describe('analyseNetwork', () => {
     expect(contact.bodyAmps).toBeCloseTo(100 / 500.01, 9);
   });
 });
+
+describe('analyseNetwork on generated plans with links knocked out', () => {
+  it('never crashes and never reports NaN, whatever is left connected', async () => {
+    const { generatePlan, seededRandom } = await import('../../../bench/generate-plan');
+    for (let seed = 1; seed <= 30; seed++) {
+      const plan = generatePlan({ elements: 80, seed });
+      const rand = seededRandom(seed);
+      const broken = { ...plan, links: plan.links.filter(() => rand() > 0.3) };
+      const figures = analyseNetwork(broken);
+      noNaN(figures);
+      for (const c of figures.contacts) {
+        expect(c.bodyAmps).toBeGreaterThanOrEqual(0);
+        // The body can never carry more than the open-circuit voltage drives through R_body alone.
+        expect(c.bodyAmps).toBeLessThanOrEqual(c.touchVolts / 1000 + 1e-12);
+      }
+    }
+  });
+});

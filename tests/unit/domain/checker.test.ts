@@ -96,6 +96,7 @@ describe('checkPlan guards against impossible figures', () => {
       jumpers: n.jumpers.map((j) => (j.link === 'jB' ? { ...j, ohms: NaN, dutyKa: Infinity } : j)),
       contacts: n.contacts.map((c) => (c.surface === 'C' ? { ...c, touchVolts: -Infinity, bodyAmps: NaN } : c)),
     }));
+    expect(checkPlan(bucketPlan()).findings.filter((f) => f.rule === 'figure-invalid')).toEqual([]);
     const report = checkPlan(bucketPlan(), broken);
     const json = JSON.parse(JSON.stringify(report));
     expect(json).toEqual(report);

@@ -51,3 +51,20 @@ describe.each(files)('%s', (file) => {
     expect(report.ok).toBe(!want.some((e) => (e.severity ?? 'blocker') === 'blocker'));
   });
 });
+
+describe('seventy-kg-criteria.json under 50 kg criteria', () => {
+  it('fails the 50 kg limit it passes at 70 kg (IEEE Std 80: 0.164 A vs 0.222 A at 0.5 s)', () => {
+    const input = JSON.parse(readFileSync(join(dir, 'seventy-kg-criteria.json'), 'utf8'));
+    const at = (bodyKg: number) => {
+      const parsed = parsePlan({ ...input, criteria: { ...input.criteria, bodyKg } });
+      if (!parsed.ok) throw new Error('invalid');
+      return checkPlan(parsed.plan);
+    };
+    const heavy = at(70);
+    const light = at(50);
+    expect(heavy.contacts[0].bodyAmps).toBeCloseTo(0.19, 2);
+    expect(heavy.contacts[0].limitAmps).toBeCloseTo(0.222, 3);
+    expect(light.contacts[0].limitAmps).toBeCloseTo(0.164, 3);
+    expect(light.findings.filter((f) => f.rule === 'body-current-exceeds').map((f) => f.elements)).toEqual([['W1', 'AW']]);
+  });
+});

@@ -63,7 +63,8 @@ export interface RodResistance {
  * errs high, because adding a rod at equal potential can only lower the group's resistance:
  * - two rods: Dwight's formulas; below s = L, never below the wide formula's value at s = L;
  * - three or more at s ≥ L: IEEE Std 142 multiplier of the largest tabulated count not above N,
- *   spacing taken as L (wider spacing only helps); beyond 24 rods, MIL-HDBK-419A's 5 × 5 square;
+ *   spacing taken as L (wider spacing only helps), never below MIL-HDBK-419A's 5 × 5 square
+ *   (2.8·R1/25), which also serves for 25 rods and more;
  * - three or more at s < L: no better than two rods at that spacing.
  */
 export function rodGroupOhms(group: RodGroup): RodResistance {
@@ -82,15 +83,19 @@ export function rodGroupOhms(group: RodGroup): RodResistance {
   if (spacingM < lengthM) {
     return { ohms: twoRods(), method: `${group.count} rods closer than one rod length: credited as two rods, Dwight (IEEE Std 142)` };
   }
-  if (group.count >= 25) {
+  // The multiplier table is for lines and hollow squares; a filled square is worse. The layout is
+  // not in the plan, so the credit never goes below MIL-HDBK-419A's 5 × 5 filled square.
+  const filledSquare = (MIL419A_SQUARE_25_FACTOR * single) / 25;
+  const [count, factor] = [...IEEE142_MULTIPLIERS].reverse().find(([n]) => n <= group.count) as readonly [number, number];
+  const tabulated = (factor * single) / count;
+  if (group.count >= 25 || filledSquare >= tabulated) {
     return {
-      ohms: (MIL419A_SQUARE_25_FACTOR * single) / 25,
-      method: `${group.count} rods: credited as a 5 × 5 square at one rod length, MIL-HDBK-419A (2.8·R1/N)`,
+      ohms: filledSquare,
+      method: `${group.count} rods: credited no better than a 5 × 5 square at one rod length, MIL-HDBK-419A (2.8·R1/25)`,
     };
   }
-  const [count, factor] = [...IEEE142_MULTIPLIERS].reverse().find(([n]) => n <= group.count) as readonly [number, number];
   return {
-    ohms: (factor * single) / count,
+    ohms: tabulated,
     method: `${group.count} rods: IEEE Std 142 multiplier F = ${factor} for ${count} rods at one rod length (R = F·R1/N)`,
   };
 }
@@ -104,7 +109,7 @@ export function rodSurfaceVolts(soilOhmM: number, currentA: number, lengthM: num
   return ((soilOhmM * currentA) / (2 * Math.PI * lengthM)) * Math.log((lengthM + Math.hypot(lengthM, distanceM)) / distanceM);
 }
 
-/** Hemispherical-source surface potential, V, at distanceM: V = ρI/(2πr); never below the line source's. */
+/** Hemispherical-source surface potential, V, at distanceM: V = ρI/(2πr); its gradient is never below the line source's. */
 export function hemisphereVolts(soilOhmM: number, currentA: number, distanceM: number): number {
   return (soilOhmM * currentA) / (2 * Math.PI * distanceM);
 }
