@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { Client, signedIn } from '../helpers/api';
+import { BASE_URL, Client, signedIn } from '../helpers/api';
 import { closeTestDb, makeOrganization, makePerson, testDb, PASSWORD } from '../helpers/factories';
 import type { ChildProcess } from 'node:child_process';
 import { startServer } from '../../scripts/lib.mjs';
@@ -89,7 +89,8 @@ describe('throttling', () => {
     const person = await makePerson(organizationId, 'crew_lead');
     for (let i = 0; i < 5; i += 1) await new Client().post('/api/auth/login', { email: person.email, password: 'wrong' });
     const env = Object.fromEntries(Object.entries(process.env).filter(([k]) => k.startsWith('BONDMAP_DB_'))) as Record<string, string>;
-    const second = (await startServer({ port: 4392, env, stdio: 'ignore' })) as { child: ChildProcess; url: string };
+    const port = Number(new URL(BASE_URL).port) + 1;
+    const second = (await startServer({ port, env, stdio: 'ignore' })) as { child: ChildProcess; url: string };
     try {
       const response = await new Client(second.url).post('/api/auth/login', { email: person.email, password: PASSWORD });
       expect(response.status).toBe(429);
