@@ -89,3 +89,65 @@ export async function startServer({ port, env, stdio = 'inherit' }) {
   child.kill();
   throw new Error('the app server did not become healthy within 60 s');
 }
+
+function pidAlive(pid) {
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+function portOpen(port) {
+  return new Promise((done) => {
+    import('node:net').then(({ createConnection }) => {
+      const socket = createConnection({ host: '127.0.0.1', port });
+      socket.once('connect', () => {
+        socket.destroy();
+        done(true);
+      });
+      socket.once('error', () => done(false));
+    });
+  });
+}
+
+const catcherPidFile = (profile) => join(ROOT, '.data', profile, 'mail-catcher.pid');
+
+/** Starts (or reuses) the local SMTP catcher for a profile; resolves once it accepts connections. */
+export async function startMailCatcher({ profile, port, env }) {
+  const { openSync, readFileSync: read, writeFileSync, mkdirSync } = await import('node:fs');
+  const pidFile = catcherPidFile(profile);
+  if (existsSync(pidFile) && pidAlive(Number(read(pidFile, 'utf8'))) && (await portOpen(port))) return;
+  mkdirSync(join(ROOT, '.data', profile), { recursive: true });
+  const out = openSync(join(ROOT, '.data', profile, 'mail-catcher.log'), 'a');
+  const child = spawn(process.execPath, ['--import', 'tsx', join(ROOT, 'scripts', 'mail-catcher.ts')], {
+    cwd: ROOT,
+    env: { ...process.env, ...env, BONDMAP_SMTP_PORT: String(port) },
+    detached: true,
+    stdio: ['ignore', out, out],
+  });
+  child.unref();
+  writeFileSync(pidFile, String(child.pid));
+  const deadline = Date.now() + 30_000;
+  while (Date.now() < deadline) {
+    if (await portOpen(port)) return;
+    await new Promise((r) => setTimeout(r, 150));
+  }
+  throw new Error(`the local mail catcher did not start on port ${port}; see .data/${profile}/mail-catcher.log`);
+}
+
+/** Stops the catcher this project started for the profile, by its pid file. */
+export async function stopMailCatcher(profile) {
+  const { readFileSync: read, rmSync } = await import('node:fs');
+  const pidFile = catcherPidFile(profile);
+  if (!existsSync(pidFile)) return false;
+  const pid = Number(read(pidFile, 'utf8'));
+  rmSync(pidFile, { force: true });
+  if (!pidAlive(pid)) return false;
+  process.kill(pid, 'SIGTERM');
+  const deadline = Date.now() + 10_000;
+  while (pidAlive(pid) && Date.now() < deadline) await new Promise((r) => setTimeout(r, 100));
+  if (pidAlive(pid)) process.kill(pid, 'SIGKILL');
+  return true;
+}

@@ -3,7 +3,7 @@
 // invented demo, builds when sources changed, serves, and prints the address and sign-ins.
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { ensureBuild, ensureDependencies, ROOT, run, say, startServer } from './lib.mjs';
+import { ensureBuild, ensureDependencies, ROOT, run, say, startMailCatcher, startServer } from './lib.mjs';
 
 const port = Number(process.env.PORT ?? 4321);
 
@@ -12,8 +12,14 @@ try {
   const envFile = join(ROOT, '.data', 'dev-app-env.json');
   run('npx', ['tsx', 'db/cli.ts', 'up', '--profile', 'dev', '--env-out', envFile]);
   const dbEnv = JSON.parse(readFileSync(envFile, 'utf8'));
+  // Without a real SMTP server configured, mail goes to the project's own local catcher.
+  const smtpPort = Number(process.env.BONDMAP_SMTP_PORT ?? 2525);
+  const mailEnv = process.env.BONDMAP_SMTP_URL
+    ? {}
+    : { BONDMAP_SMTP_URL: `smtp://127.0.0.1:${smtpPort}`, BONDMAP_MAIL_CATCHER: '1' };
+  if (!process.env.BONDMAP_SMTP_URL) await startMailCatcher({ profile: 'dev', port: smtpPort, env: dbEnv });
   ensureBuild();
-  const { child, url } = await startServer({ port, env: { ...dbEnv, BONDMAP_PUBLIC_URL: process.env.BONDMAP_PUBLIC_URL ?? `http://127.0.0.1:${port}` } });
+  const { child, url } = await startServer({ port, env: { ...dbEnv, ...mailEnv, BONDMAP_PUBLIC_URL: process.env.BONDMAP_PUBLIC_URL ?? `http://127.0.0.1:${port}` } });
   const demo = process.env.BONDMAP_DEMO === '0' ? '' : `
   Demo sign-ins (invented people; for the demo only — never use these on a real system),
   all with the password  bondmap-demo :
@@ -26,6 +32,7 @@ try {
   console.log(`
   Bondmap is running at ${url}
 ${demo}
+  Mail: ${mailEnv.BONDMAP_MAIL_CATCHER ? `caught by the local mail server; admins read it at ${url}/admin/mail` : 'sent through BONDMAP_SMTP_URL'}
   Ctrl+C stops the app; MariaDB keeps running for next time (npm run db:stop stops it).
 `);
   const stop = () => child.kill('SIGTERM');

@@ -5,9 +5,10 @@
 import { spawn } from 'node:child_process';
 import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
-import { ensureBuild, ensureDebianPackages, ensureDependencies, ROOT, run, say, startServer } from './lib.mjs';
+import { ensureBuild, ensureDebianPackages, ensureDependencies, ROOT, run, say, startMailCatcher, startServer, stopMailCatcher } from './lib.mjs';
 
 const port = Number(process.env.BONDMAP_TEST_PORT ?? 4391);
+const smtpPort = Number(process.env.BONDMAP_TEST_SMTP_PORT ?? 2526);
 const results = join(ROOT, 'artifacts', 'test-results');
 let server = null;
 let startedDb = false;
@@ -54,8 +55,10 @@ async function main() {
   const unitCode = await vitest(['unit', 'components'], {}, join(results, 'unit.json'));
 
   ensureBuild();
-  ({ child: server } = await startServer({ port, env: { ...dbEnv, BONDMAP_PUBLIC_URL: `http://127.0.0.1:${port}` }, stdio: ['ignore', 'ignore', 'inherit'] }));
-  const serverEnv = { ...dbEnv, BONDMAP_TEST_URL: `http://127.0.0.1:${port}`, BONDMAP_TEST_PROFILE: 'test' };
+  await startMailCatcher({ profile: 'test', port: smtpPort, env: dbEnv });
+  const mailEnv = { BONDMAP_SMTP_URL: `smtp://127.0.0.1:${smtpPort}`, BONDMAP_MAIL_CATCHER: '1', BONDMAP_MAIL_POLL_MS: '300' };
+  ({ child: server } = await startServer({ port, env: { ...dbEnv, ...mailEnv, BONDMAP_PUBLIC_URL: `http://127.0.0.1:${port}` }, stdio: ['ignore', 'ignore', 'inherit'] }));
+  const serverEnv = { ...dbEnv, BONDMAP_TEST_URL: `http://127.0.0.1:${port}`, BONDMAP_TEST_PROFILE: 'test', BONDMAP_TEST_SMTP_PORT: String(smtpPort) };
   const apiCode = await vitest(['api', 'e2e'], serverEnv, join(results, 'server.json'));
 
   const { passed, failed, skipped } = tally([join(results, 'unit.json'), join(results, 'server.json')]);
@@ -65,6 +68,7 @@ async function main() {
 
 async function cleanUp() {
   if (server && server.exitCode === null) server.kill('SIGTERM');
+  await stopMailCatcher('test').catch((error) => say(`could not stop the mail catcher: ${error.message}`));
   if (startedDb) {
     try {
       run('npx', ['tsx', 'db/cli.ts', 'stop', '--profile', 'test']);

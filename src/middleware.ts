@@ -7,10 +7,14 @@ import { defineMiddleware } from 'astro:middleware';
 import { readSession } from './lib/server/auth';
 import { AppError, isDbUnavailable } from './lib/server/errors';
 import { json } from './lib/server/http';
+import { startMailWorker } from './lib/server/mail';
 import { unavailablePage } from './lib/server/pages';
 
+// Each app process drains the mail outbox in the background (see src/lib/server/mail.ts).
+startMailWorker();
+
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
-const PUBLIC_PAGES = [/^\/login\/?$/, /^\/set-password\/[^/]+\/?$/, /^\/favicon/, /^\/_astro\//, /^\/fonts\//];
+const PUBLIC_PAGES = [/^\/login\/?$/, /^\/forgot-password\/?$/, /^\/set-password\/[^/]+\/?$/, /^\/favicon/, /^\/_astro\//, /^\/fonts\//];
 const NO_SESSION = [/^\/api\/health\/?$/, /^\/_astro\//, /^\/favicon/];
 
 function isCrossSite(request: Request, url: URL): boolean {

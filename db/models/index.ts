@@ -2,9 +2,12 @@
 import type { Sequelize } from 'sequelize';
 import { initAuditEvent } from './audit-event';
 import { initLoginAttempt } from './login-attempt';
+import { initMail } from './mail';
 import { initOrganization } from './organization';
 import { initPasswordToken } from './password-token';
 import { initPlan } from './plan';
+import { initPlanComment } from './plan-comment';
+import { initPlanDecision } from './plan-decision';
 import { initPlanRevision } from './plan-revision';
 import { initSession } from './session';
 import { initUser } from './user';
@@ -19,6 +22,9 @@ export function defineModels(sequelize: Sequelize) {
     AuditEvent: initAuditEvent(sequelize),
     LoginAttempt: initLoginAttempt(sequelize),
     PasswordToken: initPasswordToken(sequelize),
+    PlanDecision: initPlanDecision(sequelize),
+    PlanComment: initPlanComment(sequelize),
+    ...initMail(sequelize),
   };
   const { User, Session, Plan, PlanRevision, Organization } = models;
   User.belongsTo(Organization, { foreignKey: 'organizationId', as: 'organization' });
@@ -34,4 +40,6 @@ export type { AuditEvent } from './audit-event';
 export type { Organization } from './organization';
 export type { Plan } from './plan';
 export type { PlanRevision } from './plan-revision';
+export type { PlanComment } from './plan-comment';
+export type { PlanDecision } from './plan-decision';
 export type { User } from './user';

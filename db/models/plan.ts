@@ -14,6 +14,10 @@ export class Plan extends Model<InferAttributes<Plan>, InferCreationAttributes<P
   /** Counts from the current revision's check report, kept here so lists can sort and filter. */
   declare blockers: number | null;
   declare warnings: number | null;
+  /** When the current submission was made; null unless submitted. */
+  declare submittedAt: CreationOptional<Date | null>;
+  /** The revision the last approval covers, if any. */
+  declare approvedRevision: CreationOptional<number | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -31,6 +35,8 @@ export function initPlan(sequelize: Sequelize): typeof Plan {
       lockVersion: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
       blockers: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
       warnings: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+      submittedAt: { type: DataTypes.DATE(3), allowNull: true },
+      approvedRevision: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
       createdAt: DataTypes.DATE(3),
       updatedAt: DataTypes.DATE(3),
     },

@@ -11,6 +11,8 @@ const CALLERS: Caller[] = ['anonymous', 'admin', 'reviewer', 'crew_lead', 'appre
 
 const clients = {} as Record<Caller, Client>;
 let planId: number;
+let submittedId: number;
+let approvedId: number;
 let targetUserId: string;
 
 beforeAll(async () => {
@@ -27,6 +29,13 @@ beforeAll(async () => {
   expect(created.status).toBe(201);
   planId = created.body.plan.id;
   targetUserId = (await makePerson(team.organizationId, 'apprentice')).id;
+  const submitted = await clients.crew_lead.post('/api/plans', { title: 'Matrix review pole', document: planDocument() });
+  submittedId = submitted.body.plan.id;
+  expect((await clients.crew_lead.post(`/api/plans/${submittedId}/submit`)).status).toBe(200);
+  const approved = await clients.crew_lead.post('/api/plans', { title: 'Matrix approved pole', document: planDocument() });
+  approvedId = approved.body.plan.id;
+  expect((await clients.crew_lead.post(`/api/plans/${approvedId}/submit`)).status).toBe(200);
+  expect((await clients.reviewer.post(`/api/plans/${approvedId}/review`, { decision: 'approve' })).status).toBe(200);
 });
 afterAll(closeTestDb);
 
@@ -62,6 +71,18 @@ const routes: Route[] = [
     expect: { anonymous: 401, admin: 201, reviewer: 403, crew_lead: 403, apprentice: 403, other: 403 },
   },
   { name: 'PATCH /api/admin/users/:id', call: (c) => c.patch(`/api/admin/users/${targetUserId}`, { role: 'reviewer' }), expect: { anonymous: 401, admin: 200, reviewer: 403, crew_lead: 403, apprentice: 403, other: 403 } },
+  // Callers run in the order of CALLERS, so a state change by one shows in the next one's answer.
+  { name: 'POST /api/plans/:id/submit', call: (c) => c.post(`/api/plans/${planId}/submit`), expect: { anonymous: 401, admin: 200, reviewer: 403, crew_lead: 409, apprentice: 403, other: 404 } },
+  { name: 'POST /api/plans/:id/review', call: (c) => c.post(`/api/plans/${submittedId}/review`, { decision: 'return', comment: 'Show the neutral bond.' }), expect: { anonymous: 401, admin: 200, reviewer: 409, crew_lead: 403, apprentice: 403, other: 403 } },
+  { name: 'POST /api/plans/:id/reopen', call: (c) => c.post(`/api/plans/${approvedId}/reopen`), expect: { anonymous: 401, admin: 201, reviewer: 403, crew_lead: 409, apprentice: 403, other: 404 } },
+  { name: 'GET /api/plans/:id/revisions', call: (c) => c.get(`/api/plans/${planId}/revisions`), expect: { anonymous: 401, admin: 200, reviewer: 200, crew_lead: 200, apprentice: 200, other: 404 } },
+  { name: 'GET /api/plans/:id/revisions/:n', call: (c) => c.get(`/api/plans/${planId}/revisions/1`), expect: { anonymous: 401, admin: 200, reviewer: 200, crew_lead: 200, apprentice: 200, other: 404 } },
+  { name: 'GET /api/plans/:id/comments', call: (c) => c.get(`/api/plans/${planId}/comments`), expect: { anonymous: 401, admin: 200, reviewer: 200, crew_lead: 200, apprentice: 200, other: 404 } },
+  { name: 'POST /api/plans/:id/comments', call: (c) => c.post(`/api/plans/${planId}/comments`, { elementId: 'A', body: 'Check this clamp.' }), expect: { anonymous: 401, admin: 201, reviewer: 201, crew_lead: 201, apprentice: 403, other: 404 } },
+  { name: 'GET /api/plans/:id/history', call: (c) => c.get(`/api/plans/${planId}/history`), expect: { anonymous: 401, admin: 200, reviewer: 200, crew_lead: 200, apprentice: 200, other: 404 } },
+  { name: 'GET /api/plans/:id/diff', call: (c) => c.get(`/api/plans/${planId}/diff?from=1&to=2`), expect: { anonymous: 401, admin: 200, reviewer: 200, crew_lead: 200, apprentice: 200, other: 404 } },
+  { name: 'GET /api/dev/mail', call: (c) => c.get('/api/dev/mail'), expect: { anonymous: 401, admin: 200, reviewer: 403, crew_lead: 403, apprentice: 403, other: 403 } },
+  { name: 'POST /api/auth/forgot', call: (c) => c.post('/api/auth/forgot', { email: 'nobody-at-all@example.test' }), expect: { anonymous: 200, admin: 200, reviewer: 200, crew_lead: 200, apprentice: 200, other: 200 } },
   { name: 'POST /api/auth/set-password', call: (c) => c.post('/api/auth/set-password', { token: 'not-a-real-token-at-all', password: 'long enough password' }), expect: { anonymous: 400, admin: 400, reviewer: 400, crew_lead: 400, apprentice: 400, other: 400 } },
 ];
 

@@ -73,3 +73,26 @@ export const updateUserBody = z
   .refine((v) => v.role !== undefined || v.disabled !== undefined, { message: 'give role or disabled', path: ['role'] });
 
 export const idParam = z.coerce.number({ invalid_type_error: 'must be a number' }).int('must be a whole number').min(1, 'must be at least 1').max(2 ** 31, 'is too large');
+
+const text = (max: number) => z.string({ invalid_type_error: 'must be a string' }).trim().max(max, `must be at most ${max} characters`);
+
+export const reviewBody = z
+  .object({
+    decision: z.enum(['approve', 'return'], { errorMap: () => ({ message: 'must be approve or return' }) }),
+    comment: text(4000).optional(),
+    teachingNote: text(4000).optional(),
+    /** The revision the reviewer read; a decision on an older one is refused. */
+    revision: z.number({ invalid_type_error: 'must be a number' }).int('must be a whole number').min(1, 'must be at least 1').optional(),
+  })
+  .superRefine((v, ctx) => {
+    if (v.decision === 'return' && !v.comment) ctx.addIssue({ code: 'custom', path: ['comment'], message: 'is required when returning a plan: say what to fix' });
+  });
+
+export const commentBody = z.object({
+  body: text(4000).pipe(z.string().min(1, 'must not be empty')),
+  elementId: z.string({ invalid_type_error: 'must be a string' }).trim().min(1, 'must not be empty').max(64, 'is too long').nullable().optional(),
+});
+
+export const resolveCommentBody = z.object({ resolved: z.boolean({ required_error: 'is required', invalid_type_error: 'must be true or false' }) });
+
+export const forgotPasswordBody = z.object({ email });

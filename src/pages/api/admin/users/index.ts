@@ -15,6 +15,6 @@ export const GET = endpoint(async (ctx) => {
 export const POST = endpoint(async (ctx) => {
   const admin = requireRole(ctx, 'admin');
   const body = await readJson(ctx, createUserBody, 16 * 1024);
-  const { person, setPasswordPath } = await invitePerson(admin, body);
+  const { person, setPasswordPath } = await invitePerson(admin, body, ctx.url);
   return json({ person, setPasswordUrl: `${publicUrl(ctx.url)}${setPasswordPath}`, expiresInDays: INVITE_DAYS }, 201);
 });

@@ -1,0 +1,10 @@
+import { forgotPasswordBody } from '../../../lib/schemas/api';
+import { endpoint, json, readJson } from '../../../lib/server/http';
+import { sendPasswordReset } from '../../../lib/server/people-admin';
+
+/** Sends a reset link if the e-mail belongs to an active person; the answer is the same either way. */
+export const POST = endpoint(async (ctx) => {
+  const body = await readJson(ctx, forgotPasswordBody, 4 * 1024);
+  await sendPasswordReset(body.email, ctx.url);
+  return json({ ok: true, message: 'If that e-mail belongs to an active account, a reset link is on its way.' });
+});
