@@ -5,7 +5,7 @@
 import { Op, Transaction, type Order, type WhereOptions } from 'sequelize';
 import type { PlanStatus } from '../../src/lib/domain/plan-status';
 import { isEditable } from '../../src/lib/domain/plan-status';
-import type { ListPlansQuery } from '../../src/lib/schemas/api';
+import { defaultSortDir, type ListPlansQuery } from '../../src/lib/schemas/api';
 import { planSchema, type PlanDocument } from '../../src/lib/schemas/plan';
 import type { Db } from '../connection';
 import type { Plan, PlanRevision } from '../models';
@@ -21,6 +21,7 @@ export interface PlanSummary {
   authorId: string;
   authorName: string;
   currentRevision: number;
+  submittedAt: Date | null;
   createdAt: Date;
   updatedAt: Date;
 }
@@ -56,6 +57,7 @@ function toSummary(row: PlanRow): PlanSummary {
     authorId: row.authorId,
     authorName: row.author?.name ?? '',
     currentRevision: row.currentRevision,
+    submittedAt: row.submittedAt ?? null,
     createdAt: row.createdAt,
     updatedAt: row.updatedAt,
   };
@@ -82,7 +84,9 @@ const SORT_COLUMNS: Record<ListPlansQuery['sort'], string> = {
   title: 'title',
   status: 'status',
   blockers: 'blockers',
+  warnings: 'warnings',
   structure: 'structure',
+  submitted: 'submittedAt',
 };
 
 const authorInclude = (db: Db) => ({ model: db.models.User, as: 'author', attributes: ['name'] });
@@ -94,8 +98,7 @@ export async function listPlans(db: Db, organizationId: number, query: ListPlans
   else if (query.statuses) Object.assign(where, { status: { [Op.in]: query.statuses } });
   if (query.authorId) Object.assign(where, { authorId: query.authorId });
   if (query.q) Object.assign(where, { title: { [Op.like]: `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%` } });
-  const defaultDir = query.sort === 'updated' || query.sort === 'created' || query.sort === 'blockers' ? 'DESC' : 'ASC';
-  const dir = query.dir ? (query.dir.toUpperCase() as 'ASC' | 'DESC') : defaultDir;
+  const dir = (query.dir ?? defaultSortDir(query.sort)).toUpperCase() as 'ASC' | 'DESC';
   const order: Order = [[SORT_COLUMNS[query.sort], dir], ['id', dir]];
   const { rows, count } = await db.models.Plan.findAndCountAll({
     where,

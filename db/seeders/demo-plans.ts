@@ -25,6 +25,10 @@ export interface DemoPlan {
   status: PlanStatus;
   author: 'lead' | 'admin';
   document: PlanDocument;
+  /** For approved plans: the reviewer's teaching note. For returned ones: the reviewer's comment. */
+  reviewNote?: string;
+  /** Comments the reviewer pinned to elements before deciding. */
+  pins?: { elementId: string; body: string }[];
 }
 
 export const DEMO_PLANS: DemoPlan[] = [
@@ -32,6 +36,7 @@ export const DEMO_PLANS: DemoPlan[] = [
     title: 'Pole 14 on Wren Hollow Road, bucket work',
     status: 'approved',
     author: 'lead',
+    reviewNote: 'The bucket is bonded to the same cluster bar as the phases and the neutral, so the lineworker rises with everything in reach.',
     document: document(
       'Pole 14 on Wren Hollow Road, bucket work',
       [
@@ -82,6 +87,8 @@ export const DEMO_PLANS: DemoPlan[] = [
     title: 'Riser pole 7 behind the Fernbrook depot, ground crew',
     status: 'returned',
     author: 'lead',
+    reviewNote: 'Route the truck lead straight and shorter before this goes out.',
+    pins: [{ elementId: 'jTR', body: 'This lead has 3 m of slack; coil-free and shorter, please.' }],
     document: document(
       'Riser pole 7 behind the Fernbrook depot, ground crew',
       [
@@ -90,8 +97,8 @@ export const DEMO_PLANS: DemoPlan[] = [
         { id: 'P7', kind: 'structure', material: 'wood', label: 'Pole 7', position: { x: 240, y: 320 } },
         { id: 'CB', kind: 'cluster-bar', label: 'Cluster bar', position: { x: 240, y: 130 } },
         { id: 'TR', kind: 'truck', label: 'Line truck', position: { x: 520, y: 300 } },
-        { id: 'G', kind: 'earth', label: 'Earth', position: { x: 400, y: 420 } },
-        { id: 'W2', kind: 'worker', standsOn: 'G', label: 'Ground worker at the truck', position: { x: 620, y: 380 } },
+        { id: 'M', kind: 'mat', label: 'Mat at the truck', position: { x: 620, y: 420 } },
+        { id: 'W2', kind: 'worker', standsOn: 'M', label: 'Ground worker at the truck', position: { x: 620, y: 360 } },
       ],
       [
         jumper('jA', 'A', 'CB', '2/0', 2.4, 2.0),
@@ -99,6 +106,7 @@ export const DEMO_PLANS: DemoPlan[] = [
         jumper('jC', 'C', 'CB', '2/0', 2.4, 2.0),
         jumper('jN', 'CB', 'N', '2/0', 1.8, 1.5),
         jumper('jTR', 'TR', 'CB', '2/0', 12, 9),
+        jumper('jM', 'M', 'TR', '2/0', 1.5, 1.2),
         reach('rTR', 'W2', 'TR'),
       ],
     ),

@@ -7,6 +7,9 @@ import { createPerson, findOrganizationBySlug } from '../repositories/people';
 import { createPlan, describeStructure } from '../repositories/plans';
 import { checkPlan } from '../../src/lib/domain/checker';
 import { hash } from '@node-rs/argon2';
+import { canonicalHash } from '../../src/lib/domain/canonical-json';
+import { decidePlan, submitPlan } from '../repositories/review';
+import { addComment } from '../repositories/revisions';
 import type { Role } from '../../src/lib/domain/roles';
 import { DEMO_PLANS, OTHER_ORG_PLAN, type DemoPlan } from './demo-plans';
 
@@ -33,18 +36,27 @@ async function ensureOrg(db: Db, key: 'demo' | 'other'): Promise<number> {
   return (await db.models.Organization.create(ORGS[key])).id;
 }
 
-async function seedPlans(db: Db, organizationId: number, authorId: string, plans: DemoPlan[]): Promise<number> {
+/** Creates each demo plan as a draft and walks it through the real workflow to its demo state. */
+async function seedPlans(db: Db, organizationId: number, authorId: string, reviewerId: string | null, plans: DemoPlan[]): Promise<number> {
   if ((await db.models.Plan.count({ where: { organizationId } })) > 0) return 0;
   for (const plan of plans) {
-    await createPlan(db, {
-      organizationId,
-      authorId,
-      title: plan.title,
-      structure: describeStructure(plan.document),
-      document: plan.document,
-      report: checkPlan(plan.document),
-      status: plan.status,
+    const report = checkPlan(plan.document);
+    const created = await createPlan(db, { organizationId, authorId, title: plan.title, structure: describeStructure(plan.document), document: plan.document, report });
+    if (plan.status === 'draft') continue;
+    const submitted = await submitPlan(db, organizationId, created.id, authorId, report);
+    if (submitted.kind !== 'ok') throw new Error(`demo plan "${plan.title}" cannot be submitted: ${submitted.kind}`);
+    if (plan.status === 'submitted' || !reviewerId) continue;
+    for (const pin of plan.pins ?? []) await addComment(db, organizationId, created.id, reviewerId, { elementId: pin.elementId, body: pin.body, revision: 1 });
+    const approve = plan.status === 'approved';
+    const decided = await decidePlan(db, organizationId, created.id, reviewerId, {
+      decision: approve ? 'approve' : 'return',
+      comment: approve ? null : plan.reviewNote ?? 'Please look again.',
+      teachingNote: approve ? plan.reviewNote ?? null : null,
+      documentHash: approve ? canonicalHash(created.document) : null,
+      reportHash: approve ? canonicalHash(report) : null,
+      revision: 1,
     });
+    if (decided.kind !== 'ok') throw new Error(`demo plan "${plan.title}" cannot be decided: ${decided.kind}`);
   }
   return plans.length;
 }
@@ -66,7 +78,7 @@ export async function seedDemo(db: Db): Promise<{ people: number; plans: number 
     people += 1;
   }
   const plans =
-    (await seedPlans(db, orgIds.demo, ids['lead@demo.test'], DEMO_PLANS)) +
-    (await seedPlans(db, orgIds.other, ids['lead@other.test'], [OTHER_ORG_PLAN]));
+    (await seedPlans(db, orgIds.demo, ids['lead@demo.test'], ids['reviewer@demo.test'], DEMO_PLANS)) +
+    (await seedPlans(db, orgIds.other, ids['lead@other.test'], null, [OTHER_ORG_PLAN]));
   return { people, plans };
 }

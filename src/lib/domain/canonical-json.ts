@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 /**
  * JSON with object keys sorted at every level, so that two equal documents give the same text
  * (and the same hash) whatever order their keys were written in.
@@ -17,4 +18,9 @@ function sortKeys(value: unknown): unknown {
     );
   }
   return value;
+}
+
+/** SHA-256 (hex) of the canonical JSON: the fingerprint an approval records for its document and report. */
+export function canonicalHash(value: unknown): string {
+  return createHash('sha256').update(canonicalJson(value)).digest('hex');
 }

@@ -46,8 +46,13 @@ export const savePlanBody = z.object({
   document: planDocumentSchema,
 });
 
-export const PLAN_SORTS = ['updated', 'title', 'status', 'blockers', 'structure', 'created'] as const;
+export const PLAN_SORTS = ['updated', 'title', 'status', 'blockers', 'warnings', 'structure', 'created', 'submitted'] as const;
 export type PlanSort = (typeof PLAN_SORTS)[number];
+
+/** Dates of change and finding counts list newest/most first; names and the queue's submission time ascend. */
+export function defaultSortDir(sort: PlanSort): 'asc' | 'desc' {
+  return ['updated', 'created', 'blockers', 'warnings'].includes(sort) ? 'desc' : 'asc';
+}
 
 export const listPlansQuery = z.object({
   status: z.enum(PLAN_STATUSES, { errorMap: () => ({ message: `must be one of ${PLAN_STATUSES.join(', ')}` }) }).optional(),

@@ -11,6 +11,7 @@ export function summaryJson(plan: PlanSummary) {
     warnings: plan.warnings,
     author: { id: plan.authorId, name: plan.authorName },
     currentRevision: plan.currentRevision,
+    submittedAt: plan.submittedAt?.toISOString() ?? null,
     createdAt: plan.createdAt.toISOString(),
     updatedAt: plan.updatedAt.toISOString(),
   };

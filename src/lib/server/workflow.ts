@@ -2,19 +2,16 @@
  * The review workflow as the endpoints and pages use it: each step re-reads and re-checks on the
  * server, moves the plan in one transaction, and queues the messages that go with it.
  */
-import { createHash } from 'node:crypto';
 import { getDb } from '../../../db/connection';
 import { getPlan, type PlanDetail } from '../../../db/repositories/plans';
 import { decidePlan, reopenApproved, submitPlan, type Decision } from '../../../db/repositories/review';
-import { canonicalJson } from '../domain/canonical-json';
+import { canonicalHash } from '../domain/canonical-json';
 import type { Person } from '../domain/people';
 import { checkDocument } from './checking';
 import { AppError } from './errors';
 import { queueMail } from './mail';
 import { decidedMessage, submittedMessage } from './mail-messages';
 import { publicUrl } from './settings';
-
-export const sha256 = (value: unknown) => createHash('sha256').update(canonicalJson(value)).digest('hex');
 
 async function requirePlan(person: Person, planId: number): Promise<PlanDetail> {
   const plan = await getPlan(getDb(), person.organizationId, planId);
@@ -54,8 +51,8 @@ export async function decide(
     decision: input.decision,
     comment: input.comment || null,
     teachingNote: approving ? input.teachingNote || null : null,
-    documentHash: approving ? sha256(plan.document) : null,
-    reportHash: approving ? sha256(plan.report) : null,
+    documentHash: approving ? canonicalHash(plan.document) : null,
+    reportHash: approving ? canonicalHash(plan.report) : null,
     revision: input.revision ?? plan.currentRevision,
   });
   switch (outcome.kind) {

@@ -1,0 +1,60 @@
+import { describe, expect, it } from 'vitest';
+import { canonicalHash, canonicalJson } from '../../src/lib/domain/canonical-json';
+import { explainPlan } from '../../src/lib/domain/explain';
+import { checkPlan } from '../../src/lib/domain/checker';
+import { diffPlans } from '../../src/lib/domain/plan-diff';
+import { planTags } from '../../src/lib/domain/plan-tags';
+import { bucketLinks, bucketNodes, makePlan } from '../helpers/plan-factory';
+import type { PlanDocument } from '../../src/lib/schemas/plan';
+
+const plan = (overrides: Partial<PlanDocument> = {}): PlanDocument =>
+  makePlan({ nodes: bucketNodes(), links: bucketLinks(), ...(overrides as object) });
+
+describe('canonical JSON', () => {
+  it('ignores key order at every level and drops undefined', () => {
+    expect(canonicalJson({ b: 1, a: { d: [1, { z: 1, y: 2 }], c: undefined } })).toBe('{"a":{"d":[1,{"y":2,"z":1}]},"b":1}');
+    expect(canonicalHash({ x: 1, y: 2 })).toBe(canonicalHash({ y: 2, x: 1 }));
+    expect(canonicalHash({ x: 1 })).not.toBe(canonicalHash({ x: 2 }));
+  });
+});
+
+describe('plan diff', () => {
+  it('names added, removed and changed elements and plan fields', () => {
+    const before = plan();
+    const after: PlanDocument = {
+      ...before,
+      title: 'Other title',
+      nodes: [...before.nodes.filter((n) => n.id !== before.nodes[0].id), { id: 'NEW', kind: 'hardware' }],
+      links: before.links.map((l, i) => (i === 0 && l.kind === 'jumper' ? { ...l, lengthM: l.lengthM + 1 } : l)),
+    };
+    const diff = diffPlans(before, after);
+    expect(diff.added).toEqual([{ id: 'NEW', kind: 'hardware' }]);
+    expect(diff.removed).toEqual([{ id: before.nodes[0].id, kind: before.nodes[0].kind }]);
+    expect(diff.changed).toEqual([{ id: before.links[0].id, kind: before.links[0].kind, fields: ['lengthM'] }]);
+    expect(diff.plan).toEqual(['title']);
+    expect(diffPlans(before, before)).toEqual({ added: [], removed: [], changed: [], plan: [] });
+  });
+});
+
+describe('plan tags', () => {
+  it('reads the kind of work from the document', () => {
+    expect(planTags(plan())).toEqual(['bucket work']);
+    const climber = makePlan({ nodes: [{ id: 'CB', kind: 'cluster-bar' }, { id: 'P', kind: 'structure', material: 'wood' }, { id: 'W', kind: 'worker', standsOn: 'CB' }] });
+    expect(planTags(climber)).toEqual(['climber', 'wood']);
+    const ground = makePlan({ nodes: [{ id: 'E', kind: 'earth' }, { id: 'R', kind: 'ground-rod', lengthM: 2.4, diameterMm: 16, soilOhmM: 100 }, { id: 'W', kind: 'worker', standsOn: 'E' }, ...['A', 'B', 'C', 'D', 'F', 'G'].map((id) => ({ id, kind: 'phase' }))] });
+    expect(planTags(ground)).toEqual(['ground worker', 'driven rod', 'double circuit']);
+  });
+});
+
+describe('explain', () => {
+  it('explains every element, with the zone and the check figures', () => {
+    const doc = plan();
+    const report = checkPlan(doc);
+    const explained = explainPlan(doc, report);
+    expect(explained.map((e) => e.id)).toEqual([...doc.nodes.map((n) => n.id), ...doc.links.map((l) => l.id)]);
+    const phase = explained.find((e) => doc.nodes.find((n) => n.id === e.id)?.kind === 'phase')!;
+    expect(phase.lines.join(' ')).toMatch(/In zone \d+ .* grounded/);
+    const jumper = explained.find((e) => doc.links.find((l) => l.id === e.id)?.kind === 'jumper')!;
+    expect(jumper.lines.join(' ')).toMatch(/Impedance [\d.]+ mΩ; fault duty [\d.]+ kA/);
+  });
+});
