@@ -6,6 +6,9 @@ import { join, resolve } from 'node:path';
 
 export const ROOT = resolve(import.meta.dirname, '..');
 
+// The machine's network is closed; Astro's anonymous usage report would only time out.
+process.env.ASTRO_TELEMETRY_DISABLED ??= '1';
+
 export function say(message) {
   process.stderr.write(`[bondmap] ${message}\n`);
 }

@@ -1,6 +1,6 @@
 // `npm test`: sets up everything the suite needs on a fresh machine (npm packages; Debian's
 // mariadb-server, chromium, ngspice and poppler-utils), starts its own MariaDB with a separate
-// database, runs unit and component tests, builds and serves the app against the test database,
+// database, runs the linter and the type check, unit and component tests, builds and serves the app against the test database,
 // runs the API and browser tests, and stops what it started.
 import { spawn } from 'node:child_process';
 import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
@@ -51,6 +51,10 @@ async function main() {
   // A fresh schema every run, with the invented demo seeded (the browser tests sign in as its people).
   run('npx', ['tsx', 'db/cli.ts', 'reset', '--profile', 'test', '--env-out', envFile]);
   const dbEnv = JSON.parse(readFileSync(envFile, 'utf8'));
+
+  // Static checks first: the domain fence and the types (astro check covers .astro and .ts alike).
+  run('npx', ['eslint', '.']);
+  run('npx', ['astro', 'check', '--minimumSeverity', 'warning']);
 
   const unitCode = await vitest(['unit', 'components'], {}, join(results, 'unit.json'));
 
