@@ -33,7 +33,7 @@ try {
   Bondmap is running at ${url}
 ${demo}
   Mail: ${mailEnv.BONDMAP_MAIL_CATCHER ? `caught by the local mail server; admins read it at ${url}/admin/mail` : 'sent through BONDMAP_SMTP_URL'}
-  Ctrl+C stops the app; MariaDB keeps running for next time (npm run db:stop stops it).
+  Ctrl+C stops the app; MariaDB and the mail catcher keep running for next time (npm run stop stops them).
 `);
   const stop = () => child.kill('SIGTERM');
   process.on('SIGINT', stop);
