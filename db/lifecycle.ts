@@ -6,8 +6,8 @@
 import { spawn, spawnSync } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, openSync, readFileSync, writeFileSync, rmSync } from 'node:fs';
-import { createConnection } from 'node:net';
 import { join, resolve } from 'node:path';
+import { portOpen } from '../scripts/lib.mjs';
 
 export type Profile = 'dev' | 'test';
 
@@ -100,17 +100,6 @@ function readPid(file: string): number | null {
   return Number.isInteger(pid) && pid > 0 ? pid : null;
 }
 
-function portAnswers(port: number): Promise<boolean> {
-  return new Promise((done) => {
-    const socket = createConnection({ host: '127.0.0.1', port });
-    socket.once('connect', () => {
-      socket.destroy();
-      done(true);
-    });
-    socket.once('error', () => done(false));
-  });
-}
-
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 function sql(socket: string, statements: string): void {
@@ -144,7 +133,7 @@ export async function startDatabase(profile: Profile): Promise<DbCredentials> {
   if (pid !== null && isOurServer(pid, p.data)) {
     log(`reusing mariadbd (pid ${pid}) on 127.0.0.1:${config.port}`);
   } else {
-    if (await portAnswers(config.port)) {
+    if (await portOpen(config.port)) {
       throw new Error(`port ${config.port} is taken by another program; set ${profile === 'dev' ? 'BONDMAP_DB_PORT' : 'BONDMAP_TEST_DB_PORT'} to a free port`);
     }
     log(`starting mariadbd on 127.0.0.1:${config.port}`);
@@ -177,7 +166,7 @@ export async function startDatabase(profile: Profile): Promise<DbCredentials> {
 async function waitUntilAnswering(port: number, socket: string): Promise<void> {
   const deadline = Date.now() + 60_000;
   while (Date.now() < deadline) {
-    if ((await portAnswers(port)) && existsSync(socket)) {
+    if ((await portOpen(port)) && existsSync(socket)) {
       const ping = spawnSync(findBinary('mariadb-admin') ?? 'mariadb-admin', ['--no-defaults', `--socket=${socket}`, '-uroot', 'ping'], { encoding: 'utf8' });
       if (ping.status === 0) return;
     }

@@ -2,6 +2,7 @@
 // before `npm install` has happened.
 import { spawn, spawnSync } from 'node:child_process';
 import { existsSync, readdirSync, statSync } from 'node:fs';
+import { createConnection } from 'node:net';
 import { join, resolve } from 'node:path';
 
 export const ROOT = resolve(import.meta.dirname, '..');
@@ -102,16 +103,15 @@ function pidAlive(pid) {
   }
 }
 
-function portOpen(port) {
+/** True when something accepts TCP connections on 127.0.0.1:port. */
+export function portOpen(port) {
   return new Promise((done) => {
-    import('node:net').then(({ createConnection }) => {
-      const socket = createConnection({ host: '127.0.0.1', port });
-      socket.once('connect', () => {
-        socket.destroy();
-        done(true);
-      });
-      socket.once('error', () => done(false));
+    const socket = createConnection({ host: '127.0.0.1', port });
+    socket.once('connect', () => {
+      socket.destroy();
+      done(true);
     });
+    socket.once('error', () => done(false));
   });
 }
 

@@ -19,6 +19,5 @@ export function listLinks(path: string, query: ListPlansQuery, defaultSort: Plan
     currentDir,
     href,
     sortHref: (sort: PlanSort) => href({ sort, dir: query.sort === sort ? (currentDir === 'asc' ? 'desc' : 'asc') : undefined, page: 1 }),
-    ariaSort: (sort: PlanSort) => (query.sort === sort ? (currentDir === 'asc' ? 'ascending' : 'descending') : 'none'),
   };
 }
