@@ -1,0 +1,182 @@
+/**
+ * The canvas: React Flow drawing the plan document from the store. Drag, tap, box-select,
+ * pinch and pan come from React Flow; placing, linking, long-press menus and keyboard moves
+ * call store verbs.
+ */
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import ReactFlow, { Background, ConnectionMode, Controls, type NodeChange, type EdgeChange, type Connection, type ReactFlowInstance } from 'reactflow';
+import type { NodeKind } from '../../lib/schemas/plan';
+import { edgeTypes } from './edges/LinkEdge';
+import { nodeTypes } from './nodes/PlanNodeView';
+import { ContextMenu, type MenuItem } from './panels/ContextMenu';
+import { DRAG_TYPE } from './panels/Palette';
+import { GRID } from './store';
+import { toFlowEdges, toFlowNodes, useEditor, useEditorStore } from './selectors';
+import type { Point } from './plan-ops';
+
+export interface CanvasProps {
+  onInit: (rf: ReactFlowInstance) => void;
+}
+
+interface MenuState { x: number; y: number; id: string | null }
+const LONG_PRESS_MS = 550;
+
+export function Canvas({ onInit }: CanvasProps) {
+  const store = useEditorStore();
+  const doc = useEditor((s) => s.doc);
+  const selection = useEditor((s) => s.selection);
+  const readOnly = useEditor((s) => s.readOnly);
+  const snap = useEditor((s) => s.snap);
+  const linkTool = useEditor((s) => s.linkTool);
+  const rf = useRef<ReactFlowInstance | null>(null);
+  const wrapper = useRef<HTMLDivElement>(null);
+  const [menu, setMenu] = useState<MenuState | null>(null);
+  const press = useRef<{ timer: ReturnType<typeof setTimeout>; x: number; y: number } | null>(null);
+
+  const nodes = useMemo(() => toFlowNodes(doc, selection, !readOnly), [doc, selection, readOnly]);
+  const edges = useMemo(() => toFlowEdges(doc, selection), [doc, selection]);
+  const large = doc.nodes.length + doc.links.length > 400;
+
+  const onNodesChange = useCallback((changes: NodeChange[]) => {
+    const moves = new Map<string, Point>();
+    let selected: Set<string> | null = null;
+    for (const c of changes) {
+      if (c.type === 'position' && c.position) moves.set(c.id, c.position);
+      if (c.type === 'select') {
+        selected ??= new Set(store.getState().selection);
+        if (c.selected) selected.add(c.id);
+        else selected.delete(c.id);
+      }
+    }
+    if (moves.size) store.getState().moveNodes(moves);
+    if (selected && !store.getState().linkTool) store.getState().select([...selected]);
+  }, [store]);
+
+  const onEdgesChange = useCallback((changes: EdgeChange[]) => {
+    let selected: Set<string> | null = null;
+    for (const c of changes) {
+      if (c.type === 'select') {
+        selected ??= new Set(store.getState().selection);
+        if (c.selected) selected.add(c.id);
+        else selected.delete(c.id);
+      }
+    }
+    if (selected && !store.getState().linkTool) store.getState().select([...selected]);
+  }, [store]);
+
+  const onConnect = useCallback((c: Connection) => {
+    if (!c.source || !c.target) return;
+    const s = store.getState();
+    const fromWorker = s.doc.nodes.find((n) => n.id === c.source)?.kind === 'worker';
+    s.connect(s.linkTool ?? (fromWorker ? 'reach' : 'jumper'), c.source, c.target);
+  }, [store]);
+
+  const onDrop = useCallback((e: React.DragEvent) => {
+    const kind = e.dataTransfer.getData(DRAG_TYPE) as NodeKind;
+    if (!kind || !rf.current || store.getState().readOnly) return;
+    e.preventDefault();
+    const p = rf.current.screenToFlowPosition({ x: e.clientX, y: e.clientY });
+    store.getState().addNode(kind, { x: p.x - 28, y: p.y - 28 });
+  }, [store]);
+
+  const openMenuAt = (x: number, y: number, target: EventTarget | null) => {
+    const el = target as HTMLElement | null;
+    const nodeEl = el?.closest?.('.react-flow__node') as HTMLElement | null;
+    const edgeEl = el?.closest?.('.react-flow__edge') as HTMLElement | null;
+    const id = nodeEl?.dataset.id ?? edgeEl?.getAttribute('data-testid')?.replace(/^rf__edge-/, '') ?? null;
+    if (id && !store.getState().selection.includes(id)) store.getState().select([id]);
+    setMenu({ x, y, id });
+  };
+  const cancelPress = () => {
+    if (press.current) clearTimeout(press.current.timer);
+    press.current = null;
+  };
+  const onPointerDown = (e: React.PointerEvent) => {
+    if (e.pointerType === 'mouse') return;
+    cancelPress();
+    const { clientX, clientY, target } = e;
+    press.current = { x: clientX, y: clientY, timer: setTimeout(() => openMenuAt(clientX, clientY, target), LONG_PRESS_MS) };
+  };
+  const onPointerMove = (e: React.PointerEvent) => {
+    if (press.current && Math.hypot(e.clientX - press.current.x, e.clientY - press.current.y) > 10) cancelPress();
+  };
+  useEffect(() => cancelPress, []);
+
+  const menuItems = (id: string | null): MenuItem[] => {
+    const s = store.getState();
+    if (s.readOnly) return [{ label: 'Zoom to fit', onSelect: () => rf.current?.fitView({ padding: 0.2 }) }];
+    if (!id) {
+      return [
+        { label: 'Paste', onSelect: s.paste, disabled: !s.clipboard },
+        { label: 'Select all', onSelect: s.selectAll },
+        { label: 'Zoom to fit', onSelect: () => rf.current?.fitView({ padding: 0.2 }) },
+      ];
+    }
+    const node = s.doc.nodes.find((n) => n.id === id);
+    const items: MenuItem[] = [];
+    if (node) {
+      const kinds = node.kind === 'worker' ? (['reach'] as const) : (['jumper', 'bond'] as const);
+      for (const k of kinds) items.push({ label: `Draw ${k} from ${id}`, onSelect: () => { s.armLinkTool(k); store.getState().tapElement(id); } });
+      items.push({ label: 'Add to selection', onSelect: () => store.getState().select([...store.getState().selection.filter((x) => x !== id), id]) });
+    }
+    items.push(
+      { label: 'Copy', onSelect: () => store.getState().copySelection() },
+      { label: 'Duplicate', onSelect: () => store.getState().duplicateSelection() },
+      { label: `Delete ${store.getState().selection.length > 1 ? `${store.getState().selection.length} elements` : id}`, onSelect: () => store.getState().deleteSelection() },
+    );
+    return items;
+  };
+
+  return (
+    <div
+      ref={wrapper}
+      className={`bm-canvas relative h-full w-full ${linkTool ? 'bm-linking' : ''}`}
+      data-testid="canvas"
+      onPointerDown={onPointerDown}
+      onPointerMove={onPointerMove}
+      onPointerUp={cancelPress}
+      onPointerCancel={cancelPress}
+      onDragOver={(e) => { if (e.dataTransfer.types.includes(DRAG_TYPE)) { e.preventDefault(); e.dataTransfer.dropEffect = 'copy'; } }}
+      onDrop={onDrop}
+    >
+      <ReactFlow
+        nodes={nodes}
+        edges={edges}
+        nodeTypes={nodeTypes}
+        edgeTypes={edgeTypes}
+        onInit={(inst) => { rf.current = inst; onInit(inst); }}
+        onNodesChange={onNodesChange}
+        onEdgesChange={onEdgesChange}
+        onNodeDragStart={() => store.getState().beginMove()}
+        onNodeClick={(e, n) => { if (store.getState().linkTool) store.getState().tapElement(n.id, e.shiftKey); }}
+        onPaneClick={() => { store.getState().clearSelection(); setMenu(null); }}
+        onNodeContextMenu={(e) => { e.preventDefault(); openMenuAt(e.clientX, e.clientY, e.target); }}
+        onEdgeContextMenu={(e) => { e.preventDefault(); openMenuAt(e.clientX, e.clientY, e.target); }}
+        onPaneContextMenu={(e) => { e.preventDefault(); openMenuAt(e.clientX, e.clientY, null); }}
+        onConnect={onConnect}
+        connectionMode={ConnectionMode.Loose}
+        connectionRadius={36}
+        nodesConnectable={!readOnly}
+        nodesDraggable={!readOnly && !linkTool}
+        elementsSelectable={!linkTool}
+        snapToGrid={snap}
+        snapGrid={[GRID, GRID]}
+        deleteKeyCode={null}
+        selectionKeyCode="Shift"
+        multiSelectionKeyCode={['Meta', 'Control', 'Shift']}
+        disableKeyboardA11y
+        onlyRenderVisibleElements={large}
+        minZoom={0.1}
+        maxZoom={3}
+        fitView
+        fitViewOptions={{ padding: 0.2, maxZoom: 1.2 }}
+        proOptions={{ hideAttribution: true }}
+        zoomOnDoubleClick={false}
+      >
+        <Background gap={GRID} size={1} color="#d0d5dd" />
+        <Controls showInteractive={false} className="no-print" />
+      </ReactFlow>
+      {menu && <ContextMenu x={menu.x} y={menu.y} title={menu.id ?? 'Canvas'} items={menuItems(menu.id)} onClose={() => setMenu(null)} />}
+    </div>
+  );
+}

@@ -1,0 +1,263 @@
+/**
+ * The plan editor island (client:only="react" on /plans/[id]): palette, canvas, inspector,
+ * drawer, and the wiring to the live check, autosave and exports. Read-only for anyone who may
+ * not edit this plan; the same island then shows the drawing and the check.
+ */
+import { useCallback, useEffect, useRef, useState } from 'react';
+import { flushSync } from 'react-dom';
+import { useStore } from 'zustand';
+import { ReactFlowProvider, type ReactFlowInstance } from 'reactflow';
+import 'reactflow/dist/base.css';
+import './editor.css';
+import type { PlanStatus } from '../../lib/domain/plan-status';
+import type { CheckReport } from '../../lib/domain/report';
+import { parsePlan, type NodeKind, type PlanDocument, type PlanIssue } from '../../lib/schemas/plan';
+import { createApi } from './api-client';
+import { Canvas } from './Canvas';
+import { buildPdf, downloadBlob, fileBase, planJsonText, renderDrawingPng, renderElementPng, type SheetMeta } from './export';
+import { commandFor, isTypingTarget } from './keyboard';
+import { ConflictDialog } from './panels/ConflictDialog';
+import { Drawer } from './panels/Drawer';
+import { ImportProblems } from './panels/ImportDialog';
+import { Inspector } from './panels/Inspector';
+import { Palette } from './panels/Palette';
+import { PrintSheet } from './panels/PrintSheet';
+import { TopBar } from './panels/TopBar';
+import { nearestInDirection, readingOrder } from './plan-ops';
+import { EditorStoreContext } from './selectors';
+import { createEditorStore, GRID, hasUnsavedWork, type EditorStore } from './store';
+import { readLocalDraft, startSync, type SyncHandle } from './sync';
+
+export interface EditorProps {
+  plan: { id: number; title: string; status: PlanStatus; currentRevision: number; document: PlanDocument; report: CheckReport | null };
+  readOnly: boolean;
+  role: string;
+}
+
+function initStore(plan: EditorProps['plan'], readOnly: boolean): { store: EditorStore; restored: boolean } {
+  const store = createEditorStore({ doc: plan.document, baseRevision: plan.currentRevision, readOnly, report: plan.report });
+  if (readOnly || typeof localStorage === 'undefined') return { store, restored: false };
+  const draft = readLocalDraft(localStorage, plan.id);
+  if (!draft || draft.baseRevision > plan.currentRevision) return { store, restored: false };
+  const s = store.getState();
+  store.setState({ doc: draft.doc, version: s.version + 1, saveState: 'unsaved' });
+  if (draft.baseRevision < plan.currentRevision) {
+    store.setState({ baseRevision: draft.baseRevision, saveState: 'conflict', conflict: { currentRevision: plan.currentRevision, document: plan.document } });
+  }
+  s.showMessage('Restored changes kept on this device that the server did not have yet.');
+  return { store, restored: true };
+}
+
+export default function Editor({ plan, readOnly }: EditorProps) {
+  const [{ store, restored }] = useState(() => initStore(plan, readOnly));
+  const rf = useRef<ReactFlowInstance | null>(null);
+  const sync = useRef<SyncHandle | null>(null);
+  const sheet = useRef<HTMLDivElement>(null);
+  const canvasBox = useRef<HTMLDivElement>(null);
+  const conflict = useStore(store, (s) => s.conflict);
+  const message = useStore(store, (s) => s.message);
+  const baseRevision = useStore(store, (s) => s.baseRevision);
+  // The print sheet is drawn only when it is needed (print, PNG), so dragging never re-renders it.
+  const [sheetOpen, setSheetOpen] = useState(false);
+  const [busy, setBusy] = useState<string | null>(null);
+  const [importIssues, setImportIssues] = useState<{ name: string; issues: PlanIssue[] } | null>(null);
+  const [drawing, setDrawing] = useState<string | null>(null);
+  useEffect(() => {
+    const before = () => flushSync(() => setSheetOpen(true));
+    const after = () => setSheetOpen(false);
+    window.addEventListener('beforeprint', before);
+    window.addEventListener('afterprint', after);
+    return () => {
+      window.removeEventListener('beforeprint', before);
+      window.removeEventListener('afterprint', after);
+    };
+  }, []);
+
+  useEffect(() => {
+    const handle = startSync(store, { planId: plan.id, api: createApi(), storage: readOnly ? null : localStorage, target: window, checkNow: restored || !plan.report });
+    sync.current = handle;
+    return () => handle.stop();
+  }, [store, plan.id, plan.report, readOnly, restored]);
+
+  useEffect(() => {
+    const warn = (e: BeforeUnloadEvent) => {
+      if (!hasUnsavedWork(store.getState())) return;
+      e.preventDefault();
+      e.returnValue = '';
+    };
+    window.addEventListener('beforeunload', warn);
+    return () => window.removeEventListener('beforeunload', warn);
+  }, [store]);
+
+  const centreOn = useCallback((ids: string[]) => {
+    const s = store.getState();
+    const nodeIds = new Set<string>();
+    for (const id of ids) {
+      const link = s.doc.links.find((l) => l.id === id);
+      if (link) {
+        nodeIds.add(link.from);
+        nodeIds.add(link.to);
+      } else nodeIds.add(id);
+    }
+    s.select(ids);
+    rf.current?.fitView({ nodes: [...nodeIds].map((id) => ({ id })), padding: 0.6, maxZoom: 1.3, duration: 300 });
+  }, [store]);
+
+  const placeKind = useCallback((kind: NodeKind) => {
+    const box = canvasBox.current?.getBoundingClientRect();
+    const centre = box && rf.current ? rf.current.screenToFlowPosition({ x: box.left + box.width / 2, y: box.top + box.height / 2 }) : { x: 0, y: 0 };
+    const taken = store.getState().doc.nodes.map((n) => n.position);
+    const start = { x: Math.round(centre.x / GRID) * GRID - 20, y: Math.round(centre.y / GRID) * GRID - 20 };
+    const free = (q: { x: number; y: number }) => !taken.some((t) => t && Math.abs(t.x - q.x) < 110 && Math.abs(t.y - q.y) < 110);
+    let p = start;
+    // Walk outward ring by ring from the middle of the view to the first free spot.
+    search: for (let ring = 0; ring < 12; ring++) {
+      for (let dx = -ring; dx <= ring; dx++) {
+        for (let dy = -ring; dy <= ring; dy++) {
+          if (Math.max(Math.abs(dx), Math.abs(dy)) !== ring) continue;
+          const q = { x: start.x + dx * 120, y: start.y + dy * 120 };
+          if (free(q)) {
+            p = q;
+            break search;
+          }
+        }
+      }
+    }
+    store.getState().addNode(kind, p);
+  }, [store]);
+
+  useEffect(() => {
+    const onKey = (e: KeyboardEvent) => {
+      if (isTypingTarget(e.target) || document.querySelector('[role="alertdialog"]')) return;
+      const cmd = commandFor(e);
+      if (!cmd) return;
+      const s = store.getState();
+      const inCanvas = canvasBox.current?.contains(document.activeElement) ?? false;
+      const nav = (id: string | null) => {
+        if (!id) return;
+        s.select([id]);
+        const n = s.doc.nodes.find((x) => x.id === id);
+        if (n?.position && rf.current) {
+          const z = rf.current.getZoom();
+          const vp = rf.current.getViewport();
+          const box = canvasBox.current!.getBoundingClientRect();
+          const sx = n.position.x * z + vp.x;
+          const sy = n.position.y * z + vp.y;
+          if (sx < 40 || sy < 40 || sx > box.width - 80 || sy > box.height - 80) rf.current.setCenter(n.position.x + 28, n.position.y + 28, { zoom: z, duration: 200 });
+        }
+      };
+      const order = () => readingOrder(s.doc);
+      const current = s.selection.find((id) => s.doc.nodes.some((n) => n.id === id)) ?? null;
+      switch (cmd) {
+        case 'undo': s.undo(); break;
+        case 'redo': s.redo(); break;
+        case 'copy': if (!s.selection.length) return; s.copySelection(); break;
+        case 'paste': s.paste(); break;
+        case 'duplicate': s.duplicateSelection(); break;
+        case 'select-all': if (!inCanvas) return; s.selectAll(); break;
+        case 'delete': if (!s.selection.length) return; s.deleteSelection(); break;
+        case 'escape': s.armLinkTool(null); s.clearSelection(); break;
+        case 'fit': rf.current?.fitView({ padding: 0.2, duration: 200 }); break;
+        case 'next':
+        case 'previous': {
+          if (!inCanvas) return;
+          const list = order();
+          const i = current ? list.indexOf(current) : -1;
+          const j = cmd === 'next' ? i + 1 : (i < 0 ? list.length : i) - 1;
+          if (j < 0 || j >= list.length) return;
+          nav(list[j]);
+          break;
+        }
+        case 'left': case 'right': case 'up': case 'down':
+          if (!inCanvas) return;
+          nav(current ? nearestInDirection(s.doc, current, cmd) : order()[0] ?? null);
+          break;
+        default: {
+          if (!inCanvas) return;
+          const d = { 'nudge-left': [-GRID, 0], 'nudge-right': [GRID, 0], 'nudge-up': [0, -GRID], 'nudge-down': [0, GRID] }[cmd];
+          s.nudgeSelection(d[0], d[1]);
+        }
+      }
+      e.preventDefault();
+    };
+    window.addEventListener('keydown', onKey);
+    return () => window.removeEventListener('keydown', onKey);
+  }, [store]);
+
+  const meta: SheetMeta = { planId: plan.id, revision: baseRevision, status: plan.status, approval: null };
+  const doExport = async (what: 'png' | 'pdf' | 'json') => {
+    const s = store.getState();
+    const base = fileBase(s.doc, meta);
+    if (what === 'json') return downloadBlob(new Blob([planJsonText(s.doc)], { type: 'application/json' }), `${base}.json`);
+    setBusy(what === 'pdf' ? 'Making PDF…' : 'Making PNG…');
+    try {
+      const picture = canvasBox.current ? await renderDrawingPng(canvasBox.current) : null;
+      if (what === 'pdf') downloadBlob(await buildPdf(s.doc, s.report, meta, picture, s.units), `${base}.pdf`);
+      else {
+        flushSync(() => {
+          setDrawing(picture);
+          setSheetOpen(true);
+        });
+        await new Promise((r) => setTimeout(r, 50));
+        const url = await renderElementPng(sheet.current!);
+        downloadBlob(await (await fetch(url)).blob(), `${base}.png`);
+      }
+    } catch (err) {
+      s.showMessage(`Export failed: ${(err as Error).message}`);
+    } finally {
+      setBusy(null);
+      setDrawing(null);
+      setSheetOpen(false);
+    }
+  };
+  const doImport = async (file: File) => {
+    let data: unknown;
+    try {
+      data = JSON.parse(await file.text());
+    } catch {
+      return setImportIssues({ name: file.name, issues: [{ path: '(document)', message: 'is not valid JSON' }] });
+    }
+    const parsed = parsePlan(data);
+    if (!parsed.ok) return setImportIssues({ name: file.name, issues: parsed.issues });
+    store.getState().replaceDocument(parsed.plan);
+    store.getState().showMessage(`Imported ${file.name}. Undo puts the previous drawing back.`);
+    setTimeout(() => rf.current?.fitView({ padding: 0.2 }), 50);
+  };
+
+  return (
+    <EditorStoreContext.Provider value={store}>
+      <ReactFlowProvider>
+        <div className="bm-editor flex h-[calc(100vh-57px)] min-h-[560px] flex-col bg-paper" data-testid="editor" data-ready="true">
+          <TopBar status={plan.status} busy={busy} onFit={() => rf.current?.fitView({ padding: 0.2, duration: 200 })} onCheck={() => sync.current?.checkNow()}
+            onRetrySave={() => void sync.current?.saveNow()} onExport={(w) => void doExport(w)} onImport={(f) => void doImport(f)} />
+          {message && (
+            <div className="no-print flex items-center gap-3 border-b border-line bg-white px-4 py-1 text-sm" role="status" data-testid="editor-message">
+              <span className="flex-1">{message}</span>
+              <button type="button" className="btn" onClick={() => { store.getState().showMessage(null); store.getState().armLinkTool(null); }}>Dismiss</button>
+            </div>
+          )}
+          <div className="grid min-h-0 flex-1 grid-cols-[13rem_1fr_20rem]">
+            {readOnly ? <div className="no-print border-r border-line bg-white p-3 text-sm text-note">Read only: {plan.status === 'draft' || plan.status === 'returned' ? 'your role may view this plan, not change it.' : `the plan is ${plan.status}.`}</div> : <div className="no-print min-h-0"><Palette onPlace={placeKind} /></div>}
+            <div ref={canvasBox} className="bm-canvas-box min-h-0">
+              <Canvas onInit={(inst) => (rf.current = inst)} />
+            </div>
+            <div className="no-print min-h-0"><Inspector /></div>
+          </div>
+          <div className="no-print"><Drawer onShow={centreOn} /></div>
+        </div>
+        <div className="bm-print-only" aria-hidden={!drawing}>
+          {sheetOpen && <PrintSheet ref={sheet} doc={store.getState().doc} report={store.getState().report} meta={meta} units={store.getState().units} drawing={drawing} />}
+        </div>
+        {conflict && (
+          <ConflictDialog yourRevision={baseRevision} currentRevision={conflict.currentRevision}
+            onReloadTheirs={() => {
+              if (conflict.document) store.getState().reloadFromServer(conflict.document, conflict.currentRevision);
+              else window.location.reload();
+            }}
+            onKeepMine={() => { store.getState().keepMine(); void sync.current?.saveNow(); }} />
+        )}
+        {importIssues && <ImportProblems fileName={importIssues.name} issues={importIssues.issues} onClose={() => setImportIssues(null)} />}
+      </ReactFlowProvider>
+    </EditorStoreContext.Provider>
+  );
+}

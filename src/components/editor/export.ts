@@ -1,0 +1,155 @@
+/**
+ * Output of a plan: the drawing as PNG (html-to-image), a one-sheet PNG of the print view, a PDF
+ * (jspdf) with the drawing, system data, findings, contact and jumper figures, revision,
+ * approval block and caution, and the plan JSON. The PDF is written as text, not a picture, so
+ * it can be searched and read back.
+ */
+import { CAUTION, type CheckReport } from '../../lib/domain/report';
+import { formatLength, type UnitSystem } from '../../lib/domain/units';
+import type { PlanDocument } from '../../lib/schemas/plan';
+
+export interface SheetMeta {
+  planId: number;
+  revision: number;
+  status: string;
+  /** Filled by the review workflow later; until then the block reads "Not approved yet". */
+  approval?: { by: string; at: string; hash?: string } | null;
+}
+
+export const slug = (title: string) => title.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 60) || 'plan';
+export const fileBase = (doc: PlanDocument, meta: SheetMeta) => `${slug(doc.title)}-r${meta.revision}`;
+
+export function downloadBlob(blob: Blob, name: string): void {
+  const url = URL.createObjectURL(blob);
+  const a = document.createElement('a');
+  a.href = url;
+  a.download = name;
+  document.body.appendChild(a);
+  a.click();
+  a.remove();
+  setTimeout(() => URL.revokeObjectURL(url), 5000);
+}
+
+export const planJsonText = (doc: PlanDocument): string => `${JSON.stringify(doc, null, 2)}\n`;
+
+/** The drawing alone: every node fitted into a picture, whatever the current pan and zoom. */
+export async function renderDrawingPng(root: HTMLElement, width = 1600, height = 1000): Promise<string> {
+  const { toPng } = await import('html-to-image');
+  const { getRectOfNodes, getTransformForBounds } = await import('reactflow');
+  const viewport = root.querySelector('.react-flow__viewport') as HTMLElement | null;
+  if (!viewport) throw new Error('The drawing is not on screen.');
+  const nodes = [...root.querySelectorAll<HTMLElement>('.react-flow__node')].map((el) => {
+    const m = /translate\(([-\d.]+)px,\s*([-\d.]+)px\)/.exec(el.style.transform);
+    return { id: el.dataset.id ?? '', position: { x: Number(m?.[1] ?? 0), y: Number(m?.[2] ?? 0) }, width: el.offsetWidth, height: el.offsetHeight, data: null };
+  });
+  const bounds = getRectOfNodes(nodes);
+  const [x, y, zoom] = getTransformForBounds(bounds, width, height, 0.2, 2, 0.08);
+  return toPng(viewport, {
+    backgroundColor: '#ffffff',
+    width,
+    height,
+    style: { width: `${width}px`, height: `${height}px`, transform: `translate(${x}px, ${y}px) scale(${zoom})` },
+  });
+}
+
+/** A picture of any element (the print sheet), white background. */
+export async function renderElementPng(el: HTMLElement): Promise<string> {
+  const { toPng } = await import('html-to-image');
+  return toPng(el, { backgroundColor: '#ffffff', pixelRatio: 1.5 });
+}
+
+/** The standard PDF fonts cover Latin-1 only: spell out the few symbols our sentences use. */
+export function pdfText(text: string): string {
+  return text
+    .replace(/Ω/g, 'ohm').replace(/[—–]/g, '-').replace(/≤/g, '<=').replace(/≥/g, '>=').replace(/√/g, 'sqrt ')
+    .replace(/[“”]/g, '"').replace(/[‘’]/g, "'").replace(/…/g, '...').replace(/×/g, 'x').replace(/·/g, '-').replace(/²/g, '2')
+    .replace(/[^\x20-\xff\n]/g, '?');
+}
+
+const f = (v: number | null | undefined, d = 2) => (v === null || v === undefined ? '-' : v.toLocaleString('en', { maximumFractionDigits: d }));
+
+/** Builds the PDF sheet; `drawingPng` is a data URL of the drawing, or null to leave a note. */
+export async function buildPdf(doc: PlanDocument, report: CheckReport | null, meta: SheetMeta, drawingPng: string | null, units: UnitSystem): Promise<Blob> {
+  const { jsPDF } = await import('jspdf');
+  const pdf = new jsPDF({ unit: 'mm', format: 'a4' });
+  const W = 210;
+  const M = 14;
+  let y = 16;
+  const ensure = (h: number) => {
+    if (y + h > 285) {
+      pdf.addPage();
+      y = 16;
+    }
+  };
+  const line = (text: string, size = 10, bold = false, indent = 0) => {
+    pdf.setFont('helvetica', bold ? 'bold' : 'normal');
+    pdf.setFontSize(size);
+    const rows = pdf.splitTextToSize(pdfText(text), W - 2 * M - indent) as string[];
+    for (const row of rows) {
+      ensure(size * 0.45);
+      pdf.text(row, M + indent, y);
+      y += size * 0.45;
+    }
+  };
+  const gap = (h = 3) => (y += h);
+
+  line(doc.title, 16, true);
+  line(`Plan ${meta.planId} - revision ${meta.revision} - status ${meta.status}`, 10);
+  gap(2);
+  // Approval block: always drawn, empty until the review workflow fills it.
+  pdf.setDrawColor(27, 35, 48);
+  pdf.rect(M, y, W - 2 * M, 14);
+  y += 5;
+  line('Approval', 10, true, 3);
+  line(meta.approval ? `Approved by ${meta.approval.by} on ${meta.approval.at}${meta.approval.hash ? ` - document ${meta.approval.hash}` : ''}` : 'Not approved yet', 10, false, 3);
+  y += 4;
+  gap();
+  if (drawingPng) {
+    const h = (W - 2 * M) * 0.625;
+    ensure(h);
+    pdf.addImage(drawingPng, 'PNG', M, y, W - 2 * M, h);
+    y += h + 4;
+  } else line('(Drawing not available)', 10);
+
+  const s = doc.system;
+  line('System data', 12, true);
+  line(`Fault current ${f(s.faultKa)} kA - clearing time ${f(s.clearingCycles)} cycles at ${s.frequencyHz} Hz - X/R ${f(s.xOverR)} - nominal ${f(s.nominalKv)} kV - phase spacing ${s.phaseSpacingM === undefined ? '-' : formatLength(s.phaseSpacingM, units)} - body criteria ${doc.criteria?.bodyKg ?? 50} kg, ${doc.criteria?.bodyOhms ?? 1000} ohm`);
+  gap();
+  line('Findings', 12, true);
+  if (!report) line('Not checked.');
+  else if (!report.findings.length) line('Clear - the check found nothing to fix.');
+  else {
+    const word = { blocker: 'BLOCKER', warning: 'WARNING', note: 'NOTE' } as const;
+    for (const fd of report.findings) {
+      line(`[${word[fd.severity]}] ${fd.rule} (${fd.elements.join(', ')})`, 10, true);
+      line(fd.message, 10, false, 4);
+      line(`Basis: ${fd.basis}`, 9, false, 4);
+      gap(1);
+    }
+  }
+  if (report) {
+    gap();
+    line('Workers - contacts', 12, true);
+    if (!report.contacts.length) line('No contacts.');
+    for (const c of report.contacts) line(`${c.worker} touching ${c.surface}: ${f(c.touchVolts, 1)} V, body current ${c.bodyAmps === null ? '-' : Math.round(c.bodyAmps * 1000)} mA, limit ${c.limitAmps === null ? '-' : Math.round(c.limitAmps * 1000)} mA`);
+    gap();
+    line('Jumpers', 12, true);
+    if (!report.jumpers.length) line('No jumpers.');
+    for (const j of report.jumpers) {
+      const link = doc.links.find((l) => l.id === j.link);
+      line(`${j.link}${link && link.kind === 'jumper' ? ` (${link.cable}, ${formatLength(link.lengthM, units)})` : ''}: ${f(j.ohms, 5)} ohm, duty ${f(j.dutyKa)} kA, cable rating ${f(j.cableRatingKa)} kA, clamp rating ${f(j.clampRatingKa)} kA`);
+    }
+    if (report.rods.length) {
+      gap();
+      line('Rods', 12, true);
+      for (const r of report.rods) line(`${r.node}: ${f(r.ohms, 1)} ohm${r.barricadeRadiusM ? `, barricade radius ${formatLength(r.barricadeRadiusM, units)}` : ''}`);
+    }
+    gap();
+    line('Fault', 12, true);
+    line(`Duration ${f(report.fault.durationS, 3)} s, asymmetrical ${f(report.fault.asymmetricalKa)} kA, peak ${f(report.fault.peakKa)} kA, peak force ${f(report.fault.peakForceNPerM, 1)} N/m, tolerable body current ${report.tolerableBodyAmps === null ? '-' : Math.round(report.tolerableBodyAmps * 1000)} mA`);
+  }
+  gap(4);
+  line('Caution', 11, true);
+  line(CAUTION, 10);
+  return pdf.output('blob');
+}

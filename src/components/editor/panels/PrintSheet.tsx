@@ -1,0 +1,52 @@
+/**
+ * The print view of the plan (also the picture behind "Export PNG"): header with revision and
+ * the approval block, the drawing, system data, findings, contact and jumper figures, caution.
+ */
+import { forwardRef } from 'react';
+import { CAUTION, type CheckReport } from '../../../lib/domain/report';
+import { formatLength, type UnitSystem } from '../../../lib/domain/units';
+import type { PlanDocument } from '../../../lib/schemas/plan';
+import type { SheetMeta } from '../export';
+import { FaultTable, JumpersTable, RodsTable, WorkersTable, fmt } from './FigureTables';
+import { FindingsList } from './FindingsList';
+
+export interface PrintSheetProps { doc: PlanDocument; report: CheckReport | null; meta: SheetMeta; units: UnitSystem; drawing?: string | null }
+
+export const PrintSheet = forwardRef<HTMLDivElement, PrintSheetProps>(function PrintSheet({ doc, report, meta, units, drawing }, ref) {
+  const s = doc.system;
+  return (
+    <div ref={ref} className="bm-sheet space-y-4 bg-white p-6 text-ink" data-testid="print-sheet">
+      <header className="flex flex-wrap items-start justify-between gap-4 border-b border-ink pb-3">
+        <div>
+          <h1 className="text-2xl font-bold">{doc.title}</h1>
+          <p className="num">Plan {meta.planId} · revision {meta.revision} · {meta.status}</p>
+        </div>
+        <div className="min-w-[16rem] border border-ink p-2 text-sm" data-testid="approval-block">
+          <p className="font-bold">Approval</p>
+          <p>{meta.approval ? `Approved by ${meta.approval.by}, ${meta.approval.at}` : 'Not approved yet'}</p>
+        </div>
+      </header>
+      {drawing ? <img src={drawing} alt={`Drawing of ${doc.title}`} className="w-full border border-line" /> : <div className="bm-print-drawing-slot" />}
+      <section>
+        <h2 className="text-lg font-semibold">System data</h2>
+        <p className="num">
+          Fault current {fmt(s.faultKa)} kA · clearing time {fmt(s.clearingCycles)} cycles at {s.frequencyHz} Hz · X/R {fmt(s.xOverR)} · nominal {fmt(s.nominalKv)} kV ·
+          phase spacing {s.phaseSpacingM === undefined ? '—' : formatLength(s.phaseSpacingM, units)} · body criteria {doc.criteria?.bodyKg ?? 50} kg, {doc.criteria?.bodyOhms ?? 1000} Ω
+        </p>
+      </section>
+      <section>
+        <h2 className="text-lg font-semibold">Findings</h2>
+        {report ? <FindingsList findings={report.findings} /> : <p>Not checked.</p>}
+      </section>
+      {report && (
+        <section className="grid gap-4 md:grid-cols-2">
+          <div><h2 className="text-lg font-semibold">Workers</h2><WorkersTable report={report} /></div>
+          <div><h2 className="text-lg font-semibold">Jumpers</h2><JumpersTable report={report} doc={doc} /></div>
+          <div><h2 className="text-lg font-semibold">Rods</h2><RodsTable report={report} units={units} /></div>
+          <div><h2 className="text-lg font-semibold">Fault</h2><FaultTable report={report} /></div>
+        </section>
+      )}
+      <p className="border border-ink p-2 text-sm"><strong>Caution.</strong> {CAUTION}</p>
+    </div>
+  );
+});

@@ -1,0 +1,217 @@
+/**
+ * Pure edits of a plan document for the editor: each takes a document and returns a new one,
+ * never mutating its input, so undo is a list of earlier documents and every edit is testable
+ * without React.
+ */
+import type { LinkKind, NodeKind, PlanDocument, PlanLink, PlanNode } from '../../lib/schemas/plan';
+
+export interface Point { x: number; y: number }
+export interface Clipboard { nodes: PlanNode[]; links: PlanLink[] }
+
+const NODE_PREFIX: Record<NodeKind, string> = {
+  phase: 'PH', neutral: 'N', 'shield-wire': 'SW', structure: 'S', crossarm: 'X', hardware: 'H', 'cluster-bar': 'CB',
+  'ground-rod': 'R', earth: 'E', bucket: 'BK', truck: 'T', mat: 'M', 'pole-ground': 'PG', worker: 'W',
+};
+const LINK_PREFIX: Record<LinkKind, string> = { jumper: 'j', bond: 'b', reach: 'r' };
+
+export const KIND_LABELS: Record<NodeKind, string> = {
+  phase: 'Phase', neutral: 'Neutral', 'shield-wire': 'Shield wire', structure: 'Structure', crossarm: 'Crossarm',
+  hardware: 'Hardware', 'cluster-bar': 'Cluster bar', 'ground-rod': 'Ground rod', earth: 'Earth', bucket: 'Bucket',
+  truck: 'Truck', mat: 'Mat', 'pole-ground': 'Pole ground', worker: 'Worker',
+};
+export const LINK_LABELS: Record<LinkKind, string> = { jumper: 'Jumper', bond: 'Bond', reach: 'Reach' };
+
+/** Kinds a worker can stand on, in the order the editor prefers them for a new worker. */
+const STANDING = ['bucket', 'cluster-bar', 'mat', 'structure', 'truck', 'earth'] as const;
+
+export function allIds(doc: PlanDocument): Set<string> {
+  return new Set([...doc.nodes.map((n) => n.id), ...doc.links.map((l) => l.id)]);
+}
+
+/** The first free id with this prefix: "CB", "CB2", "CB3" … (or "j1", "j2" for links). */
+export function nextId(taken: Set<string>, prefix: string): string {
+  const numbered = prefix.length <= 1 || /[a-z]$/.test(prefix);
+  if (!numbered && !taken.has(prefix)) return prefix;
+  for (let i = numbered ? 1 : 2; ; i++) if (!taken.has(`${prefix}${i}`)) return `${prefix}${i}`;
+}
+
+export const snapPoint = (p: Point, grid: number): Point => ({ x: Math.round(p.x / grid) * grid, y: Math.round(p.y / grid) * grid });
+
+/** A new node of `kind` with the defaults a crew would start from (edit them in the inspector). */
+export function createNode(doc: PlanDocument, kind: NodeKind, position: Point, standsOn?: string): PlanNode {
+  const taken = allIds(doc);
+  const id = nextId(taken, NODE_PREFIX[kind]);
+  const base = { id, label: KIND_LABELS[kind], position };
+  switch (kind) {
+    case 'phase': {
+      const used = new Set(doc.nodes.filter((n) => n.kind === 'phase').map((n) => (n as { phase?: string }).phase));
+      const letter = ['A', 'B', 'C'].find((l) => !used.has(l)) ?? 'A';
+      const pid = taken.has(letter) ? id : letter;
+      return { ...base, id: pid, kind, phase: letter, label: `Phase ${letter}` } as PlanNode;
+    }
+    case 'structure':
+    case 'crossarm':
+      return { ...base, kind, material: 'wood' } as PlanNode;
+    case 'ground-rod':
+      return { ...base, kind, lengthM: 2.4, diameterMm: 16, soilOhmM: 100 } as PlanNode;
+    case 'bucket':
+      return { ...base, kind, insulatedBoom: true } as PlanNode;
+    case 'worker': {
+      const target = standsOn ?? pickStanding(doc);
+      return { ...base, kind, standsOn: target ?? 'E' } as PlanNode;
+    }
+    default:
+      return { ...base, kind } as PlanNode;
+  }
+}
+
+/** Where a new worker stands: the first bucket, cluster bar, mat, … in the plan. */
+export function pickStanding(doc: PlanDocument): string | undefined {
+  for (const kind of STANDING) {
+    const found = doc.nodes.find((n) => n.kind === kind);
+    if (found) return found.id;
+  }
+  return undefined;
+}
+
+/** Adds a node; a worker with nothing to stand on gets an earth node beside it. */
+export function addNode(doc: PlanDocument, kind: NodeKind, position: Point, standsOn?: string): { doc: PlanDocument; id: string } {
+  let next = doc;
+  if (kind === 'worker' && !standsOn && !pickStanding(doc)) {
+    const earth = createNode(doc, 'earth', { x: position.x, y: position.y + 120 });
+    next = { ...doc, nodes: [...doc.nodes, earth] };
+    standsOn = earth.id;
+  }
+  const node = createNode(next, kind, position, standsOn);
+  return { doc: { ...next, nodes: [...next.nodes, node] }, id: node.id };
+}
+
+export function moveNodes(doc: PlanDocument, moves: ReadonlyMap<string, Point>): PlanDocument {
+  if (moves.size === 0) return doc;
+  return { ...doc, nodes: doc.nodes.map((n) => (moves.has(n.id) ? ({ ...n, position: moves.get(n.id)! } as PlanNode) : n)) };
+}
+
+/**
+ * Removes nodes and links by id, with every link touching a removed node and every worker who
+ * stood on one (a worker must stand on something; leaving them would break the document).
+ */
+export function removeElements(doc: PlanDocument, ids: Iterable<string>): PlanDocument {
+  const gone = new Set(ids);
+  for (const n of doc.nodes) if (n.kind === 'worker' && gone.has(n.standsOn)) gone.add(n.id);
+  const nodes = doc.nodes.filter((n) => !gone.has(n.id));
+  const links = doc.links.filter((l) => !gone.has(l.id) && !gone.has(l.from) && !gone.has(l.to));
+  return nodes.length === doc.nodes.length && links.length === doc.links.length ? doc : { ...doc, nodes, links };
+}
+
+/** Why a link of this kind cannot join these two nodes, or null when it can. */
+export function linkProblem(doc: PlanDocument, kind: LinkKind, from: string, to: string): string | null {
+  if (from === to) return 'A link needs two different elements.';
+  const a = doc.nodes.find((n) => n.id === from);
+  const b = doc.nodes.find((n) => n.id === to);
+  if (!a || !b) return 'Both ends must be elements on the plan.';
+  if (kind === 'reach' && a.kind !== 'worker') return 'A reach starts at a worker: pick the worker first.';
+  if (kind === 'reach' && b.kind === 'worker') return 'A worker reaches a surface, not another worker.';
+  if (kind !== 'reach' && (a.kind === 'worker' || b.kind === 'worker')) return 'A worker is never a bonding path; join a worker with a reach.';
+  return null;
+}
+
+export function addLink(doc: PlanDocument, kind: LinkKind, from: string, to: string): { doc: PlanDocument; id: string } | { error: string } {
+  const problem = linkProblem(doc, kind, from, to);
+  if (problem) return { error: problem };
+  const id = nextId(allIds(doc), LINK_PREFIX[kind]);
+  const link: PlanLink =
+    kind === 'jumper' ? { id, kind, from, to, cable: '2/0', lengthM: 3 } : kind === 'bond' ? { id, kind, from, to } : { id, kind, from, to };
+  return { doc: { ...doc, links: [...doc.links, link] }, id };
+}
+
+/** Replaces one node or link (same id) with a new version. */
+export function replaceElement(doc: PlanDocument, element: PlanNode | PlanLink): PlanDocument {
+  if (doc.nodes.some((n) => n.id === element.id)) {
+    return { ...doc, nodes: doc.nodes.map((n) => (n.id === element.id ? (element as PlanNode) : n)) };
+  }
+  return { ...doc, links: doc.links.map((l) => (l.id === element.id ? (element as PlanLink) : l)) };
+}
+
+/** The selected nodes and the links among them (plus selected links whose both ends are copied too). */
+export function copyElements(doc: PlanDocument, ids: Iterable<string>): Clipboard {
+  const set = new Set(ids);
+  const nodes = doc.nodes.filter((n) => set.has(n.id));
+  const nodeIds = new Set(nodes.map((n) => n.id));
+  const links = doc.links.filter((l) => nodeIds.has(l.from) && nodeIds.has(l.to));
+  return structuredClone({ nodes, links });
+}
+
+/**
+ * Pastes a clipboard with fresh ids, shifted by `offset`. A worker whose standing node was not
+ * copied keeps standing on the original if it still exists, else on the first copied node it can.
+ */
+export function pasteClipboard(doc: PlanDocument, clip: Clipboard, offset: Point = { x: 40, y: 40 }): { doc: PlanDocument; ids: string[] } {
+  const taken = allIds(doc);
+  const map = new Map<string, string>();
+  for (const n of clip.nodes) {
+    const prefix = NODE_PREFIX[n.kind];
+    const id = nextId(taken, prefix);
+    taken.add(id);
+    map.set(n.id, id);
+  }
+  const existing = new Set(doc.nodes.map((n) => n.id));
+  const nodes = clip.nodes.map((n) => {
+    const p = n.position ?? { x: 0, y: 0 };
+    const copy = { ...n, id: map.get(n.id)!, position: { x: p.x + offset.x, y: p.y + offset.y } } as PlanNode;
+    if (copy.kind === 'worker') {
+      const stand = map.get(copy.standsOn) ?? (existing.has(copy.standsOn) ? copy.standsOn : undefined);
+      return { ...copy, standsOn: stand ?? pickStanding(doc) ?? copy.standsOn };
+    }
+    return copy;
+  });
+  const links = clip.links.map((l) => {
+    const id = nextId(taken, LINK_PREFIX[l.kind]);
+    taken.add(id);
+    return { ...l, id, from: map.get(l.from)!, to: map.get(l.to)! } as PlanLink;
+  });
+  const ids = [...nodes.map((n) => n.id), ...links.map((l) => l.id)];
+  return { doc: { ...doc, nodes: [...doc.nodes, ...nodes], links: [...doc.links, ...links] }, ids };
+}
+
+/** Gives every node without a position a place on a grid below the placed ones. */
+export function placeUnpositioned(doc: PlanDocument, columns = 8, gap = 160): PlanDocument {
+  if (doc.nodes.every((n) => n.position)) return doc;
+  const maxY = doc.nodes.reduce((m, n) => (n.position ? Math.max(m, n.position.y) : m), -gap);
+  let i = 0;
+  const nodes = doc.nodes.map((n) => {
+    if (n.position) return n;
+    const position = { x: (i % columns) * gap, y: maxY + gap + Math.floor(i / columns) * gap * 0.75 };
+    i++;
+    return { ...n, position } as PlanNode;
+  });
+  return { ...doc, nodes };
+}
+
+/** Tab order for keyboard navigation: nodes by row, then column. */
+export function readingOrder(doc: PlanDocument): string[] {
+  return [...doc.nodes]
+    .sort((a, b) => (a.position?.y ?? 0) - (b.position?.y ?? 0) || (a.position?.x ?? 0) - (b.position?.x ?? 0))
+    .map((n) => n.id);
+}
+
+/** The nearest node from `fromId` in a direction (for arrow-key navigation), or null. */
+export function nearestInDirection(doc: PlanDocument, fromId: string, dir: 'left' | 'right' | 'up' | 'down'): string | null {
+  const from = doc.nodes.find((n) => n.id === fromId)?.position;
+  if (!from) return null;
+  let best: string | null = null;
+  let bestScore = Infinity;
+  for (const n of doc.nodes) {
+    if (n.id === fromId || !n.position) continue;
+    const dx = n.position.x - from.x;
+    const dy = n.position.y - from.y;
+    const along = dir === 'left' ? -dx : dir === 'right' ? dx : dir === 'up' ? -dy : dy;
+    const across = dir === 'left' || dir === 'right' ? Math.abs(dy) : Math.abs(dx);
+    if (along <= 0) continue;
+    const score = along + 2 * across;
+    if (score < bestScore) {
+      bestScore = score;
+      best = n.id;
+    }
+  }
+  return best;
+}

@@ -1,0 +1,98 @@
+/**
+ * Reading the editor store from React, and the derived views the canvas needs: React Flow nodes
+ * and edges built from the plan document (identity kept per element so memo'd nodes skip
+ * re-rendering), and the worst finding severity per element.
+ */
+import { createContext, useContext } from 'react';
+import type { Edge, Node } from 'reactflow';
+import { useStore } from 'zustand';
+import type { CheckReport, ReportContact, Severity } from '../../lib/domain/report';
+import type { PlanDocument, PlanLink, PlanNode } from '../../lib/schemas/plan';
+import type { EditorActions, EditorState, EditorStore } from './store';
+
+export const EditorStoreContext = createContext<EditorStore | null>(null);
+
+export function useEditor<T>(selector: (s: EditorState & EditorActions) => T): T {
+  const store = useContext(EditorStoreContext);
+  if (!store) throw new Error('useEditor outside <EditorStoreContext.Provider>');
+  return useStore(store, selector);
+}
+
+export function useEditorStore(): EditorStore {
+  const store = useContext(EditorStoreContext);
+  if (!store) throw new Error('useEditorStore outside <EditorStoreContext.Provider>');
+  return store;
+}
+
+const RANK: Record<Severity, number> = { blocker: 3, warning: 2, note: 1 };
+
+const severityCache = new WeakMap<CheckReport, Map<string, Severity>>();
+/** The worst severity of any finding naming each element. */
+export function severityByElement(report: CheckReport | null): Map<string, Severity> {
+  if (!report) return new Map();
+  let map = severityCache.get(report);
+  if (!map) {
+    map = new Map();
+    for (const f of report.findings) {
+      for (const id of f.elements) {
+        const prev = map.get(id);
+        if (!prev || RANK[f.severity] > RANK[prev]) map.set(id, f.severity);
+      }
+    }
+    severityCache.set(report, map);
+  }
+  return map;
+}
+
+/** The contact with the highest share of its limit for a worker, or null when none was solved. */
+export function worstContact(report: CheckReport | null, workerId: string): ReportContact | null {
+  if (!report) return null;
+  let worst: ReportContact | null = null;
+  let worstRatio = -1;
+  for (const c of report.contacts) {
+    if (c.worker !== workerId || c.bodyAmps === null || !c.limitAmps) continue;
+    const ratio = c.bodyAmps / c.limitAmps;
+    if (ratio > worstRatio) {
+      worstRatio = ratio;
+      worst = c;
+    }
+  }
+  return worst;
+}
+
+export const selectSeverityOf = (id: string) => (s: EditorState) => severityByElement(s.report).get(id) ?? null;
+export const selectSelection = (s: EditorState) => s.selection;
+export const selectDoc = (s: EditorState) => s.doc;
+
+const nodeCache = new WeakMap<PlanNode, { selected: boolean; rf: Node<PlanNode> }[]>();
+/** React Flow nodes for the document; `data` is the plan node itself (saveable data only). */
+export function toFlowNodes(doc: PlanDocument, selection: readonly string[], draggable = true): Node<PlanNode>[] {
+  const selected = new Set(selection);
+  return doc.nodes.map((n) => {
+    const isSelected = selected.has(n.id);
+    const cached = nodeCache.get(n)?.find((c) => c.selected === isSelected && c.rf.draggable === draggable);
+    if (cached) return cached.rf;
+    const rf: Node<PlanNode> = { id: n.id, type: n.kind, position: n.position ?? { x: 0, y: 0 }, data: n, selected: isSelected, draggable };
+    nodeCache.set(n, [...(nodeCache.get(n) ?? []).slice(-1), { selected: isSelected, rf }]);
+    return rf;
+  });
+}
+
+const edgeCache = new WeakMap<PlanLink, { selected: boolean; rf: Edge<PlanLink> }[]>();
+export function toFlowEdges(doc: PlanDocument, selection: readonly string[]): Edge<PlanLink>[] {
+  const selected = new Set(selection);
+  return doc.links.map((l) => {
+    const isSelected = selected.has(l.id);
+    const cached = edgeCache.get(l)?.find((c) => c.selected === isSelected);
+    if (cached) return cached.rf;
+    const rf: Edge<PlanLink> = { id: l.id, type: l.kind, source: l.from, target: l.to, data: l, selected: isSelected };
+    edgeCache.set(l, [...(edgeCache.get(l) ?? []).slice(-1), { selected: isSelected, rf }]);
+    return rf;
+  });
+}
+
+export function findElement(doc: PlanDocument, id: string): PlanNode | PlanLink | undefined {
+  return doc.nodes.find((n) => n.id === id) ?? doc.links.find((l) => l.id === id);
+}
+
+export const isLink = (e: PlanNode | PlanLink): e is PlanLink => e.kind === 'jumper' || e.kind === 'bond' || e.kind === 'reach';

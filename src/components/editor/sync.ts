@@ -1,0 +1,188 @@
+/**
+ * Keeps the editor and the server in step: the live check ~400 ms after a change, autosave
+ * ~1.5 s after changes stop, a copy of unsaved work in localStorage (keyed by plan id and base
+ * revision) so a reload or a lost connection loses nothing, and a retry when the connection
+ * returns. Framework-free: takes the store, the API and the browser objects it needs.
+ */
+import type { PlanDocument } from '../../lib/schemas/plan';
+import type { EditorApi } from './api-client';
+import type { EditorStore } from './store';
+
+export interface SyncOptions {
+  planId: number;
+  api: EditorApi;
+  storage?: Pick<Storage, 'getItem' | 'setItem' | 'removeItem' | 'key' | 'length'> | null;
+  target?: Pick<Window, 'addEventListener' | 'removeEventListener'> | null;
+  checkDelayMs?: number;
+  saveDelayMs?: number;
+  retryMs?: number;
+  /** Run the check once at start (when the stored report is missing or a draft was restored). */
+  checkNow?: boolean;
+}
+
+const PREFIX = 'bondmap:draft:';
+export const draftKey = (planId: number, baseRevision: number) => `${PREFIX}${planId}:${baseRevision}`;
+
+interface StoredDraft { doc: PlanDocument; savedAt: string }
+
+/** The newest unsaved copy of a plan kept on this device, with the revision it was edited from. */
+export function readLocalDraft(storage: SyncOptions['storage'], planId: number): { doc: PlanDocument; baseRevision: number } | null {
+  if (!storage) return null;
+  let best: { doc: PlanDocument; baseRevision: number } | null = null;
+  for (let i = 0; i < storage.length; i++) {
+    const key = storage.key(i);
+    if (!key?.startsWith(`${PREFIX}${planId}:`)) continue;
+    const rev = Number(key.slice(`${PREFIX}${planId}:`.length));
+    try {
+      const draft = JSON.parse(storage.getItem(key) ?? 'null') as StoredDraft | null;
+      if (draft?.doc && (!best || rev > best.baseRevision)) best = { doc: draft.doc, baseRevision: rev };
+    } catch {
+      storage.removeItem(key);
+    }
+  }
+  return best;
+}
+
+export function clearLocalDrafts(storage: SyncOptions['storage'], planId: number): void {
+  if (!storage) return;
+  const keys: string[] = [];
+  for (let i = 0; i < storage.length; i++) {
+    const key = storage.key(i);
+    if (key?.startsWith(`${PREFIX}${planId}:`)) keys.push(key);
+  }
+  keys.forEach((k) => storage.removeItem(k));
+}
+
+export interface SyncHandle {
+  saveNow(): Promise<void>;
+  checkNow(): void;
+  stop(): void;
+}
+
+export function startSync(store: EditorStore, opts: SyncOptions): SyncHandle {
+  const { planId, api, storage = null, target = null, checkDelayMs = 400, saveDelayMs = 1500, retryMs = 10000 } = opts;
+  let checkTimer: ReturnType<typeof setTimeout> | undefined;
+  let saveTimer: ReturnType<typeof setTimeout> | undefined;
+  let localTimer: ReturnType<typeof setTimeout> | undefined;
+  let checkAbort: AbortController | null = null;
+  let checkSeq = 0;
+  let saving = false;
+  let stopped = false;
+
+  const runCheck = async () => {
+    const seq = ++checkSeq;
+    checkAbort?.abort();
+    checkAbort = new AbortController();
+    store.getState().setCheckState('checking', store.getState().checkIssues);
+    try {
+      const r = await api.check(store.getState().doc, checkAbort.signal);
+      if (seq !== checkSeq || stopped) return;
+      if (r.kind === 'ok') store.getState().receiveReport(r.report);
+      else if (r.kind === 'invalid') store.getState().setCheckState('invalid', r.issues);
+      else if (r.kind === 'offline') store.getState().setCheckState('offline');
+      else store.getState().setCheckState('offline');
+    } catch {
+      // aborted by a newer check
+    }
+  };
+  const scheduleCheck = () => {
+    clearTimeout(checkTimer);
+    checkTimer = setTimeout(runCheck, checkDelayMs);
+  };
+
+  const writeLocal = () => {
+    const s = store.getState();
+    if (!storage || s.readOnly || s.version === s.savedVersion) return;
+    try {
+      clearLocalDrafts(storage, planId);
+      storage.setItem(draftKey(planId, s.baseRevision), JSON.stringify({ doc: s.doc, savedAt: new Date().toISOString() } satisfies StoredDraft));
+    } catch {
+      // storage full or disabled: the server copy is the only one
+    }
+  };
+
+  const save = async (): Promise<void> => {
+    const s = store.getState();
+    if (stopped || s.readOnly || s.saveState === 'conflict' || s.saveState === 'locked' || s.version === s.savedVersion) return;
+    if (saving) {
+      scheduleSave();
+      return;
+    }
+    saving = true;
+    const version = s.version;
+    store.getState().setSaveState('saving');
+    const r = await api.save(planId, { expectedRevision: s.baseRevision, title: s.doc.title, document: s.doc });
+    saving = false;
+    if (stopped) return;
+    const now = store.getState();
+    switch (r.kind) {
+      case 'saved':
+        now.markSaved(version, r.plan.currentRevision);
+        if (store.getState().version === version) clearLocalDrafts(storage, planId);
+        else {
+          writeLocal();
+          scheduleSave();
+        }
+        break;
+      case 'stale':
+        now.setSaveState('conflict', { conflict: { currentRevision: r.currentRevision, document: r.current?.document ?? null } });
+        break;
+      case 'not-editable':
+        now.setSaveState('locked');
+        now.showMessage('This plan can no longer be edited (it was submitted or approved). Your changes stay on this device; export them as JSON if you need them.');
+        break;
+      case 'invalid':
+        now.setSaveState('invalid', { issues: r.issues });
+        break;
+      case 'offline':
+      case 'error':
+        now.setSaveState('offline');
+        clearTimeout(saveTimer);
+        saveTimer = setTimeout(save, retryMs);
+        break;
+    }
+  };
+  const scheduleSave = () => {
+    clearTimeout(saveTimer);
+    saveTimer = setTimeout(save, saveDelayMs);
+  };
+
+  const unsubscribe = store.subscribe((state, prev) => {
+    if (state.doc !== prev.doc) scheduleCheck();
+    if (state.version !== prev.version && !state.readOnly) {
+      clearTimeout(localTimer);
+      localTimer = setTimeout(writeLocal, 200);
+      scheduleSave();
+    }
+  });
+  const onOnline = () => {
+    if (store.getState().saveState === 'offline') void save();
+    if (store.getState().checkState === 'offline') void runCheck();
+  };
+  const onOffline = () => {
+    const s = store.getState();
+    if (s.version !== s.savedVersion && !s.readOnly && s.saveState !== 'conflict') s.setSaveState('offline');
+  };
+  target?.addEventListener('online', onOnline);
+  target?.addEventListener('offline', onOffline);
+  if (opts.checkNow) void runCheck();
+
+  return {
+    saveNow: () => {
+      clearTimeout(saveTimer);
+      writeLocal();
+      return save();
+    },
+    checkNow: () => void runCheck(),
+    stop() {
+      stopped = true;
+      clearTimeout(checkTimer);
+      clearTimeout(saveTimer);
+      clearTimeout(localTimer);
+      writeLocal();
+      unsubscribe();
+      target?.removeEventListener('online', onOnline);
+      target?.removeEventListener('offline', onOffline);
+    },
+  };
+}

@@ -1,0 +1,91 @@
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { findStarter } from '../../../src/lib/domain/starters';
+import type { EditorApi, SaveResult } from '../../../src/components/editor/api-client';
+import { createEditorStore } from '../../../src/components/editor/store';
+import { draftKey, readLocalDraft, startSync } from '../../../src/components/editor/sync';
+
+class MemoryStorage {
+  map = new Map<string, string>();
+  get length() { return this.map.size; }
+  key(i: number) { return [...this.map.keys()][i] ?? null; }
+  getItem(k: string) { return this.map.get(k) ?? null; }
+  setItem(k: string, v: string) { this.map.set(k, v); }
+  removeItem(k: string) { this.map.delete(k); }
+}
+
+const report = { format: 'bondmap-check', version: 1, ok: true, summary: { blockers: 0, warnings: 0, notes: 0 }, findings: [], fault: {}, tolerableBodyAmps: 0.2, zones: [], contacts: [], jumpers: [], rods: [], caution: '' } as never;
+
+function setup(saveAnswers: SaveResult[]) {
+  const store = createEditorStore({ doc: findStarter('tangent-bucket')!.build(), baseRevision: 2 });
+  const api: EditorApi = {
+    check: vi.fn(async () => ({ kind: 'ok' as const, report })),
+    save: vi.fn(async (_id, body) => saveAnswers.shift() ?? { kind: 'saved' as const, plan: { currentRevision: body.expectedRevision + 1 } as never }),
+  };
+  const storage = new MemoryStorage();
+  const events = new EventTarget();
+  const sync = startSync(store, { planId: 7, api, storage, target: events as never });
+  return { store, api, storage, events, sync };
+}
+
+beforeEach(() => vi.useFakeTimers());
+afterEach(() => vi.useRealTimers());
+
+describe('sync', () => {
+  it('checks ~400 ms after a change and saves ~1.5 s after changes stop', async () => {
+    const { store, api, sync } = setup([]);
+    store.getState().addNode('mat', { x: 0, y: 0 });
+    await vi.advanceTimersByTimeAsync(300);
+    expect(api.check).not.toHaveBeenCalled();
+    store.getState().addNode('truck', { x: 200, y: 0 });
+    await vi.advanceTimersByTimeAsync(450);
+    expect(api.check).toHaveBeenCalledTimes(1);
+    expect(store.getState().report).toBe(report);
+    expect(api.save).not.toHaveBeenCalled();
+    await vi.advanceTimersByTimeAsync(1200);
+    expect(api.save).toHaveBeenCalledTimes(1);
+    expect(vi.mocked(api.save).mock.calls[0][1].expectedRevision).toBe(2);
+    expect(store.getState()).toMatchObject({ saveState: 'saved', baseRevision: 3 });
+    sync.stop();
+  });
+
+  it('keeps unsaved work on the device, goes offline, and sends it when the connection returns', async () => {
+    const { store, api, storage, events, sync } = setup([{ kind: 'offline' }]);
+    store.getState().addNode('mat', { x: 0, y: 0 });
+    await vi.advanceTimersByTimeAsync(300);
+    expect(readLocalDraft(storage, 7)?.baseRevision).toBe(2);
+    expect(storage.getItem(draftKey(7, 2))).toContain('"M1"');
+    await vi.advanceTimersByTimeAsync(1500);
+    expect(store.getState().saveState).toBe('offline');
+    events.dispatchEvent(new Event('online'));
+    await vi.advanceTimersByTimeAsync(0);
+    expect(api.save).toHaveBeenCalledTimes(2);
+    expect(store.getState().saveState).toBe('saved');
+    expect(readLocalDraft(storage, 7)).toBeNull();
+    sync.stop();
+  });
+
+  it('stops on a stale revision with the conflict, and "keep mine" re-sends on the server revision', async () => {
+    const { store, api, sync } = setup([{ kind: 'stale', currentRevision: 5, current: null }]);
+    store.getState().addNode('mat', { x: 0, y: 0 });
+    await vi.advanceTimersByTimeAsync(2000);
+    expect(store.getState().saveState).toBe('conflict');
+    expect(store.getState().conflict?.currentRevision).toBe(5);
+    store.getState().addNode('truck', { x: 0, y: 0 });
+    await vi.advanceTimersByTimeAsync(2000);
+    expect(api.save).toHaveBeenCalledTimes(1); // nothing sent while the conflict is open
+    store.getState().keepMine();
+    await sync.saveNow();
+    expect(vi.mocked(api.save).mock.calls[1][1].expectedRevision).toBe(5);
+    expect(store.getState()).toMatchObject({ saveState: 'saved', baseRevision: 6 });
+    sync.stop();
+  });
+
+  it('shows a refused document as "invalid" with its issues', async () => {
+    const { store, sync } = setup([{ kind: 'invalid', issues: [{ path: 'nodes[0].id', message: 'must not be empty' }] }]);
+    store.getState().addNode('mat', { x: 0, y: 0 });
+    await vi.advanceTimersByTimeAsync(2000);
+    expect(store.getState().saveState).toBe('invalid');
+    expect(store.getState().saveIssues[0].path).toBe('nodes[0].id');
+    sync.stop();
+  });
+});
