@@ -15,9 +15,9 @@ function document(title: string, nodes: PlanNode[], links: PlanLink[]): PlanDocu
 }
 
 const phases = (y: number): PlanNode[] => [
-  { id: 'A', kind: 'phase', phase: 'A', label: 'Phase A', position: { x: 80, y } },
-  { id: 'B', kind: 'phase', phase: 'B', label: 'Phase B', position: { x: 240, y } },
-  { id: 'C', kind: 'phase', phase: 'C', label: 'Phase C', position: { x: 400, y } },
+  { id: 'A', kind: 'phase', phase: 'A', label: 'Phase A', position: { x: 60, y } },
+  { id: 'B', kind: 'phase', phase: 'B', label: 'Phase B', position: { x: 300, y } },
+  { id: 'C', kind: 'phase', phase: 'C', label: 'Phase C', position: { x: 540, y } },
 ];
 
 export interface DemoPlan {
@@ -41,11 +41,11 @@ export const DEMO_PLANS: DemoPlan[] = [
       'Pole 14 on Wren Hollow Road, bucket work',
       [
         ...phases(40),
-        { id: 'N', kind: 'neutral', label: 'Neutral', groundOhms: 5, position: { x: 240, y: 200 } },
-        { id: 'P14', kind: 'structure', material: 'wood', label: 'Pole 14', position: { x: 240, y: 320 } },
-        { id: 'CB', kind: 'cluster-bar', label: 'Cluster bar', position: { x: 240, y: 130 } },
-        { id: 'BK', kind: 'bucket', insulatedBoom: true, label: 'Bucket', position: { x: 480, y: 140 } },
-        { id: 'W1', kind: 'worker', standsOn: 'BK', label: 'Lineworker in bucket', position: { x: 560, y: 80 } },
+        { id: 'N', kind: 'neutral', label: 'Neutral', groundOhms: 5, position: { x: 300, y: 360 } },
+        { id: 'P14', kind: 'structure', material: 'wood', label: 'Pole 14', position: { x: 60, y: 460 } },
+        { id: 'CB', kind: 'cluster-bar', label: 'Cluster bar', position: { x: 300, y: 200 } },
+        { id: 'BK', kind: 'bucket', insulatedBoom: true, label: 'Bucket', position: { x: 560, y: 240 } },
+        { id: 'W1', kind: 'worker', standsOn: 'BK', label: 'Lineworker in bucket', position: { x: 760, y: 140 } },
       ],
       [
         jumper('jA', 'A', 'CB', '2/0', 2.4, 2.0),
@@ -67,11 +67,11 @@ export const DEMO_PLANS: DemoPlan[] = [
       'Pole 31 at Millrace Crossing, climber',
       [
         ...phases(40),
-        { id: 'N', kind: 'neutral', label: 'Neutral', groundOhms: 8, position: { x: 240, y: 220 } },
-        { id: 'P31', kind: 'structure', material: 'wood', label: 'Pole 31', position: { x: 240, y: 330 } },
-        { id: 'XA', kind: 'crossarm', material: 'wood', label: 'Crossarm', position: { x: 240, y: 90 } },
-        { id: 'CB', kind: 'cluster-bar', label: 'Cluster bar at the climber\'s feet', position: { x: 240, y: 160 } },
-        { id: 'W1', kind: 'worker', standsOn: 'CB', label: 'Climber', position: { x: 420, y: 170 } },
+        { id: 'N', kind: 'neutral', label: 'Neutral', groundOhms: 8, position: { x: 300, y: 360 } },
+        { id: 'P31', kind: 'structure', material: 'wood', label: 'Pole 31', position: { x: 60, y: 460 } },
+        { id: 'XA', kind: 'crossarm', material: 'wood', label: 'Crossarm', position: { x: 60, y: 200 } },
+        { id: 'CB', kind: 'cluster-bar', label: 'Cluster bar at the climber\'s feet', position: { x: 300, y: 200 } },
+        { id: 'W1', kind: 'worker', standsOn: 'CB', label: 'Climber', position: { x: 540, y: 260 } },
       ],
       [
         jumper('jA', 'A', 'CB', '2/0', 2.4, 2.0),
@@ -93,12 +93,12 @@ export const DEMO_PLANS: DemoPlan[] = [
       'Riser pole 7 behind the Fernbrook depot, ground crew',
       [
         ...phases(40),
-        { id: 'N', kind: 'neutral', label: 'Neutral', groundOhms: 5, position: { x: 240, y: 200 } },
-        { id: 'P7', kind: 'structure', material: 'wood', label: 'Pole 7', position: { x: 240, y: 320 } },
-        { id: 'CB', kind: 'cluster-bar', label: 'Cluster bar', position: { x: 240, y: 130 } },
-        { id: 'TR', kind: 'truck', label: 'Line truck', position: { x: 520, y: 300 } },
-        { id: 'M', kind: 'mat', label: 'Mat at the truck', position: { x: 620, y: 420 } },
-        { id: 'W2', kind: 'worker', standsOn: 'M', label: 'Ground worker at the truck', position: { x: 620, y: 360 } },
+        { id: 'N', kind: 'neutral', label: 'Neutral', groundOhms: 5, position: { x: 300, y: 360 } },
+        { id: 'P7', kind: 'structure', material: 'wood', label: 'Pole 7', position: { x: 60, y: 460 } },
+        { id: 'CB', kind: 'cluster-bar', label: 'Cluster bar', position: { x: 300, y: 200 } },
+        { id: 'TR', kind: 'truck', label: 'Line truck', position: { x: 560, y: 420 } },
+        { id: 'M', kind: 'mat', label: 'Mat at the truck', position: { x: 780, y: 540 } },
+        { id: 'W2', kind: 'worker', standsOn: 'M', label: 'Ground worker at the truck', position: { x: 800, y: 400 } },
       ],
       [
         jumper('jA', 'A', 'CB', '2/0', 2.4, 2.0),
@@ -119,10 +119,10 @@ export const DEMO_PLANS: DemoPlan[] = [
       'Pole 22 on Thistle Lane, new draft',
       [
         ...phases(40),
-        { id: 'N', kind: 'neutral', label: 'Neutral', position: { x: 240, y: 200 } },
-        { id: 'P22', kind: 'structure', material: 'wood', label: 'Pole 22', position: { x: 240, y: 320 } },
-        { id: 'CB', kind: 'cluster-bar', label: 'Cluster bar', position: { x: 240, y: 130 } },
-        { id: 'W1', kind: 'worker', standsOn: 'P22', label: 'Climber', position: { x: 420, y: 170 } },
+        { id: 'N', kind: 'neutral', label: 'Neutral', position: { x: 300, y: 360 } },
+        { id: 'P22', kind: 'structure', material: 'wood', label: 'Pole 22', position: { x: 60, y: 460 } },
+        { id: 'CB', kind: 'cluster-bar', label: 'Cluster bar', position: { x: 300, y: 200 } },
+        { id: 'W1', kind: 'worker', standsOn: 'P22', label: 'Climber', position: { x: 540, y: 260 } },
       ],
       [jumper('jA', 'A', 'CB', '2/0', 2.4, 2.0), jumper('jN', 'CB', 'N', '2/0', 1.8, 1.5), reach('rA', 'W1', 'A'), reach('rB', 'W1', 'B')],
     ),
@@ -137,9 +137,9 @@ export const OTHER_ORG_PLAN: DemoPlan = {
     'Tower 3 on the Quillback line',
     [
       ...phases(40),
-      { id: 'SW', kind: 'shield-wire', label: 'Shield wire', groundOhms: 10, position: { x: 240, y: -40 } },
-      { id: 'T3', kind: 'structure', material: 'steel', label: 'Tower 3', groundOhms: 15, position: { x: 240, y: 300 } },
-      { id: 'W1', kind: 'worker', standsOn: 'T3', label: 'Climber on the tower', position: { x: 420, y: 160 } },
+      { id: 'SW', kind: 'shield-wire', label: 'Shield wire', groundOhms: 10, position: { x: 300, y: -120 } },
+      { id: 'T3', kind: 'structure', material: 'steel', label: 'Tower 3', groundOhms: 15, position: { x: 300, y: 260 } },
+      { id: 'W1', kind: 'worker', standsOn: 'T3', label: 'Climber on the tower', position: { x: 560, y: 200 } },
     ],
     [
       jumper('jA', 'A', 'T3', '4/0', 3, 2.5),

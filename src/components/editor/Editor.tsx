@@ -32,10 +32,16 @@ export interface EditorProps {
   plan: { id: number; title: string; status: PlanStatus; currentRevision: number; document: PlanDocument; report: CheckReport | null };
   readOnly: boolean;
   role: string;
+  /** The approval of the revision shown, for the print sheet and PDF (null until approved). */
+  approval?: SheetMeta['approval'];
+  /** Review comments pinned to elements: element id → comment numbers. */
+  pins?: Record<string, number[]>;
+  /** May this person submit the plan for review from the top bar? */
+  canSubmit?: boolean;
 }
 
-function initStore(plan: EditorProps['plan'], readOnly: boolean): { store: EditorStore; restored: boolean } {
-  const store = createEditorStore({ doc: plan.document, baseRevision: plan.currentRevision, readOnly, report: plan.report });
+function initStore(plan: EditorProps['plan'], readOnly: boolean, pins: EditorProps['pins']): { store: EditorStore; restored: boolean } {
+  const store = createEditorStore({ doc: plan.document, baseRevision: plan.currentRevision, readOnly, report: plan.report, pins });
   if (readOnly || typeof localStorage === 'undefined') return { store, restored: false };
   const draft = readLocalDraft(localStorage, plan.id);
   if (!draft || draft.baseRevision > plan.currentRevision) return { store, restored: false };
@@ -48,8 +54,8 @@ function initStore(plan: EditorProps['plan'], readOnly: boolean): { store: Edito
   return { store, restored: true };
 }
 
-export default function Editor({ plan, readOnly }: EditorProps) {
-  const [{ store, restored }] = useState(() => initStore(plan, readOnly));
+export default function Editor({ plan, readOnly, approval = null, pins, canSubmit = false }: EditorProps) {
+  const [{ store, restored }] = useState(() => initStore(plan, readOnly, pins));
   const rf = useRef<ReactFlowInstance | null>(null);
   const sync = useRef<SyncHandle | null>(null);
   const sheet = useRef<HTMLDivElement>(null);
@@ -184,7 +190,25 @@ export default function Editor({ plan, readOnly }: EditorProps) {
     return () => window.removeEventListener('keydown', onKey);
   }, [store]);
 
-  const meta: SheetMeta = { planId: plan.id, revision: baseRevision, status: plan.status, approval: null };
+  const meta: SheetMeta = { planId: plan.id, revision: baseRevision, status: plan.status, approval };
+  // Submitting saves first (the server checks what it has), then reloads into the read-only view.
+  const doSubmit = async () => {
+    setBusy('Submitting…');
+    try {
+      await sync.current?.saveNow();
+      const s = store.getState();
+      if (s.saveState !== 'saved') return s.showMessage('Save the plan first: it has changes the server does not have yet.');
+      const response = await fetch(`/api/plans/${plan.id}/submit`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: '{}' });
+      if (response.ok) return window.location.reload();
+      const body = (await response.json().catch(() => null)) as { error?: { message?: string; blockers?: { message: string }[] } } | null;
+      const blockers = body?.error?.blockers ?? [];
+      s.showMessage(`${body?.error?.message ?? 'The plan could not be submitted.'}${blockers.length ? ` First: ${blockers[0].message}` : ''}`);
+    } catch {
+      store.getState().showMessage('The plan could not be submitted: the server cannot be reached. Try again when the connection is back.');
+    } finally {
+      setBusy(null);
+    }
+  };
   const doExport = async (what: 'png' | 'pdf' | 'json') => {
     const s = store.getState();
     const base = fileBase(s.doc, meta);
@@ -229,7 +253,8 @@ export default function Editor({ plan, readOnly }: EditorProps) {
       <ReactFlowProvider>
         <div className="bm-editor flex h-[calc(100vh-57px)] min-h-[560px] flex-col bg-paper" data-testid="editor" data-ready="true">
           <TopBar status={plan.status} busy={busy} onFit={() => rf.current?.fitView({ padding: 0.2, duration: 200 })} onCheck={() => sync.current?.checkNow()}
-            onRetrySave={() => void sync.current?.saveNow()} onExport={(w) => void doExport(w)} onImport={(f) => void doImport(f)} />
+            onRetrySave={() => void sync.current?.saveNow()} onExport={(w) => void doExport(w)} onImport={(f) => void doImport(f)}
+            onSubmit={canSubmit && !readOnly ? () => void doSubmit() : undefined} historyHref={`/plans/${plan.id}/history`} />
           {message && (
             <div className="no-print flex items-center gap-3 border-b border-line bg-white px-4 py-1 text-sm" role="status" data-testid="editor-message">
               <span className="flex-1">{message}</span>

@@ -42,6 +42,8 @@ export interface EditorState {
   saveState: SaveState;
   saveIssues: PlanIssue[];
   conflict: ConflictInfo | null;
+  /** Review comments pinned to elements: element id → the comment numbers shown on the canvas. */
+  pins: Record<string, number[]>;
 }
 
 export interface EditorActions {
@@ -88,6 +90,7 @@ export interface EditorInit {
   readOnly?: boolean;
   units?: UnitSystem;
   report?: CheckReport | null;
+  pins?: Record<string, number[]>;
 }
 
 export function createEditorStore(init: EditorInit): EditorStore {
@@ -129,6 +132,7 @@ export function createEditorStore(init: EditorInit): EditorStore {
       saveState: init.readOnly ? 'locked' : 'saved',
       saveIssues: [],
       conflict: null,
+      pins: init.pins ?? {},
 
       addNode(kind, position) {
         const { doc, id } = ops.addNode(get().doc, kind, place(position));

@@ -37,6 +37,7 @@ function SeverityBadge({ x, y, severity }: { x: number; y: number; severity: 'bl
 
 export const LinkEdge = memo(function LinkEdge({ id, sourceX, sourceY, targetX, targetY, data, selected }: EdgeProps<PlanLink>) {
   const severity = useEditor(selectSeverityOf(id));
+  const pins = useEditor((s) => s.pins[id]);
   if (!data) return null;
   const dx = targetX - sourceX;
   const dy = targetY - sourceY;
@@ -65,6 +66,16 @@ export const LinkEdge = memo(function LinkEdge({ id, sourceX, sourceY, targetX, 
         </g>
       )}
       {severity && <SeverityBadge x={midX + (tag ? tag.length * 4 + 18 : 0)} y={midY + 18} severity={severity} />}
+      {pins?.length ? (
+        <g data-testid={`pin-${id}`} transform={`translate(${midX - (tag ? tag.length * 4 + 20 : 0)} ${midY - 18})`}>
+          {pins.map((n, i) => (
+            <g key={n} transform={`translate(${-i * 26} 0)`}>
+              <circle r={11} fill={INK} />
+              <text y={4} textAnchor="middle" fontSize={11} fontWeight={700} fill="white">{n}</text>
+            </g>
+          ))}
+        </g>
+      ) : null}
     </g>
   );
 });

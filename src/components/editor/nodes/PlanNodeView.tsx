@@ -28,6 +28,19 @@ function WorkerBadge({ id }: { id: string }) {
   );
 }
 
+/** The numbers of review comments pinned to this element, as round ink markers. */
+export function PinMarkers({ id, className }: { id: string; className: string }) {
+  const numbers = useEditor((s) => s.pins[id]);
+  if (!numbers?.length) return null;
+  return (
+    <span className={`flex gap-0.5 ${className}`} data-testid={`pin-${id}`} title={`Review comment${numbers.length > 1 ? 's' : ''} ${numbers.join(', ')}`}>
+      {numbers.map((n) => (
+        <span key={n} className="flex h-6 min-w-6 items-center justify-center rounded-full bg-ink px-1 text-xs font-bold text-white num">{n}</span>
+      ))}
+    </span>
+  );
+}
+
 export const PlanNodeView = memo(function PlanNodeView({ id, data, selected }: NodeProps<PlanNode>) {
   const severity = useEditor(selectSeverityOf(id));
   const linkFrom = useEditor((s) => s.linkFrom === id);
@@ -52,6 +65,7 @@ export const PlanNodeView = memo(function PlanNodeView({ id, data, selected }: N
           </span>
         )}
         {data.kind === 'worker' && <WorkerBadge id={id} />}
+        <PinMarkers id={id} className="absolute -right-3 -top-3" />
       </div>
       <div className="mt-1 max-w-[8rem] text-center text-xs leading-tight">
         <span className="font-semibold">{id}</span>

@@ -24,6 +24,7 @@ export const PrintSheet = forwardRef<HTMLDivElement, PrintSheetProps>(function P
         <div className="min-w-[16rem] border border-ink p-2 text-sm" data-testid="approval-block">
           <p className="font-bold">Approval</p>
           <p>{meta.approval ? `Approved by ${meta.approval.by}, ${meta.approval.at}` : 'Not approved yet'}</p>
+          {meta.approval?.hash && <p className="break-all text-xs">Document SHA-256 {meta.approval.hash}</p>}
         </div>
       </header>
       {drawing ? <img src={drawing} alt={`Drawing of ${doc.title}`} className="w-full border border-line" /> : <div className="bm-print-drawing-slot" />}

@@ -12,6 +12,9 @@ export interface TopBarProps {
   onRetrySave: () => void;
   onExport: (what: 'png' | 'pdf' | 'json') => void;
   onImport: (file: File) => void;
+  /** Present when this person may submit the plan for review now. */
+  onSubmit?: () => void;
+  historyHref: string;
   busy: string | null;
 }
 
@@ -29,7 +32,7 @@ function TitleField() {
   );
 }
 
-export function TopBar({ status, onFit, onCheck, onRetrySave, onExport, onImport, busy }: TopBarProps) {
+export function TopBar({ status, onFit, onCheck, onRetrySave, onExport, onImport, onSubmit, historyHref, busy }: TopBarProps) {
   const saveState = useEditor((s) => s.saveState);
   const revision = useEditor((s) => s.baseRevision);
   const readOnly = useEditor((s) => s.readOnly);
@@ -43,7 +46,7 @@ export function TopBar({ status, onFit, onCheck, onRetrySave, onExport, onImport
   const [exportOpen, setExportOpen] = useState(false);
   return (
     <div className="no-print flex flex-wrap items-center gap-2 border-b border-line bg-white px-3 py-1" data-testid="topbar">
-      <div className="flex min-w-[14rem] flex-1 items-center gap-3">
+      <div className="flex min-w-[20rem] flex-1 items-center gap-3">
         <TitleField />
         <StatusBadge status={status} />
         <span className="whitespace-nowrap text-sm text-note num" data-testid="revision">Revision {revision}</span>
@@ -82,6 +85,8 @@ export function TopBar({ status, onFit, onCheck, onRetrySave, onExport, onImport
           </>
         )}
         <button type="button" className="btn" onClick={() => window.print()}>Print</button>
+        <a className="btn" href={historyHref}>History</a>
+        {onSubmit && <button type="button" className="btn-primary" onClick={onSubmit} disabled={busy !== null} data-testid="submit-plan">Submit for review</button>}
       </div>
     </div>
   );

@@ -1,0 +1,40 @@
+import type { APIRoute } from 'astro';
+import { getDb } from '../../../../db/connection';
+import { setCommentResolved } from '../../../../db/repositories/revisions';
+import { hasRole } from '../../../lib/server/guards';
+import { idParam } from '../../../lib/schemas/api';
+import { AppError } from '../../../lib/server/errors';
+import { reopen, submitForReview } from '../../../lib/server/workflow';
+
+/**
+ * The plan page's workflow buttons post here as plain forms (no JavaScript needed): submit,
+ * reopen an approved plan, resolve or reopen a comment. Answers with a redirect back to the plan
+ * carrying what happened; the same rules as the JSON API apply, through the same functions.
+ */
+export const POST: APIRoute = async (ctx) => {
+  const person = ctx.locals.person!;
+  const id = idParam.safeParse(ctx.params.id);
+  if (!id.success) return new Response('Plan not found', { status: 404 });
+  const back = (query: string) => ctx.redirect(`/plans/${id.data}?${query}`, 303);
+  const form = await ctx.request.formData();
+  const action = String(form.get('action') ?? '');
+  try {
+    if (action === 'submit' && hasRole(person, 'crew_lead', 'admin')) {
+      await submitForReview(person, id.data, ctx.url);
+      return back('notice=submitted');
+    }
+    if (action === 'reopen' && hasRole(person, 'crew_lead', 'admin')) {
+      await reopen(person, id.data);
+      return back('notice=reopened');
+    }
+    if ((action === 'resolve' || action === 'unresolve') && hasRole(person, 'crew_lead', 'admin', 'reviewer')) {
+      const commentId = idParam.safeParse(form.get('commentId'));
+      if (!commentId.success || !(await setCommentResolved(getDb(), person.organizationId, id.data, commentId.data, person.id, action === 'resolve'))) throw new AppError('NOT_FOUND');
+      return back(`notice=${action === 'resolve' ? 'resolved' : 'reopened-comment'}`);
+    }
+    return back('problem=ROLE_REQUIRED');
+  } catch (error) {
+    if (error instanceof AppError) return back(`problem=${error.code}`);
+    throw error;
+  }
+};
