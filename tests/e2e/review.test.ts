@@ -116,6 +116,9 @@ it('submit, return with a pinned comment, fix, resubmit, approve, and read in th
   const card = apprentice.getByTestId('library').locator('li', { hasText: title });
   await expect.poll(() => card.textContent()).toContain('Bucket, phases and neutral on one bar');
   await card.getByRole('link', { name: title }).click();
+  // On the read-only drawing, selecting an element explains it.
+  await apprentice.locator('.react-flow__node[data-id="CB"]').click();
+  await expect.poll(() => apprentice.getByTestId('explain').textContent()).toContain('The common point');
   await apprentice.getByRole('link', { name: 'jumper jN' }).click();
   const explain = apprentice.locator('#explain-jN');
   await expect.poll(() => explain.textContent()).toMatch(/Temporary protective ground between Cluster bar and Neutral/);

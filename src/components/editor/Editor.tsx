@@ -38,10 +38,12 @@ export interface EditorProps {
   pins?: Record<string, number[]>;
   /** May this person submit the plan for review from the top bar? */
   canSubmit?: boolean;
+  /** Element id → what it does in the zone, shown when it is selected (the library's Explain). */
+  explanations?: Record<string, string[]>;
 }
 
-function initStore(plan: EditorProps['plan'], readOnly: boolean, pins: EditorProps['pins']): { store: EditorStore; restored: boolean } {
-  const store = createEditorStore({ doc: plan.document, baseRevision: plan.currentRevision, readOnly, report: plan.report, pins });
+function initStore(plan: EditorProps['plan'], readOnly: boolean, pins: EditorProps['pins'], explanations: EditorProps['explanations']): { store: EditorStore; restored: boolean } {
+  const store = createEditorStore({ doc: plan.document, baseRevision: plan.currentRevision, readOnly, report: plan.report, pins, explanations });
   if (readOnly || typeof localStorage === 'undefined') return { store, restored: false };
   const draft = readLocalDraft(localStorage, plan.id);
   if (!draft || draft.baseRevision > plan.currentRevision) return { store, restored: false };
@@ -54,8 +56,8 @@ function initStore(plan: EditorProps['plan'], readOnly: boolean, pins: EditorPro
   return { store, restored: true };
 }
 
-export default function Editor({ plan, readOnly, approval = null, pins, canSubmit = false }: EditorProps) {
-  const [{ store, restored }] = useState(() => initStore(plan, readOnly, pins));
+export default function Editor({ plan, readOnly, approval = null, pins, canSubmit = false, explanations }: EditorProps) {
+  const [{ store, restored }] = useState(() => initStore(plan, readOnly, pins, explanations));
   const rf = useRef<ReactFlowInstance | null>(null);
   const sync = useRef<SyncHandle | null>(null);
   const sheet = useRef<HTMLDivElement>(null);

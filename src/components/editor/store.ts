@@ -44,6 +44,8 @@ export interface EditorState {
   conflict: ConflictInfo | null;
   /** Review comments pinned to elements: element id → the comment numbers shown on the canvas. */
   pins: Record<string, number[]>;
+  /** For reading an approved plan: element id → sentences on what it does in the zone. */
+  explanations: Record<string, string[]>;
 }
 
 export interface EditorActions {
@@ -91,6 +93,7 @@ export interface EditorInit {
   units?: UnitSystem;
   report?: CheckReport | null;
   pins?: Record<string, number[]>;
+  explanations?: Record<string, string[]>;
 }
 
 export function createEditorStore(init: EditorInit): EditorStore {
@@ -133,6 +136,7 @@ export function createEditorStore(init: EditorInit): EditorStore {
       saveIssues: [],
       conflict: null,
       pins: init.pins ?? {},
+      explanations: init.explanations ?? {},
 
       addNode(kind, position) {
         const { doc, id } = ops.addNode(get().doc, kind, place(position));

@@ -36,6 +36,7 @@ export function Inspector() {
   const nodes = useEditor((s) => (element?.kind === 'worker' ? s.doc.nodes : EMPTY));
   const units = useEditor((s) => s.units);
   const readOnly = useEditor((s) => s.readOnly);
+  const explanation = useEditor((s) => (element ? s.explanations[element.id] : undefined));
   const updateElement = useEditor((s) => s.updateElement);
   const updateSystem = useEditor((s) => s.updateSystem);
   const updateCriteria = useEditor((s) => s.updateCriteria);
@@ -62,6 +63,12 @@ export function Inspector() {
     body = (
       <>
         {link && <p className="mb-2 text-sm text-note">From {(element as PlanLink).from} to {(element as PlanLink).to}</p>}
+        {explanation && (
+          <section aria-label="Explain" className="mb-4 rounded-md border border-accent bg-paper p-3" data-testid="explain">
+            <h3 className="mb-1 font-semibold">What {element.id} does in the zone</h3>
+            <ul className="list-disc space-y-1 pl-5 text-sm">{explanation.map((line) => <li key={line}>{line}</li>)}</ul>
+          </section>
+        )}
         <PropertiesForm
           key={element.id}
           title={title}
