@@ -80,3 +80,46 @@ describe('admin: people', () => {
     expect(response.body.error.issues.map((i: { path: string }) => i.path).sort()).toEqual(['email', 'name', 'role']);
   });
 });
+
+describe('mail for people', () => {
+  async function mailTo(address: string, subjectPart: string) {
+    const deadline = Date.now() + 10_000;
+    while (Date.now() < deadline) {
+      const found = (await admin.get(`/api/dev/mail?to=${encodeURIComponent(address)}`)).body.messages.find((m: { subject: string }) => m.subject.includes(subjectPart));
+      if (found) return found;
+      await new Promise((r) => setTimeout(r, 200));
+    }
+    throw new Error(`no mail to ${address} about "${subjectPart}"`);
+  }
+
+  it('e-mails the invitation with its one-time link', async () => {
+    const email = `invited-${Date.now()}@example.test`;
+    const invited = await admin.post('/api/admin/users', { email, name: 'Mailed Person', role: 'crew_lead' });
+    const mail = await mailTo(email, 'You are invited to Bondmap');
+    expect(mail.text).toContain(invited.body.setPasswordUrl);
+    expect(mail.to).toEqual([email]);
+  });
+
+  it('sends a reset link that sets a new password once, and answers the same for unknown e-mails', async () => {
+    const known = await admin.post('/api/admin/users', { email: `resetter-${Date.now()}@example.test`, name: 'Re Setter', role: 'apprentice' });
+    const email = known.body.person.email;
+    const unknown = await new Client().post('/api/auth/forgot', { email: 'not-a-person@example.test' });
+    const asked = await new Client().post('/api/auth/forgot', { email });
+    expect(asked.status).toBe(200);
+    expect(asked.body).toEqual(unknown.body);
+    const mail = await mailTo(email, 'Reset your Bondmap password');
+    const token = mail.text.match(/\/set-password\/([\w-]+)/)[1];
+    expect((await new Client().post('/api/auth/set-password', { token, password: 'brand new password' })).status).toBe(200);
+    expect((await new Client().post('/api/auth/login', { email, password: 'brand new password' })).status).toBe(200);
+    expect((await new Client().post('/api/auth/set-password', { token, password: 'brand new password 2' })).status).toBe(400);
+  });
+
+  it('keeps another organisation\'s mail out of the admin\'s view', async () => {
+    const other = await makeTeam();
+    const otherAdmin = await signedIn(other.admin.email, PASSWORD);
+    await otherAdmin.post('/api/admin/users', { email: `elsewhere-${Date.now()}@example.test`, name: 'Else Where', role: 'apprentice' });
+    await new Promise((r) => setTimeout(r, 1000));
+    const mine = (await admin.get('/api/dev/mail')).body.messages;
+    expect(mine.some((m: { subject: string; to: string[] }) => m.to.some((t) => t.startsWith('elsewhere-')))).toBe(false);
+  });
+});
