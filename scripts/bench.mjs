@@ -1,13 +1,13 @@
 // `npm run bench`: the checker's speed and memory (bench/run.ts, no server needed), then the
 // editor in headless Chromium against a served build on the test database (bench/editor.ts).
 // Prints figures; asserts nothing. Starts what it needs and stops what it started.
-import { existsSync, readFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { ensureBuild, ensureDebianPackages, ensureDependencies, ROOT, run, say, startServer } from './lib.mjs';
+import { ensureBuild, ensureDebianPackages, ensureDependencies, pidFileAlive, ROOT, run, say, startServer } from './lib.mjs';
 
 const port = Number(process.env.BONDMAP_BENCH_PORT ?? 4393);
 let server = null;
-const startedDb = !existsSync(join(ROOT, '.data', 'test', 'mariadbd.pid'));
+const startedDb = !pidFileAlive(join(ROOT, '.data', 'test', 'mariadbd.pid'));
 let code = 0;
 try {
   ensureDependencies();

@@ -1,7 +1,7 @@
 // Plain-Node helpers shared by scripts/start.mjs and scripts/test.mjs. No dependencies: these run
 // before `npm install` has happened.
 import { spawn, spawnSync } from 'node:child_process';
-import { existsSync, readdirSync, statSync } from 'node:fs';
+import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
 import { createConnection } from 'node:net';
 import { join, resolve } from 'node:path';
 
@@ -94,7 +94,7 @@ export async function startServer({ port, env, stdio = 'inherit' }) {
   throw new Error('the app server did not become healthy within 60 s');
 }
 
-function pidAlive(pid) {
+export function pidAlive(pid) {
   try {
     process.kill(pid, 0);
     return true;
@@ -153,4 +153,11 @@ export async function stopMailCatcher(profile) {
   while (pidAlive(pid) && Date.now() < deadline) await new Promise((r) => setTimeout(r, 100));
   if (pidAlive(pid)) process.kill(pid, 'SIGKILL');
   return true;
+}
+
+/** True when the pid file names a live process (a stale file after a reboot does not count). */
+export function pidFileAlive(file) {
+  if (!existsSync(file)) return false;
+  const pid = Number(readFileSync(file, 'utf8').trim());
+  return Number.isInteger(pid) && pid > 0 && pidAlive(pid);
 }

@@ -5,7 +5,7 @@
 import { spawn } from 'node:child_process';
 import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
-import { ensureBuild, ensureDebianPackages, ensureDependencies, ROOT, run, say, startMailCatcher, startServer, stopMailCatcher } from './lib.mjs';
+import { ensureBuild, ensureDebianPackages, ensureDependencies, pidFileAlive, ROOT, run, say, startMailCatcher, startServer, stopMailCatcher } from './lib.mjs';
 
 const port = Number(process.env.BONDMAP_TEST_PORT ?? 4391);
 const smtpPort = Number(process.env.BONDMAP_TEST_SMTP_PORT ?? 2526);
@@ -46,7 +46,7 @@ async function main() {
   rmSync(results, { recursive: true, force: true });
   mkdirSync(results, { recursive: true });
 
-  startedDb = !existsSync(join(ROOT, '.data', 'test', 'mariadbd.pid'));
+  startedDb = !pidFileAlive(join(ROOT, '.data', 'test', 'mariadbd.pid'));
   const envFile = join(ROOT, '.data', 'test-app-env.json');
   // A fresh schema every run, with the invented demo seeded (the browser tests sign in as its people).
   run('npx', ['tsx', 'db/cli.ts', 'reset', '--profile', 'test', '--env-out', envFile]);

@@ -16,6 +16,8 @@ export async function recentFailures(db: Db, email: string, since: Date): Promis
 
 export async function recordFailure(db: Db, email: string, at: Date): Promise<void> {
   await db.models.LoginAttempt.create({ email: normaliseEmail(email), at });
+  // Failures older than a day no longer count for anything; keep the table small.
+  await db.models.LoginAttempt.destroy({ where: { email: normaliseEmail(email), at: { [Op.lt]: new Date(at.getTime() - 86400_000) } } });
 }
 
 export async function clearFailures(db: Db, email: string): Promise<void> {

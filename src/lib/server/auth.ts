@@ -74,6 +74,8 @@ function writeCookie(cookies: AstroCookies, url: URL, cookie: ReturnType<typeof 
 
 /** Starts a session for the person and sets the cookie on the response. */
 export async function signIn(ctx: Pick<APIContext, 'cookies' | 'url'>, userId: string): Promise<void> {
+  // Sessions that ran out are tidied away for this person as they come back.
+  await getDb().models.Session.destroy({ where: { userId, expiresAt: { [Op.lte]: new Date() } } });
   const session = await lucia.createSession(userId, {});
   writeCookie(ctx.cookies, ctx.url, lucia.createSessionCookie(session.id));
 }
