@@ -73,6 +73,8 @@ export function ensureBuild() {
 
 /** Starts the built server; resolves once /api/health answers 200. */
 export async function startServer({ port, env, stdio = 'inherit' }) {
+  // Another server on the port would answer the health check in this one's place.
+  if (await portOpen(port)) throw new Error(`port ${port} is already in use; stop what runs there or choose another port`);
   const child = spawn(process.execPath, [join(ROOT, 'dist', 'server', 'entry.mjs')], {
     cwd: ROOT,
     env: { ...process.env, ...env, HOST: '127.0.0.1', PORT: String(port) },

@@ -11,7 +11,7 @@ import { nodeTypes } from './nodes/PlanNodeView';
 import { ContextMenu, type MenuItem } from './panels/ContextMenu';
 import { DRAG_TYPE } from './panels/Palette';
 import { GRID } from './store';
-import { toFlowEdges, toFlowNodes, useEditor, useEditorStore } from './selectors';
+import { toFlowEdges, toFlowNodes, useEditor, useEditorStore, type NodeSize, type NodeSizes } from './selectors';
 import type { Point } from './plan-ops';
 
 export interface CanvasProps {
@@ -21,6 +21,13 @@ export interface CanvasProps {
 interface MenuState { x: number; y: number; id: string | null }
 const LONG_PRESS_MS = 550;
 
+// Props React Flow copies into its own store whenever their identity changes, and every such copy
+// re-renders all nodes and edges: so constants live here and handlers below are stable callbacks.
+const SNAP_GRID: [number, number] = [GRID, GRID];
+const MULTI_SELECT_KEYS = ['Meta', 'Control', 'Shift'];
+const FIT_VIEW_OPTIONS = { padding: 0.2, maxZoom: 1.2 };
+const PRO_OPTIONS = { hideAttribution: true };
+
 export function Canvas({ onInit }: CanvasProps) {
   const store = useEditorStore();
   const doc = useEditor((s) => s.doc);
@@ -29,24 +36,46 @@ export function Canvas({ onInit }: CanvasProps) {
   const snap = useEditor((s) => s.snap);
   const linkTool = useEditor((s) => s.linkTool);
   const rf = useRef<ReactFlowInstance | null>(null);
+  const onInitRef = useRef(onInit);
+  onInitRef.current = onInit;
   const wrapper = useRef<HTMLDivElement>(null);
   const [menu, setMenu] = useState<MenuState | null>(null);
   const press = useRef<{ timer: ReturnType<typeof setTimeout>; x: number; y: number } | null>(null);
 
-  const nodes = useMemo(() => toFlowNodes(doc, selection, !readOnly), [doc, selection, readOnly]);
-  const edges = useMemo(() => toFlowEdges(doc, selection), [doc, selection]);
+  // Sizes React Flow measured, handed back on the nodes (see toFlowNodes); a new map only when one changes.
+  const [sizes, setSizes] = useState<NodeSizes>(() => new Map());
+
+  const nodes = useMemo(() => toFlowNodes(doc, selection, !readOnly, sizes), [doc, selection, readOnly, sizes]);
+  // Keyed on the links, not the document: moving a node keeps `doc.links`, so the edges array
+  // stays the same object and React Flow is not handed (and does not re-process) a new one.
+  const links = doc.links;
+  const edges = useMemo(() => toFlowEdges({ links }, selection), [links, selection]);
   const large = doc.nodes.length + doc.links.length > 400;
 
   const onNodesChange = useCallback((changes: NodeChange[]) => {
     const moves = new Map<string, Point>();
     let selected: Set<string> | null = null;
+    let measured: Map<string, NodeSize> | null = null;
     for (const c of changes) {
       if (c.type === 'position' && c.position) moves.set(c.id, c.position);
+      if (c.type === 'dimensions' && c.dimensions) (measured ??= new Map()).set(c.id, c.dimensions);
       if (c.type === 'select') {
         selected ??= new Set(store.getState().selection);
         if (c.selected) selected.add(c.id);
         else selected.delete(c.id);
       }
+    }
+    if (measured) {
+      const next = measured;
+      setSizes((prev) => {
+        let changed: Map<string, NodeSize> | null = null;
+        for (const [id, d] of next) {
+          const was = prev.get(id);
+          if (was && was.width === d.width && was.height === d.height) continue;
+          (changed ??= new Map(prev)).set(id, { width: d.width, height: d.height });
+        }
+        return changed ?? prev;
+      });
     }
     if (moves.size) store.getState().moveNodes(moves);
     if (selected && !store.getState().linkTool) store.getState().select([...selected]);
@@ -79,14 +108,20 @@ export function Canvas({ onInit }: CanvasProps) {
     store.getState().addNode(kind, { x: p.x - 28, y: p.y - 28 });
   }, [store]);
 
-  const openMenuAt = (x: number, y: number, target: EventTarget | null) => {
+  const openMenuAt = useCallback((x: number, y: number, target: EventTarget | null) => {
     const el = target as HTMLElement | null;
     const nodeEl = el?.closest?.('.react-flow__node') as HTMLElement | null;
     const edgeEl = el?.closest?.('.react-flow__edge') as HTMLElement | null;
     const id = nodeEl?.dataset.id ?? edgeEl?.getAttribute('data-testid')?.replace(/^rf__edge-/, '') ?? null;
     if (id && !store.getState().selection.includes(id)) store.getState().select([id]);
     setMenu({ x, y, id });
-  };
+  }, [store]);
+  const onFlowInit = useCallback((inst: ReactFlowInstance) => { rf.current = inst; onInitRef.current(inst); }, []);
+  const onNodeDragStart = useCallback(() => store.getState().beginMove(), [store]);
+  const onNodeClick = useCallback((e: React.MouseEvent, n: { id: string }) => { if (store.getState().linkTool) store.getState().tapElement(n.id, e.shiftKey); }, [store]);
+  const onPaneClick = useCallback(() => { store.getState().clearSelection(); setMenu(null); }, [store]);
+  const onElementContextMenu = useCallback((e: React.MouseEvent) => { e.preventDefault(); openMenuAt(e.clientX, e.clientY, e.target); }, [openMenuAt]);
+  const onPaneContextMenu = useCallback((e: React.MouseEvent) => { e.preventDefault(); openMenuAt(e.clientX, e.clientY, null); }, [openMenuAt]);
   const cancelPress = () => {
     if (press.current) clearTimeout(press.current.timer);
     press.current = null;
@@ -144,15 +179,15 @@ export function Canvas({ onInit }: CanvasProps) {
         edges={edges}
         nodeTypes={nodeTypes}
         edgeTypes={edgeTypes}
-        onInit={(inst) => { rf.current = inst; onInit(inst); }}
+        onInit={onFlowInit}
         onNodesChange={onNodesChange}
         onEdgesChange={onEdgesChange}
-        onNodeDragStart={() => store.getState().beginMove()}
-        onNodeClick={(e, n) => { if (store.getState().linkTool) store.getState().tapElement(n.id, e.shiftKey); }}
-        onPaneClick={() => { store.getState().clearSelection(); setMenu(null); }}
-        onNodeContextMenu={(e) => { e.preventDefault(); openMenuAt(e.clientX, e.clientY, e.target); }}
-        onEdgeContextMenu={(e) => { e.preventDefault(); openMenuAt(e.clientX, e.clientY, e.target); }}
-        onPaneContextMenu={(e) => { e.preventDefault(); openMenuAt(e.clientX, e.clientY, null); }}
+        onNodeDragStart={onNodeDragStart}
+        onNodeClick={onNodeClick}
+        onPaneClick={onPaneClick}
+        onNodeContextMenu={onElementContextMenu}
+        onEdgeContextMenu={onElementContextMenu}
+        onPaneContextMenu={onPaneContextMenu}
         onConnect={onConnect}
         connectionMode={ConnectionMode.Loose}
         connectionRadius={36}
@@ -160,17 +195,17 @@ export function Canvas({ onInit }: CanvasProps) {
         nodesDraggable={!readOnly && !linkTool}
         elementsSelectable={!linkTool}
         snapToGrid={snap}
-        snapGrid={[GRID, GRID]}
+        snapGrid={SNAP_GRID}
         deleteKeyCode={null}
         selectionKeyCode="Shift"
-        multiSelectionKeyCode={['Meta', 'Control', 'Shift']}
+        multiSelectionKeyCode={MULTI_SELECT_KEYS}
         disableKeyboardA11y
         onlyRenderVisibleElements={large}
         minZoom={0.1}
         maxZoom={3}
         fitView
-        fitViewOptions={{ padding: 0.2, maxZoom: 1.2 }}
-        proOptions={{ hideAttribution: true }}
+        fitViewOptions={FIT_VIEW_OPTIONS}
+        proOptions={PRO_OPTIONS}
         zoomOnDoubleClick={false}
       >
         <Background gap={GRID} size={1} color="#d0d5dd" />

@@ -64,22 +64,35 @@ export const selectSeverityOf = (id: string) => (s: EditorState) => severityByEl
 export const selectSelection = (s: EditorState) => s.selection;
 export const selectDoc = (s: EditorState) => s.doc;
 
-const nodeCache = new WeakMap<PlanNode, { selected: boolean; rf: Node<PlanNode> }[]>();
-/** React Flow nodes for the document; `data` is the plan node itself (saveable data only). */
-export function toFlowNodes(doc: PlanDocument, selection: readonly string[], draggable = true): Node<PlanNode>[] {
+/** A node's drawn size as React Flow measured it; kept beside the document, never saved. */
+export interface NodeSize { width: number; height: number }
+export type NodeSizes = ReadonlyMap<string, NodeSize>;
+const NO_SIZES: NodeSizes = new Map();
+
+interface CachedNode { selected: boolean; draggable: boolean; size: NodeSize | undefined; rf: Node<PlanNode> }
+const nodeCache = new WeakMap<PlanNode, CachedNode[]>();
+/**
+ * React Flow nodes for the document; `data` is the plan node itself (saveable data only). The
+ * measured `width`/`height` go on the React Flow node (a controlled flow must hand them back, or
+ * React Flow treats every node as unmeasured on each update and measures them all again), and an
+ * element whose plan node, selection, size and draggability are unchanged keeps its object.
+ */
+export function toFlowNodes(doc: PlanDocument, selection: readonly string[], draggable = true, sizes: NodeSizes = NO_SIZES): Node<PlanNode>[] {
   const selected = new Set(selection);
   return doc.nodes.map((n) => {
     const isSelected = selected.has(n.id);
-    const cached = nodeCache.get(n)?.find((c) => c.selected === isSelected && c.rf.draggable === draggable);
+    const size = sizes.get(n.id);
+    const entries = nodeCache.get(n);
+    const cached = entries?.find((c) => c.selected === isSelected && c.draggable === draggable && c.size === size);
     if (cached) return cached.rf;
-    const rf: Node<PlanNode> = { id: n.id, type: n.kind, position: n.position ?? { x: 0, y: 0 }, data: n, selected: isSelected, draggable };
-    nodeCache.set(n, [...(nodeCache.get(n) ?? []).slice(-1), { selected: isSelected, rf }]);
+    const rf: Node<PlanNode> = { id: n.id, type: n.kind, position: n.position ?? { x: 0, y: 0 }, data: n, selected: isSelected, draggable, ...(size ? { width: size.width, height: size.height } : {}) };
+    nodeCache.set(n, [...(entries ?? []).slice(-1), { selected: isSelected, draggable, size, rf }]);
     return rf;
   });
 }
 
 const edgeCache = new WeakMap<PlanLink, { selected: boolean; rf: Edge<PlanLink> }[]>();
-export function toFlowEdges(doc: PlanDocument, selection: readonly string[]): Edge<PlanLink>[] {
+export function toFlowEdges(doc: Pick<PlanDocument, 'links'>, selection: readonly string[]): Edge<PlanLink>[] {
   const selected = new Set(selection);
   return doc.links.map((l) => {
     const isSelected = selected.has(l.id);
