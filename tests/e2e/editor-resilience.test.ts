@@ -2,32 +2,14 @@
  * The editor in Chromium beyond the starter flow: a plan drawn from an empty canvas until the
  * check is clear, and work kept through a lost connection and through a conflicting save.
  */
-import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { afterAll, beforeAll, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { expect, it } from 'vitest';
 import { BASE_URL } from '../helpers/api';
-import { launchBrowser } from '../helpers/browser';
+import { useBrowser } from '../helpers/e2e';
 
-let browser: Browser;
-const contexts: BrowserContext[] = [];
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  for (const c of contexts) await c.close();
-  await browser?.close();
-});
+const browser = useBrowser();
+const signedInPage = () => browser.signIn('lead@demo.test');
 
-async function signedInPage(): Promise<{ context: BrowserContext; page: Page }> {
-  const context = await browser.newContext({ viewport: { width: 1366, height: 900 } });
-  contexts.push(context);
-  const page = await context.newPage();
-  await page.goto(`${BASE_URL}/login`);
-  await page.getByLabel('E-mail').fill('lead@demo.test');
-  await page.getByLabel('Password').fill('bondmap-demo');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL((url) => url.pathname !== '/login');
-  return { context, page };
-}
 
 async function newPlan(page: Page, title: string, starter?: RegExp): Promise<string> {
   await page.goto(`${BASE_URL}/plans/new`);

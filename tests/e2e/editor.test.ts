@@ -1,32 +1,21 @@
 import { mkdirSync, readFileSync } from 'node:fs';
-import type { Browser, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { extractText, getDocumentProxy } from 'unpdf';
-import { afterAll, beforeAll, expect, it } from 'vitest';
+import { expect, it } from 'vitest';
 import { pdfText } from '../../src/components/editor/export';
 import { BASE_URL } from '../helpers/api';
-import { launchBrowser } from '../helpers/browser';
+import { useBrowser } from '../helpers/e2e';
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => browser?.close());
+const browser = useBrowser();
 
 const node = (page: Page, id: string) => page.locator(`.react-flow__node[data-id="${id}"]`);
 const saved = (page: Page) => expect.poll(() => page.getByTestId('save-state').getAttribute('data-state'), { timeout: 15000 }).toBe('saved');
 const blockers = (page: Page) => page.getByTestId('drawer').locator('[data-testid="findings"] li[data-severity="blocker"]');
 
 it('a crew lead draws from a starter, sees the check follow each change, reloads and exports', async () => {
-  const context = await browser.newContext({ viewport: { width: 1366, height: 900 }, acceptDownloads: true });
-  const page = await context.newPage();
+  const { page } = await browser.signIn('lead@demo.test');
   const errors: string[] = [];
   page.on('pageerror', (e) => errors.push(e.message));
-
-  await page.goto(`${BASE_URL}/login`);
-  await page.getByLabel('E-mail').fill('lead@demo.test');
-  await page.getByLabel('Password').fill('bondmap-demo');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL((url) => url.pathname !== '/login');
 
   await page.goto(`${BASE_URL}/plans/new`);
   await page.getByLabel('Title').fill(`Editor flow ${Date.now()}`);
@@ -98,5 +87,4 @@ it('a crew lead draws from a starter, sees the check follow each change, reloads
   mkdirSync('artifacts', { recursive: true });
   await page.screenshot({ path: 'artifacts/editor.png' });
   expect(errors).toEqual([]);
-  await context.close();
 });

@@ -4,33 +4,15 @@
  * approves with a teaching note, and an apprentice finds it in the library.
  */
 import { readFileSync } from 'node:fs';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { extractText, getDocumentProxy } from 'unpdf';
-import { afterAll, beforeAll, expect, it } from 'vitest';
+import { expect, it } from 'vitest';
 import { BASE_URL } from '../helpers/api';
-import { launchBrowser } from '../helpers/browser';
+import { useBrowser } from '../helpers/e2e';
 
-let browser: Browser;
-const contexts: BrowserContext[] = [];
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  for (const c of contexts) await c.close();
-  await browser?.close();
-});
+const browser = useBrowser();
+const signIn = async (email: string) => (await browser.signIn(email)).page;
 
-async function signIn(email: string): Promise<Page> {
-  const context = await browser.newContext({ viewport: { width: 1366, height: 900 }, acceptDownloads: true });
-  contexts.push(context);
-  const page = await context.newPage();
-  await page.goto(`${BASE_URL}/login`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill('bondmap-demo');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL((url) => url.pathname !== '/login');
-  return page;
-}
 
 const saved = (page: Page) => expect.poll(() => page.getByTestId('save-state').getAttribute('data-state'), { timeout: 15000 }).toBe('saved');
 const statusOf = (page: Page) => page.getByTestId('topbar').locator('[data-status]').first().getAttribute('data-status');

@@ -1,0 +1,36 @@
+/**
+ * Browser sessions for the flows in tests/e2e: one Chromium per test file (launched before, closed
+ * after), and a fresh context per signed-in person so their cookies never mix.
+ */
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { afterAll, beforeAll } from 'vitest';
+import { BASE_URL } from './api';
+import { launchBrowser } from './browser';
+
+export const DEMO_PASSWORD = 'bondmap-demo';
+
+export function useBrowser() {
+  let browser: Browser;
+  const contexts: BrowserContext[] = [];
+  beforeAll(async () => {
+    browser = await launchBrowser();
+  });
+  afterAll(async () => {
+    for (const c of contexts) await c.close();
+    await browser?.close();
+  });
+  return {
+    /** Signs a demo person in through the sign-in form and returns their page. */
+    async signIn(email: string): Promise<{ context: BrowserContext; page: Page }> {
+      const context = await browser.newContext({ viewport: { width: 1366, height: 900 }, acceptDownloads: true });
+      contexts.push(context);
+      const page = await context.newPage();
+      await page.goto(`${BASE_URL}/login`);
+      await page.getByLabel('E-mail').fill(email);
+      await page.getByLabel('Password').fill(DEMO_PASSWORD);
+      await page.getByRole('button', { name: 'Sign in' }).click();
+      await page.waitForURL((url) => url.pathname !== '/login');
+      return { context, page };
+    },
+  };
+}
