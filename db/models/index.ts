@@ -9,6 +9,7 @@ import { initPlan } from './plan';
 import { initPlanComment } from './plan-comment';
 import { initPlanDecision } from './plan-decision';
 import { initPlanRevision } from './plan-revision';
+import { initPractice } from './practice';
 import { initSession } from './session';
 import { initUser } from './user';
 
@@ -25,6 +26,7 @@ export function defineModels(sequelize: Sequelize) {
     PlanDecision: initPlanDecision(sequelize),
     PlanComment: initPlanComment(sequelize),
     ...initMail(sequelize),
+    ...initPractice(sequelize),
   };
   const { User, Session, Plan, PlanRevision, Organization } = models;
   User.belongsTo(Organization, { foreignKey: 'organizationId', as: 'organization' });
@@ -43,3 +45,4 @@ export type { PlanRevision } from './plan-revision';
 export type { PlanComment } from './plan-comment';
 export type { PlanDecision } from './plan-decision';
 export type { User } from './user';
+export type { PracticeAttempt, PracticeExercise } from './practice';

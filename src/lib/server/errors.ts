@@ -26,6 +26,8 @@ export const ERRORS = {
   SELF_CHANGE: { status: 409, message: 'You cannot disable yourself or take away your own admin role; ask another admin.' },
   DB_DOWN: { status: 503, message: 'The database cannot be reached just now; nothing was changed. Try again in a moment.' },
   INTERNAL: { status: 500, message: 'Something went wrong on our side; nothing was changed. Try again, and tell your admin if it keeps happening.' },
+  EXERCISE_NO_GAP: { status: 409, message: 'The modified plan has no blocker the approved one lacks, so there is nothing to find: an exercise must have a gap. Remove or change another link.' },
+  REVISION_NOT_APPROVED: { status: 409, message: 'Exercises are made from approved revisions only, and this one is not approved. Pick a plan from the library.' },
 } as const satisfies Record<string, { status: number; message: string }>;
 
 export type ErrorCode = keyof typeof ERRORS;

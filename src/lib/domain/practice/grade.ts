@@ -2,6 +2,7 @@
  * Grading: found, missed and wrongly marked elements for find; the fixed copy's own check for fix;
  * the exact choice for numbers. Scores are 0–100 and 100 means passed.
  */
+import { canonicalJson } from '../canonical-json';
 import { checkPlan } from '../checker';
 import type { Finding } from '../report';
 import type { PlanDocument } from '../../schemas/plan';
@@ -49,7 +50,7 @@ const changed = (message: string, elements: string[] = []): Finding => ({
 });
 
 /** A node as JSON without where it is drawn or what it is called: the parts a fix must keep. */
-const strip = (item: object) => JSON.stringify(item, (k, v) => (k === 'position' || k === 'label' ? undefined : v));
+const strip = (item: object) => canonicalJson(Object.fromEntries(Object.entries(item).filter(([k]) => k !== 'position' && k !== 'label')));
 
 /** What a fix may not do: remove or alter a node or a reach line, or change the system data. */
 export function fixIntegrity(given: PlanDocument, fixed: PlanDocument): Finding[] {
@@ -64,7 +65,7 @@ export function fixIntegrity(given: PlanDocument, fixed: PlanDocument): Finding[
   for (const reach of given.links.filter((l) => l.kind === 'reach')) {
     if (!reaches.has(`${reach.from}>${reach.to}`)) out.push(changed(`The reach from ${reach.from} to ${reach.to} was removed; what a worker can touch stays as given.`, [reach.id]));
   }
-  if (JSON.stringify(given.system) !== JSON.stringify(fixed.system) || JSON.stringify(given.criteria ?? {}) !== JSON.stringify(fixed.criteria ?? {})) {
+  if (canonicalJson(given.system) !== canonicalJson(fixed.system) || canonicalJson(given.criteria ?? {}) !== canonicalJson(fixed.criteria ?? {})) {
     out.push(changed('The system data or criteria were changed; the fault and the people are what they are.'));
   }
   return out;
