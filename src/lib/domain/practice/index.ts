@@ -7,3 +7,5 @@ export type { Proposal } from './propose';
 export { bodyCurrentQuestion, cableRatingQuestion, roundFigure } from './numbers';
 export { gradeFind, gradeFix, gradeNumbers, fixIntegrity } from './grade';
 export type { FindGrade, FixGrade, NumbersGrade } from './grade';
+export { nextExercises, progressByGap, progressRows, sortProgressRows, PROGRESS_SORTS } from './progress';
+export type { GapProgress, ProgressRow, ProgressSort } from './progress';

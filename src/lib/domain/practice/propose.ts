@@ -6,7 +6,7 @@
 import { checkPlan } from '../checker';
 import type { Finding } from '../report';
 import type { CableSize, PlanDocument } from '../../schemas/plan';
-import { buildExercise } from './modify';
+import { applyModifications, buildExercise, plantedFindings } from './modify';
 import { GAP_KINDS, type GapKind, type Modifications } from './types';
 
 export interface Proposal {
@@ -38,8 +38,9 @@ export function proposeRemovals(plan: PlanDocument): Proposal[] {
   for (const mods of candidates(plan)) {
     const built = buildExercise(plan, mods, originalReport);
     if (!built.ok || byGap.has(built.exercise.gap)) continue;
-    const back = Object.fromEntries(Object.entries(built.exercise.key.linkIds).map(([orig, shown]) => [shown, orig]));
-    const findings = built.exercise.key.planted.map((f) => ({ ...f, elements: f.elements.map((e) => back[e] ?? e) }));
+    // The same change checked in the original's ids, so the sentences name the reviewer's elements.
+    const applied = applyModifications(plan, mods);
+    const findings = applied.ok ? plantedFindings(originalReport, checkPlan(applied.document), {}) : [];
     byGap.set(built.exercise.gap, { gap: built.exercise.gap, modifications: mods, findings });
   }
   return GAP_KINDS.flatMap((g) => (byGap.has(g) ? [byGap.get(g)!] : []));

@@ -1,0 +1,32 @@
+/**
+ * The editor's canvas, store and inspector reused for practice without the editor's saving: a
+ * read-only drawing whose taps mark elements (find), or an editable copy that is only checked (fix).
+ */
+import { useEffect, useRef, type ReactNode } from 'react';
+import { ReactFlowProvider, type ReactFlowInstance } from 'reactflow';
+import 'reactflow/dist/base.css';
+import '../editor/editor.css';
+import { Canvas } from '../editor/Canvas';
+import { EditorStoreContext } from '../editor/selectors';
+import type { EditorStore } from '../editor/store';
+
+export function PracticeCanvas({ store, children, label }: { store: EditorStore; children?: ReactNode; label: string }) {
+  const rf = useRef<ReactFlowInstance | null>(null);
+  useEffect(() => {
+    const fit = () => rf.current?.fitView({ padding: 0.2 });
+    window.addEventListener('resize', fit);
+    return () => window.removeEventListener('resize', fit);
+  }, []);
+  return (
+    <EditorStoreContext.Provider value={store}>
+      <ReactFlowProvider>
+        <div className="bm-editor flex flex-col gap-3 lg:flex-row" aria-label={label}>
+          <div className="h-[60vh] min-h-[420px] flex-1 rounded-lg border border-line bg-paper" data-testid="practice-canvas">
+            <Canvas onInit={(inst) => { rf.current = inst; }} />
+          </div>
+          {children}
+        </div>
+      </ReactFlowProvider>
+    </EditorStoreContext.Provider>
+  );
+}
