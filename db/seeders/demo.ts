@@ -12,6 +12,7 @@ import { decidePlan, submitPlan } from '../repositories/review';
 import { addComment } from '../repositories/revisions';
 import type { Role } from '../../src/lib/domain/roles';
 import { DEMO_PLANS, OTHER_ORG_PLAN, type DemoPlan } from './demo-plans';
+import { seedPractice } from './demo-practice';
 
 export const DEMO_PASSWORD = 'bondmap-demo';
 
@@ -79,6 +80,7 @@ export async function seedDemo(db: Db): Promise<{ people: number; plans: number 
   }
   const plans =
     (await seedPlans(db, orgIds.demo, ids['lead@demo.test'], ids['reviewer@demo.test'], DEMO_PLANS)) +
-    (await seedPlans(db, orgIds.other, ids['lead@other.test'], null, [OTHER_ORG_PLAN]));
+    (await seedPlans(db, orgIds.other, ids['lead@other.test'], null, [OTHER_ORG_PLAN])) +
+    (await seedPractice(db, orgIds.demo, { lead: ids['lead@demo.test'], reviewer: ids['reviewer@demo.test'], apprentice: ids['apprentice@demo.test'] }));
   return { people, plans };
 }

@@ -7,7 +7,7 @@ import * as repo from '../../../db/repositories/practice';
 import type { ExerciseRecord, ProgressCell } from '../../../db/repositories/practice';
 import { checkPlan } from '../domain/checker';
 import type { Person } from '../domain/people';
-import { bodyCurrentQuestion, buildExercise, cableRatingQuestion, gradeFind, gradeFix, gradeNumbers, proposeRemovals, type AnswerKey, type NumbersQuestion } from '../domain/practice';
+import { gradeFind, gradeFix, gradeNumbers, prepareExercise, proposeRemovals } from '../domain/practice';
 import type { Role } from '../domain/roles';
 import type { CreateExerciseBody } from '../schemas/practice';
 import { findAnswer, fixAnswer, numbersAnswer } from '../schemas/practice';
@@ -27,21 +27,14 @@ async function approvedOr404(person: Person, planId: number, revision?: number) 
   throw new AppError('NOT_FOUND');
 }
 
-function numbersFor(body: CreateExerciseBody, document: ExerciseRecord['document'], key: AnswerKey): NumbersQuestion {
-  const changed = body.changeLinks[0];
-  const question = changed ? cableRatingQuestion(document, key.linkIds[changed.id]) : bodyCurrentQuestion(document);
-  if (!question) throw new AppError('VALIDATION', { issues: [{ path: 'kind', message: 'four distinct choices cannot be computed for this plan; pick find or fix' }] });
-  return question;
-}
-
 export async function makeExercise(person: Person, body: CreateExerciseBody): Promise<ExerciseRecord> {
   const approved = await approvedOr404(person, body.planId, body.revision);
   const modifications = { removeLinks: body.removeLinks, changeLinks: body.changeLinks };
-  const built = buildExercise(approved.document, modifications);
+  const built = prepareExercise(approved.document, body.kind, modifications);
   if (!built.ok && built.reason === 'invalid') throw new AppError('VALIDATION', { issues: built.issues });
+  if (!built.ok && built.reason === 'no-figure') throw new AppError('VALIDATION', { issues: [{ path: 'kind', message: 'four distinct choices cannot be computed for this plan; pick find or fix' }] });
   if (!built.ok) throw new AppError('EXERCISE_NO_GAP');
   const { document, key, gap } = built.exercise;
-  if (body.kind === 'numbers') key.numbers = numbersFor(body, document, key);
   return repo.createExercise(getDb(), person.organizationId, {
     planId: approved.planId,
     revision: approved.revision,

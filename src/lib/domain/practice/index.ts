@@ -9,3 +9,5 @@ export { gradeFind, gradeFix, gradeNumbers, fixIntegrity } from './grade';
 export type { FindGrade, FixGrade, NumbersGrade } from './grade';
 export { nextExercises, progressByGap, progressRows, sortProgressRows, PROGRESS_SORTS } from './progress';
 export type { GapProgress, ProgressRow, ProgressSort } from './progress';
+export { prepareExercise } from './prepare';
+export type { PrepareResult } from './prepare';
