@@ -55,7 +55,10 @@ export default function ExerciseForm({ planId, revision, links, proposals }: { p
           <ul className="space-y-2">
             {proposals.map((p) => (
               <li key={p.gap} className="flex flex-wrap items-start gap-3 border-l-4 border-blocker pl-3">
-                <div className="flex-1"><p className="font-semibold">{p.label}</p><p className="text-sm">{p.findings[0]?.message}</p></div>
+                <div className="flex-1">
+                  <p className="font-semibold">{p.label}: {[...p.modifications.removeLinks.map((id) => `take out ${id}`), ...p.modifications.changeLinks.map((c) => `swap ${c.id} to ${c.cable}`)].join(', ')}</p>
+                  <p className="text-sm">{p.findings[0]?.message}{p.findings.length > 1 ? ` (and ${p.findings.length - 1} more blocker${p.findings.length > 2 ? 's' : ''})` : ''}</p>
+                </div>
                 <button type="button" className="btn" onClick={() => useProposal(p)}>Use this</button>
               </li>
             ))}

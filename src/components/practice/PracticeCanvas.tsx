@@ -2,13 +2,14 @@
  * The editor's canvas, store and inspector reused for practice without the editor's saving: a
  * read-only drawing whose taps mark elements (find), or an editable copy that is only checked (fix).
  */
-import { useEffect, useRef, type ReactNode } from 'react';
+import { useEffect, useRef, useState, type ReactNode } from 'react';
 import { ReactFlowProvider, type ReactFlowInstance } from 'reactflow';
 import 'reactflow/dist/base.css';
 import '../editor/editor.css';
 import { Canvas } from '../editor/Canvas';
 import { EditorStoreContext } from '../editor/selectors';
-import type { EditorStore } from '../editor/store';
+import { createEditorStore, type EditorStore } from '../editor/store';
+import type { PlanDocument } from '../../lib/schemas/plan';
 
 export function PracticeCanvas({ store, children, label }: { store: EditorStore; children?: ReactNode; label: string }) {
   const rf = useRef<ReactFlowInstance | null>(null);
@@ -29,4 +30,10 @@ export function PracticeCanvas({ store, children, label }: { store: EditorStore;
       </ReactFlowProvider>
     </EditorStoreContext.Provider>
   );
+}
+
+/** The drawing alone, read-only, with no figures: the context of a numbers question. */
+export function ReadOnlyDrawing({ document }: { document: PlanDocument }) {
+  const [store] = useState(() => createEditorStore({ doc: document, readOnly: true, report: null }));
+  return <PracticeCanvas store={store} label="The plan, read-only" />;
 }

@@ -7,6 +7,7 @@ import type { PlanDocument } from '../../lib/schemas/plan';
 import { AttemptResultView } from './AttemptResultView';
 import { FixCopy } from './FixCopy';
 import { MarkElements } from './MarkElements';
+import { ReadOnlyDrawing } from './PracticeCanvas';
 import type { AttemptResult, LearnerExercise } from './types';
 
 export default function PracticeExercise({ exercise, canAnswer }: { exercise: LearnerExercise; canAnswer: boolean }) {
@@ -39,6 +40,7 @@ export default function PracticeExercise({ exercise, canAnswer }: { exercise: Le
       {exercise.kind === 'fix' && <FixCopy exercise={exercise} busy={busy} onSubmit={(document) => void send({ document })} />}
       {exercise.kind === 'numbers' && exercise.question && (
         <fieldset className="space-y-3">
+          <ReadOnlyDrawing document={exercise.document} />
           <legend className="mb-2 text-lg font-semibold">{exercise.question.text}</legend>
           <div className="grid gap-3 sm:grid-cols-2">
             {exercise.question.choices.map((c, i) => (

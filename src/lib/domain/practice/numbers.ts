@@ -82,7 +82,8 @@ export function cableRatingQuestion(plan: PlanDocument, linkId: string): Numbers
   if (down) wrong.push({ value: cableRating(down, t, f).ratingKa, reason: `The row for ${down} instead of ${link.cable}.` });
   const picked = pickChoices({ value: right.ratingKa, reason: `Right: ${right.basis}.` }, wrong);
   if (!picked) return null;
-  const ends = `${link.from} to ${link.to}`;
+  const name = (id: string) => plan.nodes.find((n) => n.id === id)?.label ?? id;
+  const ends = `${name(link.from)} to ${name(link.to)}`;
   return {
     quantity: 'cable-rating',
     question: `What fault current is jumper ${link.id} (${link.cable} copper, ${ends}) rated to carry for this plan's clearing time (${plan.system.clearingCycles} cycles at ${f} Hz)?`,
