@@ -45,7 +45,7 @@ describe('numbers in paths and queries', () => {
 });
 
 describe('notices named like object properties', () => {
-  it.each(['constructor', 'toString', '__proto__', 'hasOwnProperty'])('prints nothing for ?notice=%s or ?problem=%s', async (name) => {
+  it.each(['constructor', 'toString', '__proto__', 'hasOwnProperty'])('prints nothing when ?notice= and ?problem= are %s', async (name) => {
     const page = await lead.get(`/plans/${planId}?notice=${name}&problem=${name}`);
     expect(page.status).toBe(200);
     expect(page.text).not.toMatch(/\[object Object\]|function |native code/);
