@@ -27,11 +27,20 @@ export type InTransaction = (transaction: Transaction, revision: number) => Prom
  * A returned plan submitted again without edits gets a new revision (a copy of the returned
  * document), since the returned revision keeps its decision and each revision is decided once.
  */
-export async function submitPlan(db: Db, organizationId: number, planId: number, actorId: string, report: StoredReport, then?: InTransaction): Promise<Outcome<'not-found' | 'not-submittable' | 'blocked'> & { revision?: number }> {
+export async function submitPlan(
+  db: Db,
+  organizationId: number,
+  planId: number,
+  actorId: string,
+  report: StoredReport,
+  options: { checkedRevision?: number; then?: InTransaction } = {},
+): Promise<Outcome<'not-found' | 'not-submittable' | 'blocked' | 'stale'> & { revision?: number }> {
   return db.sequelize.transaction(locked(), async (transaction) => {
     const plan = await db.models.Plan.findOne({ where: { id: planId, organizationId }, lock: transaction.LOCK.UPDATE, transaction });
     if (!plan) return { kind: 'not-found' as const };
     if (!isEditable(plan.status)) return { kind: 'not-submittable' as const, status: plan.status };
+    // The report is of the revision the caller read; a save since then has not been checked.
+    if (options.checkedRevision !== undefined && plan.currentRevision !== options.checkedRevision) return { kind: 'stale' as const, revision: plan.currentRevision };
     const blockers = report.summary?.blockers ?? 0;
     const counts = { blockers, warnings: report.summary?.warnings ?? 0 };
     const decided = (await db.models.PlanDecision.count({ where: { planId, revision: plan.currentRevision }, transaction })) > 0;
@@ -54,7 +63,7 @@ export async function submitPlan(db: Db, organizationId: number, planId: number,
     }
     await plan.update({ ...counts, status: 'submitted', submittedAt: new Date() }, { transaction });
     await recordEvent(db, { organizationId, actorId, action: 'plan.submitted', subjectType: 'plan', subjectId: planId, details: { revision, ...(decided ? { copiedFrom: revision - 1 } : {}) } }, transaction);
-    await then?.(transaction, revision);
+    await options.then?.(transaction, revision);
     return { kind: 'ok' as const, revision };
   });
 }

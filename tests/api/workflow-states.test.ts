@@ -6,13 +6,15 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { nextStatus, PLAN_STATUSES, WORKFLOW_ACTIONS, type PlanStatus, type WorkflowAction } from '../../src/lib/domain/plan-status';
+import { submitPlan } from '../../db/repositories/review';
 import { Client, signedIn } from '../helpers/api';
 import { closeTestDb, makeTeam, planDocument, testDb, PASSWORD } from '../helpers/factories';
 
 let lead: Client;
 let reviewer: Client;
+let team: Awaited<ReturnType<typeof makeTeam>>;
 beforeAll(async () => {
-  const team = await makeTeam();
+  team = await makeTeam();
   [lead, reviewer] = await Promise.all([signedIn(team.lead.email, PASSWORD), signedIn(team.reviewer.email, PASSWORD)]);
 });
 afterAll(closeTestDb);
@@ -91,5 +93,15 @@ describe('the workflow state machine', () => {
     const approved = await reviewer.post(`/api/plans/${plan.id}/review`, { decision: 'approve' });
     expect(approved.status).toBe(200);
     expect(approved.body.plan).toMatchObject({ status: 'approved', currentRevision: 2 });
+  });
+
+  it('never submits a revision other than the one the server checked', async () => {
+    const plan = (await lead.post('/api/plans', { title: 'Raced pole', document: planDocument() })).body.plan;
+    // A save lands between the submit's check of revision 1 and its transaction.
+    expect((await lead.put(`/api/plans/${plan.id}`, { expectedRevision: 1, document: planDocument({ title: 'Saved meanwhile' }) })).status).toBe(200);
+    const clean = { summary: { blockers: 0, warnings: 0, notes: 0 }, findings: [] };
+    const outcome = await submitPlan(testDb(), team.organizationId, plan.id, team.lead.id, clean, { checkedRevision: 1 });
+    expect(outcome).toMatchObject({ kind: 'stale', revision: 2 });
+    expect(await current(plan.id)).toMatchObject({ status: 'draft', currentRevision: 2 });
   });
 });

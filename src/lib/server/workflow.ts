@@ -25,12 +25,16 @@ export async function submitForReview(person: Person, planId: number, requestUrl
   const plan = await requirePlan(person, planId);
   const report = checkDocument(plan.document);
   // The reviewers' mail is queued inside the transaction: the request does all of it or none.
-  const outcome = await submitPlan(db, person.organizationId, planId, person.id, report, async (transaction, revision) => {
-    const reviewers = await db.models.User.findAll({ where: { organizationId: person.organizationId, role: 'reviewer', disabled: false }, attributes: ['email', 'id'], transaction });
-    const ref = { id: plan.id, title: plan.title, revision, organizationId: person.organizationId };
-    await queueMail(reviewers.filter((r) => r.id !== person.id).map((r) => submittedMessage(r.email, ref, person.name, publicUrl(requestUrl))), transaction);
+  const outcome = await submitPlan(db, person.organizationId, planId, person.id, report, {
+    checkedRevision: plan.currentRevision,
+    then: async (transaction, revision) => {
+      const reviewers = await db.models.User.findAll({ where: { organizationId: person.organizationId, role: 'reviewer', disabled: false }, attributes: ['email', 'id'], transaction });
+      const ref = { id: plan.id, title: plan.title, revision, organizationId: person.organizationId };
+      await queueMail(reviewers.filter((r) => r.id !== person.id).map((r) => submittedMessage(r.email, ref, person.name, publicUrl(requestUrl))), transaction);
+    },
   });
   if (outcome.kind === 'not-found') throw new AppError('NOT_FOUND');
+  if (outcome.kind === 'stale') throw new AppError('STALE_REVISION', { message: 'The plan was saved while it was being submitted, so the revision checked is not the current one; nothing was submitted. Submit again.', extra: { currentRevision: outcome.revision } });
   if (outcome.kind === 'not-submittable') throw new AppError('NOT_SUBMITTABLE', { extra: { status: outcome.status } });
   if (outcome.kind === 'blocked') {
     const blockers = report.findings.filter((f) => f.severity === 'blocker').map((f) => ({ rule: f.rule, elements: f.elements, message: f.message }));
