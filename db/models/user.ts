@@ -10,6 +10,8 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   /** Null until the person has set a password through their invitation link. */
   declare passwordHash: string | null;
   declare disabled: CreationOptional<boolean>;
+  /** The admin who invited this person (null for people made by seeders or tests). */
+  declare invitedBy: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -24,6 +26,7 @@ export function initUser(sequelize: Sequelize): typeof User {
       role: { type: DataTypes.ENUM(...ROLES), allowNull: false },
       passwordHash: { type: DataTypes.STRING(255), allowNull: true },
       disabled: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+      invitedBy: { type: DataTypes.STRING(32), allowNull: true, defaultValue: null },
       createdAt: DataTypes.DATE(3),
       updatedAt: DataTypes.DATE(3),
     },

@@ -1,6 +1,6 @@
 /** People and organisations: rows in, Person out. Every look-up but sign-in is scoped to an organisation. */
 import { randomBytes } from 'node:crypto';
-import { Op } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 import type { Person } from '../../src/lib/domain/people';
 import { normaliseEmail } from '../../src/lib/domain/people';
 import type { Role } from '../../src/lib/domain/roles';
@@ -33,8 +33,8 @@ export async function findPersonForSignIn(db: Db, email: string): Promise<{ pers
   return row ? { person: toPerson(row), passwordHash: row.passwordHash } : null;
 }
 
-export async function findPerson(db: Db, organizationId: number, id: string): Promise<Person | null> {
-  const row = (await db.models.User.findOne({ where: { id, organizationId }, include: [withOrg(db)] })) as UserWithOrg | null;
+export async function findPerson(db: Db, organizationId: number, id: string, transaction?: Transaction): Promise<Person | null> {
+  const row = (await db.models.User.findOne({ where: { id, organizationId }, include: [withOrg(db)], transaction })) as UserWithOrg | null;
   return row ? toPerson(row) : null;
 }
 
@@ -47,31 +47,44 @@ export async function listPeople(db: Db, organizationId: number): Promise<Person
   return rows.map(toPerson);
 }
 
-export async function emailExists(db: Db, email: string): Promise<boolean> {
-  return (await db.models.User.count({ where: { email: normaliseEmail(email) } })) > 0;
+/** The organisation of whoever holds this e-mail, or null when nobody does. */
+export async function emailOrganization(db: Db, email: string, transaction?: Transaction): Promise<number | null> {
+  const row = await db.models.User.findOne({ where: { email: normaliseEmail(email) }, attributes: ['organizationId'], transaction });
+  return row?.organizationId ?? null;
 }
 
 export async function createPerson(
   db: Db,
-  input: { organizationId: number; email: string; name: string; role: Role; passwordHash: string | null },
+  input: { organizationId: number; email: string; name: string; role: Role; passwordHash: string | null; invitedBy?: string | null },
+  transaction?: Transaction,
 ): Promise<Person> {
-  const row = await db.models.User.create({ id: newId(), ...input, email: normaliseEmail(input.email) });
-  const found = await findPerson(db, input.organizationId, row.id);
+  const row = await db.models.User.create({ id: newId(), ...input, email: normaliseEmail(input.email) }, { transaction });
+  const found = await findPerson(db, input.organizationId, row.id, transaction);
   return found!;
 }
 
-export async function updatePerson(db: Db, organizationId: number, id: string, changes: { role?: Role; disabled?: boolean; name?: string }): Promise<Person | null> {
-  await db.models.User.update(changes, { where: { id, organizationId } });
-  return findPerson(db, organizationId, id);
+export async function updatePerson(db: Db, organizationId: number, id: string, changes: { role?: Role; disabled?: boolean; name?: string }, transaction?: Transaction): Promise<Person | null> {
+  await db.models.User.update(changes, { where: { id, organizationId }, transaction });
+  return findPerson(db, organizationId, id, transaction);
 }
 
-export async function setPasswordHash(db: Db, userId: string, passwordHash: string): Promise<void> {
-  await db.models.User.update({ passwordHash }, { where: { id: userId } });
+/**
+ * Locks the organisation's row for the rest of the transaction: changes to who is admin, and
+ * invitations, go one at a time per organisation, so two admins demoting each other at once
+ * cannot leave it without an admin.
+ */
+export async function lockOrganization(db: Db, organizationId: number, transaction: Transaction): Promise<void> {
+  await db.models.Organization.findOne({ where: { id: organizationId }, attributes: ['id'], lock: transaction.LOCK.UPDATE, transaction });
 }
 
-export async function countActiveAdmins(db: Db, organizationId: number, exceptId?: string): Promise<number> {
+export async function setPasswordHash(db: Db, userId: string, passwordHash: string, transaction?: Transaction): Promise<void> {
+  await db.models.User.update({ passwordHash }, { where: { id: userId }, transaction });
+}
+
+export async function countActiveAdmins(db: Db, organizationId: number, exceptId?: string, transaction?: Transaction): Promise<number> {
   return db.models.User.count({
     where: { organizationId, role: 'admin', disabled: false, ...(exceptId ? { id: { [Op.ne]: exceptId } } : {}) },
+    transaction,
   });
 }
 

@@ -6,6 +6,7 @@ import { Op, Transaction, type Order, type WhereOptions } from 'sequelize';
 import type { PlanStatus } from '../../src/lib/domain/plan-status';
 import { isEditable } from '../../src/lib/domain/plan-status';
 import { defaultSortDir, type ListPlansQuery } from '../../src/lib/schemas/api';
+import { pruneDeep } from '../../src/lib/schemas/depth';
 import { planSchema, type PlanDocument } from '../../src/lib/schemas/plan';
 import type { Db } from '../connection';
 import type { Plan, PlanRevision } from '../models';
@@ -63,9 +64,12 @@ function toSummary(row: PlanRow): PlanSummary {
   };
 }
 
-/** Parses a stored document with the plan schema: a corrupt row is an error, never silently used. */
+/**
+ * Parses a stored document with the plan schema: a corrupt row is an error, never silently used.
+ * Extra fields nested deeper than the format allows (stored before the limit) are cut first.
+ */
 export function readStoredDocument(text: string): PlanDocument {
-  return planSchema.parse(JSON.parse(text));
+  return planSchema.parse(pruneDeep(JSON.parse(text)));
 }
 
 function toDetail(row: PlanRow, revision: PlanRevision): PlanDetail {
@@ -227,15 +231,22 @@ export async function saveDraft(db: Db, organizationId: number, planId: number, 
   return { kind: outcome, current };
 }
 
-/** Stores a check report on the current revision (the report is derived data, not the document). */
+/**
+ * Stores a check report on the current revision (the report is derived data, not the document),
+ * with the plan's finding counts, in one transaction under the plan's row lock.
+ */
 export async function storeReport(db: Db, organizationId: number, planId: number, revision: number, report: StoredReport): Promise<boolean> {
-  const plan = await db.models.Plan.findOne({ where: { id: planId, organizationId } });
-  // Only the current revision of a plan still in the crew lead's hands takes a new report: an
-  // older revision is fixed once a later one exists, and a submitted or approved one is under review.
-  if (!plan || plan.currentRevision !== revision || !isEditable(plan.status)) return false;
-  await db.models.PlanRevision.update({ report: JSON.stringify(report) }, { where: { planId, number: revision } });
-  await plan.update({ blockers: report.summary?.blockers ?? null, warnings: report.summary?.warnings ?? null });
-  return true;
+  return db.sequelize.transaction({ isolationLevel: Transaction.ISOLATION_LEVELS.READ_COMMITTED }, async (transaction) => {
+    const plan = await db.models.Plan.findOne({ where: { id: planId, organizationId }, lock: transaction.LOCK.UPDATE, transaction });
+    // Only the current revision of a plan still in the crew lead's hands takes a new report: an
+    // older revision is fixed once a later one exists, and a submitted or approved one is under review.
+    if (!plan || plan.currentRevision !== revision || !isEditable(plan.status)) return false;
+    // A returned revision keeps the report it was decided on.
+    if (await db.models.PlanDecision.count({ where: { planId, revision }, transaction })) return false;
+    await db.models.PlanRevision.update({ report: JSON.stringify(report) }, { where: { planId, number: revision }, transaction });
+    await plan.update({ blockers: report.summary?.blockers ?? null, warnings: report.summary?.warnings ?? null }, { transaction });
+    return true;
+  });
 }
 
 /** A short description of the structure from the document's first structure node. */

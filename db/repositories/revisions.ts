@@ -100,20 +100,30 @@ export async function listComments(db: Db, organizationId: number, planId: numbe
   }));
 }
 
-export async function addComment(db: Db, organizationId: number, planId: number, authorId: string, input: { elementId: string | null; body: string; revision: number }): Promise<number> {
-  const row = await db.models.PlanComment.create({ planId, revision: input.revision, elementId: input.elementId, authorId, body: input.body, resolvedAt: null, resolvedBy: null });
-  await recordEvent(db, { organizationId, actorId: authorId, action: 'comment.added', subjectType: 'plan', subjectId: planId, details: { commentId: row.id, elementId: input.elementId, revision: input.revision } });
-  return row.id;
+/** Adds a comment to a plan of the organisation; null when the plan is not the organisation's. */
+export async function addComment(db: Db, organizationId: number, planId: number, authorId: string, input: { elementId: string | null; body: string; revision: number }): Promise<number | null> {
+  return db.sequelize.transaction(async (transaction) => {
+    if (!(await db.models.Plan.findOne({ where: { id: planId, organizationId }, attributes: ['id'], transaction }))) return null;
+    const row = await db.models.PlanComment.create({ planId, revision: input.revision, elementId: input.elementId, authorId, body: input.body, resolvedAt: null, resolvedBy: null }, { transaction });
+    await recordEvent(db, { organizationId, actorId: authorId, action: 'comment.added', subjectType: 'plan', subjectId: planId, details: { commentId: row.id, elementId: input.elementId, revision: input.revision } }, transaction);
+    return row.id;
+  });
 }
 
-/** Marks a comment resolved (or open again); false when it is not this plan's. */
+/**
+ * Marks a comment resolved (or open again); false when it is not a comment of this plan of this
+ * organisation. The plan is checked against the organisation in the same transaction as the write.
+ */
 export async function setCommentResolved(db: Db, organizationId: number, planId: number, commentId: number, actorId: string, resolved: boolean): Promise<boolean> {
-  const [count] = await db.models.PlanComment.update(
-    resolved ? { resolvedAt: new Date(), resolvedBy: actorId } : { resolvedAt: null, resolvedBy: null },
-    { where: { id: commentId, planId } },
-  );
-  if (count) await recordEvent(db, { organizationId, actorId, action: resolved ? 'comment.resolved' : 'comment.reopened', subjectType: 'plan', subjectId: planId, details: { commentId } });
-  return count === 1;
+  return db.sequelize.transaction(async (transaction) => {
+    if (!(await db.models.Plan.findOne({ where: { id: planId, organizationId }, attributes: ['id'], transaction }))) return false;
+    // Found first, then changed: an update that changes nothing reports no rows in MariaDB.
+    const comment = await db.models.PlanComment.findOne({ where: { id: commentId, planId }, transaction });
+    if (!comment) return false;
+    await comment.update(resolved ? { resolvedAt: new Date(), resolvedBy: actorId } : { resolvedAt: null, resolvedBy: null }, { transaction });
+    await recordEvent(db, { organizationId, actorId, action: resolved ? 'comment.resolved' : 'comment.reopened', subjectType: 'plan', subjectId: planId, details: { commentId } }, transaction);
+    return true;
+  });
 }
 
 /** Open comment counts for many plans at once (the home page's Returned list). */

@@ -1,6 +1,6 @@
 /** Failed sign-ins and one-time password links, stored so that they hold across restarts and instances. */
 import { createHash, randomBytes } from 'node:crypto';
-import { Op } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 import { normaliseEmail } from '../../src/lib/domain/people';
 import type { Db } from '../connection';
 
@@ -27,9 +27,9 @@ export async function clearFailures(db: Db, email: string): Promise<void> {
 const hashToken = (token: string) => createHash('sha256').update(token).digest('hex');
 
 /** Creates a one-time token for a person; returns the token itself (only its hash is stored). */
-export async function createPasswordToken(db: Db, userId: string, purpose: 'invite' | 'reset', expiresAt: Date): Promise<string> {
+export async function createPasswordToken(db: Db, userId: string, purpose: 'invite' | 'reset', expiresAt: Date, transaction?: Transaction): Promise<string> {
   const token = randomBytes(24).toString('base64url');
-  await db.models.PasswordToken.create({ tokenHash: hashToken(token), userId, purpose, expiresAt, usedAt: null });
+  await db.models.PasswordToken.create({ tokenHash: hashToken(token), userId, purpose, expiresAt, usedAt: null }, { transaction });
   return token;
 }
 
@@ -42,10 +42,15 @@ export async function findUsableToken(db: Db, token: string, now: Date): Promise
 }
 
 /** Marks the token used; false when another request used it first. */
-export async function consumeToken(db: Db, token: string, now: Date): Promise<boolean> {
+export async function consumeToken(db: Db, token: string, now: Date, transaction?: Transaction): Promise<boolean> {
   const [count] = await db.models.PasswordToken.update(
     { usedAt: now },
-    { where: { tokenHash: hashToken(token), usedAt: null, expiresAt: { [Op.gt]: now } } },
+    { where: { tokenHash: hashToken(token), usedAt: null, expiresAt: { [Op.gt]: now } }, transaction },
   );
   return count === 1;
+}
+
+/** Ends every outstanding invitation and reset link of a person (their password just changed). */
+export async function revokeTokens(db: Db, userId: string, now: Date, transaction?: Transaction): Promise<void> {
+  await db.models.PasswordToken.update({ usedAt: now }, { where: { userId, usedAt: null }, transaction });
 }

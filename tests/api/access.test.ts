@@ -4,7 +4,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Client, signedIn } from '../helpers/api';
-import { closeTestDb, makeOrganization, makePerson, makeTeam, planDocument, PASSWORD } from '../helpers/factories';
+import { closeTestDb, makeOrganization, makePerson, makeTeam, planDocument, testDb, PASSWORD } from '../helpers/factories';
 
 type Caller = 'anonymous' | 'admin' | 'reviewer' | 'crew_lead' | 'apprentice' | 'other';
 const CALLERS: Caller[] = ['anonymous', 'admin', 'reviewer', 'crew_lead', 'apprentice', 'other'];
@@ -14,6 +14,10 @@ let planId: number;
 let submittedId: number;
 let approvedId: number;
 let targetUserId: string;
+let commentId: number;
+let otherPlanId: number;
+// For the form routes, on plans of their own so the API rows above do not move them.
+const form = { draftId: 0, submittedId: 0, approvedId: 0, commentId: 0 };
 
 beforeAll(async () => {
   const team = await makeTeam();
@@ -36,6 +40,14 @@ beforeAll(async () => {
   approvedId = approved.body.plan.id;
   expect((await clients.crew_lead.post(`/api/plans/${approvedId}/submit`)).status).toBe(200);
   expect((await clients.reviewer.post(`/api/plans/${approvedId}/review`, { decision: 'approve' })).status).toBe(200);
+  commentId = (await clients.reviewer.post(`/api/plans/${planId}/comments`, { body: 'Matrix comment.' })).body.comment.id;
+  otherPlanId = (await clients.other.post('/api/plans', { title: 'Their own pole', document: planDocument() })).body.plan.id;
+  const make = async () => (await clients.crew_lead.post('/api/plans', { title: 'Form matrix pole', document: planDocument() })).body.plan.id as number;
+  [form.draftId, form.submittedId, form.approvedId] = [await make(), await make(), await make()];
+  expect((await clients.crew_lead.post(`/api/plans/${form.submittedId}/submit`)).status).toBe(200);
+  expect((await clients.crew_lead.post(`/api/plans/${form.approvedId}/submit`)).status).toBe(200);
+  expect((await clients.reviewer.post(`/api/plans/${form.approvedId}/review`, { decision: 'approve' })).status).toBe(200);
+  form.commentId = (await clients.reviewer.post(`/api/plans/${form.draftId}/comments`, { body: 'Form matrix comment.' })).body.comment.id;
 });
 afterAll(closeTestDb);
 
@@ -79,6 +91,7 @@ const routes: Route[] = [
   { name: 'GET /api/plans/:id/revisions/:n', call: (c) => c.get(`/api/plans/${planId}/revisions/1`), expect: { anonymous: 401, admin: 200, reviewer: 200, crew_lead: 200, apprentice: 200, other: 404 } },
   { name: 'GET /api/plans/:id/comments', call: (c) => c.get(`/api/plans/${planId}/comments`), expect: { anonymous: 401, admin: 200, reviewer: 200, crew_lead: 200, apprentice: 200, other: 404 } },
   { name: 'POST /api/plans/:id/comments', call: (c) => c.post(`/api/plans/${planId}/comments`, { elementId: 'A', body: 'Check this clamp.' }), expect: { anonymous: 401, admin: 201, reviewer: 201, crew_lead: 201, apprentice: 403, other: 404 } },
+  { name: 'PATCH /api/plans/:id/comments/:cid', call: (c) => c.patch(`/api/plans/${planId}/comments/${commentId}`, { resolved: true }), expect: { anonymous: 401, admin: 200, reviewer: 200, crew_lead: 200, apprentice: 403, other: 404 } },
   { name: 'GET /api/plans/:id/history', call: (c) => c.get(`/api/plans/${planId}/history`), expect: { anonymous: 401, admin: 200, reviewer: 200, crew_lead: 200, apprentice: 200, other: 404 } },
   { name: 'GET /api/plans/:id/diff', call: (c) => c.get(`/api/plans/${planId}/diff?from=1&to=2`), expect: { anonymous: 401, admin: 200, reviewer: 200, crew_lead: 200, apprentice: 200, other: 404 } },
   { name: 'GET /api/dev/mail', call: (c) => c.get('/api/dev/mail'), expect: { anonymous: 401, admin: 200, reviewer: 403, crew_lead: 403, apprentice: 403, other: 403 } },
@@ -96,6 +109,90 @@ describe.each(routes)('$name', (route) => {
     }
     if (response.status === 403) expect(response.body.error.message).toMatch(/needs the .* role/);
   });
+});
+
+/**
+ * The plan page's form routes: they answer with a redirect carrying what happened (or a page), so
+ * each cell is the status and, for a redirect, the notice, the problem or the sign-in page.
+ */
+interface FormRoute {
+  name: string;
+  call: (c: Client) => Promise<{ status: number; headers: Headers }>;
+  expect: Record<Caller, string>;
+}
+
+function outcome(response: { status: number; headers: Headers }): string {
+  if (response.status !== 303) return String(response.status);
+  const location = new URL(response.headers.get('location') ?? '', 'http://app.test');
+  if (location.pathname === '/login') return '303 sign-in';
+  return `303 ${location.search.slice(1) || location.pathname}`;
+}
+
+const workflow = (id: () => number, fields: Record<string, string>) => (c: Client) => c.form(`/plans/${id()}/workflow`, fields);
+const formRoutes: FormRoute[] = [
+  {
+    name: 'POST /plans/:id/workflow resolve',
+    call: (c) => workflow(() => form.draftId, { action: 'resolve', commentId: String(form.commentId) })(c),
+    expect: { anonymous: '303 sign-in', admin: '303 notice=resolved', reviewer: '303 notice=resolved', crew_lead: '303 notice=resolved', apprentice: '303 problem=ROLE_REQUIRED', other: '303 problem=NOT_FOUND' },
+  },
+  {
+    name: 'POST /plans/:id/workflow unresolve',
+    call: (c) => workflow(() => form.draftId, { action: 'unresolve', commentId: String(form.commentId) })(c),
+    expect: { anonymous: '303 sign-in', admin: '303 notice=reopened-comment', reviewer: '303 notice=reopened-comment', crew_lead: '303 notice=reopened-comment', apprentice: '303 problem=ROLE_REQUIRED', other: '303 problem=NOT_FOUND' },
+  },
+  {
+    name: 'POST /plans/:id/workflow submit',
+    call: (c) => workflow(() => form.draftId, { action: 'submit' })(c),
+    expect: { anonymous: '303 sign-in', admin: '303 notice=submitted', reviewer: '303 problem=ROLE_REQUIRED', crew_lead: '303 problem=NOT_SUBMITTABLE', apprentice: '303 problem=ROLE_REQUIRED', other: '303 problem=NOT_FOUND' },
+  },
+  {
+    name: 'POST /plans/:id/workflow reopen',
+    call: (c) => workflow(() => form.approvedId, { action: 'reopen' })(c),
+    expect: { anonymous: '303 sign-in', admin: '303 notice=reopened', reviewer: '303 problem=ROLE_REQUIRED', crew_lead: '303 problem=NOT_APPROVED', apprentice: '303 problem=ROLE_REQUIRED', other: '303 problem=NOT_FOUND' },
+  },
+  {
+    name: 'POST /plans/:id/review comment',
+    call: (c) => c.form(`/plans/${form.submittedId}/review`, { action: 'comment', body: 'A form comment.' }),
+    // "other" is a crew lead: refused for the role before the plan is looked up.
+    expect: { anonymous: '303 sign-in', admin: '200', reviewer: '200', crew_lead: '403', apprentice: '403', other: '403' },
+  },
+  {
+    name: 'POST /plans/:id/review decide',
+    call: (c) => c.form(`/plans/${form.submittedId}/review`, { action: 'decide', decision: 'return', comment: 'Form return.', revision: '1' }),
+    expect: { anonymous: '303 sign-in', admin: '303 /review', reviewer: '409', crew_lead: '403', apprentice: '403', other: '403' },
+  },
+];
+
+describe.each(formRoutes)('$name (form)', (route) => {
+  it.each(CALLERS)('answers %s with the expected outcome', async (caller) => {
+    expect(outcome(await route.call(clients[caller]))).toBe(route.expect[caller]);
+  });
+});
+
+describe('comments of another organisation', () => {
+  it('cannot be resolved or opened again through either route, by plan id or by comment id', async () => {
+    const row = () => testDb().models.PlanComment.findByPk(commentId);
+    await testDb().models.PlanComment.update({ resolvedAt: null, resolvedBy: null }, { where: { id: commentId } });
+    for (const via of [planId, otherPlanId]) {
+      expect(outcome(await clients.other.form(`/plans/${via}/workflow`, { action: 'resolve', commentId: String(commentId) }))).toBe('303 problem=NOT_FOUND');
+      expect((await clients.other.patch(`/api/plans/${via}/comments/${commentId}`, { resolved: true })).status).toBe(404);
+    }
+    expect((await row())!.resolvedAt).toBeNull();
+    await clients.reviewer.patch(`/api/plans/${planId}/comments/${commentId}`, { resolved: true });
+    for (const via of [planId, otherPlanId]) {
+      await clients.other.form(`/plans/${via}/workflow`, { action: 'unresolve', commentId: String(commentId) });
+      await clients.other.patch(`/api/plans/${via}/comments/${commentId}`, { resolved: false });
+    }
+    expect((await row())!.resolvedAt).not.toBeNull();
+  });
+});
+
+it('keeps another organisation\'s reviewer out of the review form (404) and changes nothing', async () => {
+  const outsider = await signedIn((await makeTeam()).reviewer.email, PASSWORD);
+  const before = await testDb().models.PlanComment.count({ where: { planId: form.submittedId } });
+  expect((await outsider.form(`/plans/${form.submittedId}/review`, { action: 'comment', body: 'From outside.' })).status).toBe(404);
+  expect((await outsider.form(`/plans/${form.submittedId}/review`, { action: 'decide', decision: 'approve', revision: '1' })).status).toBe(404);
+  expect(await testDb().models.PlanComment.count({ where: { planId: form.submittedId } })).toBe(before);
 });
 
 it('names the role needed in a 403', async () => {

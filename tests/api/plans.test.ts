@@ -33,7 +33,7 @@ describe('creating and reading', () => {
     expect((await lead.get('/api/plans/99999999')).status).toBe(404);
     const bad = await lead.get('/api/plans/abc');
     expect(bad.status).toBe(400);
-    expect(bad.body.error.issues[0].path).toBe('(document)');
+    expect(bad.body.error.issues[0].path).toBe('id');
   });
 });
 

@@ -54,6 +54,11 @@ export class Client {
     return this.request<T>('PATCH', path, { json });
   }
 
+  /** Posts an HTML form (urlencoded) from the app's own origin, as a browser on its page would. */
+  form<T = any>(path: string, fields: Record<string, string>) {
+    return this.request<T>('POST', path, { body: new URLSearchParams(fields).toString(), headers: { origin: new URL(this.baseUrl).origin, 'content-type': 'application/x-www-form-urlencoded' } });
+  }
+
   async signIn(email: string, password: string): Promise<this> {
     const response = await this.post('/api/auth/login', { email, password });
     if (response.status !== 200) throw new Error(`sign-in of ${email} failed: ${response.status} ${response.text}`);

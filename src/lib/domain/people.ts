@@ -17,3 +17,15 @@ export interface Person {
 export function normaliseEmail(email: string): string {
   return email.trim().toLowerCase();
 }
+
+/**
+ * The mailbox an address delivers to, for telling whether two accounts share one: case-blind,
+ * and without a `+tag` on the local part (most mail servers deliver `name+x@host` to `name@host`).
+ */
+export function mailboxKey(email: string): string {
+  const address = normaliseEmail(email);
+  const at = address.lastIndexOf('@');
+  if (at < 0) return address;
+  const local = address.slice(0, at).split('+')[0];
+  return `${local}@${address.slice(at + 1)}`;
+}

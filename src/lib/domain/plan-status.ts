@@ -17,3 +17,21 @@ export function isPlanStatus(value: unknown): value is PlanStatus {
 export function isEditable(status: PlanStatus): boolean {
   return status === 'draft' || status === 'returned';
 }
+
+/** Everything a person can do to move a plan, and what each does from each state (null: refused). */
+export const WORKFLOW_ACTIONS = ['save', 'submit', 'approve', 'return', 'reopen'] as const;
+export type WorkflowAction = (typeof WORKFLOW_ACTIONS)[number];
+
+const TRANSITIONS: Record<PlanStatus, Partial<Record<WorkflowAction, PlanStatus>>> = {
+  // Saving keeps the state: a returned plan stays returned (with its comments) until resubmitted.
+  draft: { save: 'draft', submit: 'submitted' },
+  // Submitting a returned plan unchanged makes a new revision (a copy), so it can be decided again.
+  returned: { save: 'returned', submit: 'submitted' },
+  submitted: { approve: 'approved', return: 'returned' },
+  // Reopening copies the approved document into a new draft revision.
+  approved: { reopen: 'draft' },
+};
+
+export function nextStatus(status: PlanStatus, action: WorkflowAction): PlanStatus | null {
+  return TRANSITIONS[status][action] ?? null;
+}

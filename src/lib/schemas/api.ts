@@ -2,6 +2,7 @@
 import { z } from 'zod';
 import { PLAN_STATUSES } from '../domain/plan-status';
 import { ROLES } from '../domain/roles';
+import { newPassword } from './password';
 import { planDocumentSchema } from './plan';
 
 const email = z
@@ -16,11 +17,7 @@ export const loginBody = z.object({
   password: z.string({ required_error: 'is required', invalid_type_error: 'must be a string' }).min(1, 'is required').max(1024, 'is too long'),
 });
 
-export const PASSWORD_MIN = 10;
-export const newPassword = z
-  .string({ required_error: 'is required', invalid_type_error: 'must be a string' })
-  .min(PASSWORD_MIN, `must be at least ${PASSWORD_MIN} characters`)
-  .max(256, 'must be at most 256 characters');
+export { PASSWORD_MIN, newPassword } from './password';
 
 export const setPasswordBody = z.object({
   token: z.string({ required_error: 'is required' }).min(10, 'is not a valid link').max(200, 'is not a valid link'),
@@ -77,7 +74,23 @@ export const updateUserBody = z
   })
   .refine((v) => v.role !== undefined || v.disabled !== undefined, { message: 'give role or disabled', path: ['role'] });
 
-export const idParam = z.coerce.number({ invalid_type_error: 'must be a number' }).int('must be a whole number').min(1, 'must be at least 1').max(2 ** 31, 'is too large');
+/**
+ * An id or revision number from a path, query or form: digits only, so `0x1`, `1e0`, ` 1`, `1 `
+ * or `%31` are refused rather than read as 1.
+ */
+export const idParam = z.unknown().transform((value, ctx): number => {
+  const text = typeof value === 'number' && Number.isSafeInteger(value) ? String(value) : value;
+  if (typeof text !== 'string' || !/^[1-9][0-9]{0,9}$/.test(text)) {
+    ctx.addIssue({ code: 'custom', message: 'must be a whole number of 1 or more, written in digits' });
+    return z.NEVER;
+  }
+  const n = Number(text);
+  if (n > 2 ** 31) {
+    ctx.addIssue({ code: 'custom', message: 'is too large' });
+    return z.NEVER;
+  }
+  return n;
+});
 
 const text = (max: number) => z.string({ invalid_type_error: 'must be a string' }).trim().max(max, `must be at most ${max} characters`);
 

@@ -4,6 +4,7 @@
  * Quantities are stored in fixed SI-ish units whose names carry the unit.
  */
 import { z } from 'zod';
+import { findDepthIssue } from './depth';
 
 export const PLAN_FORMAT = 'bondmap-plan' as const;
 export const PLAN_VERSION = 1 as const;
@@ -274,6 +275,8 @@ export type ParseResult = { ok: true; plan: PlanDocument } | { ok: false; issues
  * cross-references together) rather than throwing.
  */
 export function parsePlan(input: unknown): ParseResult {
+  const tooDeep = findDepthIssue(input);
+  if (tooDeep) return { ok: false, issues: [{ path: formatIssuePath(tooDeep.path), message: tooDeep.message }] };
   const result = planSchema.safeParse(input);
   const references = findReferenceIssues(input).map((i) => ({ path: formatIssuePath(i.path), message: i.message }));
   const issues = [...(result.success ? [] : toPlanIssues(result.error)), ...references];
@@ -287,6 +290,11 @@ export function parsePlan(input: unknown): ParseResult {
 export const planDocumentSchema = z.unknown().transform((input, ctx): PlanDocument => {
   if (input === undefined) {
     ctx.addIssue({ code: 'custom', message: 'is required' });
+    return z.NEVER;
+  }
+  const tooDeep = findDepthIssue(input);
+  if (tooDeep) {
+    ctx.addIssue({ code: 'custom', path: tooDeep.path, message: tooDeep.message });
     return z.NEVER;
   }
   const result = planSchema.safeParse(input);

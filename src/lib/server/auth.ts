@@ -3,6 +3,7 @@
  * everything else calls the functions here and a later swap touches one file.
  */
 import { hash, verify } from '@node-rs/argon2';
+import { createHash } from 'node:crypto';
 import type { APIContext, AstroCookies } from 'astro';
 import { Lucia, TimeSpan, type Adapter, type DatabaseSession, type DatabaseUser } from 'lucia';
 import { Op } from 'sequelize';
@@ -10,36 +11,45 @@ import { getDb, type Db } from '../../../db/connection';
 import { findPerson } from '../../../db/repositories/people';
 import type { Person } from '../domain/people';
 
-/** Lucia's storage over our Sequelize models (sessions table; users resolved through people.ts). */
+/** The key a session is stored under: the SHA-256 of its token, so the table hands out no session. */
+export function sessionKey(token: string): string {
+  return createHash('sha256').update(token).digest('hex');
+}
+
+/**
+ * Lucia's storage over our Sequelize models (sessions table; users resolved through people.ts).
+ * Lucia hands the adapter the token itself; only its hash is ever written or looked up.
+ */
 class SequelizeSessionAdapter implements Adapter {
   constructor(private readonly db: () => Db) {}
 
   async getSessionAndUser(sessionId: string): Promise<[DatabaseSession | null, DatabaseUser | null]> {
-    const row = await this.db().models.Session.findByPk(sessionId);
+    const row = await this.db().models.Session.findByPk(sessionKey(sessionId));
     if (!row) return [null, null];
     const user = await this.db().models.User.findByPk(row.userId, { attributes: ['id', 'organizationId', 'disabled'] });
     if (!user) return [null, null];
     return [
-      { id: row.id, userId: row.userId, expiresAt: row.expiresAt, attributes: {} },
+      { id: sessionId, userId: row.userId, expiresAt: row.expiresAt, attributes: {} },
       { id: user.id, attributes: { organizationId: user.organizationId, disabled: user.disabled } },
     ];
   }
 
+  /** The ids here are the stored hashes (the tokens are not kept); nothing in the app calls this. */
   async getUserSessions(userId: string): Promise<DatabaseSession[]> {
     const rows = await this.db().models.Session.findAll({ where: { userId } });
     return rows.map((r) => ({ id: r.id, userId: r.userId, expiresAt: r.expiresAt, attributes: {} }));
   }
 
   async setSession(session: DatabaseSession): Promise<void> {
-    await this.db().models.Session.create({ id: session.id, userId: session.userId, expiresAt: session.expiresAt });
+    await this.db().models.Session.create({ id: sessionKey(session.id), userId: session.userId, expiresAt: session.expiresAt });
   }
 
   async updateSessionExpiration(sessionId: string, expiresAt: Date): Promise<void> {
-    await this.db().models.Session.update({ expiresAt }, { where: { id: sessionId } });
+    await this.db().models.Session.update({ expiresAt }, { where: { id: sessionKey(sessionId) } });
   }
 
   async deleteSession(sessionId: string): Promise<void> {
-    await this.db().models.Session.destroy({ where: { id: sessionId } });
+    await this.db().models.Session.destroy({ where: { id: sessionKey(sessionId) } });
   }
 
   async deleteUserSessions(userId: string): Promise<void> {
@@ -66,9 +76,16 @@ declare module 'lucia' {
 
 export const SESSION_COOKIE = lucia.sessionCookieName;
 
+/**
+ * The cookie is Secure when the public address is https. Without BONDMAP_PUBLIC_URL the request's
+ * own scheme decides (plain http on 127.0.0.1 for the local demo).
+ */
+export function cookieIsSecure(publicUrl: string | undefined, requestUrl: URL): boolean {
+  return publicUrl ? /^https:/i.test(publicUrl) : requestUrl.protocol === 'https:';
+}
+
 function writeCookie(cookies: AstroCookies, url: URL, cookie: ReturnType<typeof lucia.createBlankSessionCookie>): void {
-  // Secure whenever the app is reached over HTTPS; plain http on 127.0.0.1 for the local demo.
-  const secure = url.protocol === 'https:' || (process.env.BONDMAP_PUBLIC_URL ?? '').startsWith('https:');
+  const secure = cookieIsSecure(process.env.BONDMAP_PUBLIC_URL || undefined, url);
   cookies.set(cookie.name, cookie.value, { ...cookie.attributes, secure, httpOnly: true, sameSite: 'lax', path: '/' });
 }
 
@@ -89,6 +106,11 @@ export async function signOut(ctx: Pick<APIContext, 'cookies' | 'url' | 'locals'
 /** Ends every session of a person (used when they are disabled or their password changes). */
 export async function endAllSessions(userId: string): Promise<void> {
   await lucia.invalidateUserSessions(userId);
+}
+
+/** Ends every session of a person except the one with this token (if any). */
+export async function endOtherSessions(userId: string, keepToken: string | null): Promise<void> {
+  await getDb().models.Session.destroy({ where: { userId, ...(keepToken ? { id: { [Op.ne]: sessionKey(keepToken) } } : {}) } });
 }
 
 /**

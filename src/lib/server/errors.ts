@@ -24,6 +24,7 @@ export const ERRORS = {
   TOKEN_INVALID: { status: 400, message: 'This link is not valid any more (used or expired). Ask your admin for a new one.' },
   EMAIL_TAKEN: { status: 409, message: 'Someone already has this e-mail address. Use another, or find that person in the list.' },
   SELF_CHANGE: { status: 409, message: 'You cannot disable yourself or take away your own admin role; ask another admin.' },
+  RELATED_REVIEWER: { status: 403, message: 'You were invited by (or through) the author or an editor of this plan, or share a mailbox with one, so someone else must approve it.' },
   DB_DOWN: { status: 503, message: 'The database cannot be reached just now; nothing was changed. Try again in a moment.' },
   INTERNAL: { status: 500, message: 'Something went wrong on our side; nothing was changed. Try again, and tell your admin if it keeps happening.' },
   EXERCISE_NO_GAP: { status: 409, message: 'The modified plan has no blocker the approved one lacks, so there is nothing to find: an exercise must have a gap. Remove or change another link.' },

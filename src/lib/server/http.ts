@@ -1,6 +1,7 @@
 /** Helpers shared by every endpoint: one JSON error shape, body parsing with size limits. */
 import type { APIContext, APIRoute } from 'astro';
 import type { z } from 'zod';
+import { idParam } from '../schemas/api';
 import { formatIssuePath } from '../schemas/plan';
 import { AppError, isDbUnavailable } from './errors';
 
@@ -49,12 +50,15 @@ export async function readJson<S extends z.ZodTypeAny>(ctx: APIContext, schema: 
   return parseWith(schema, value);
 }
 
-/** Parses a value with a zod schema, throwing VALIDATION with every issue by path. */
-export function parseWith<S extends z.ZodTypeAny>(schema: S, value: unknown): z.infer<S> {
+/**
+ * Parses a value with a zod schema, throwing VALIDATION with every issue by path; `field` names
+ * a single value (a path parameter) in its issues.
+ */
+export function parseWith<S extends z.ZodTypeAny>(schema: S, value: unknown, field?: string): z.infer<S> {
   const result = schema.safeParse(value);
   if (!result.success) {
     throw new AppError('VALIDATION', {
-      issues: result.error.issues.map((i) => ({ path: formatIssuePath(i.path), message: i.message })),
+      issues: result.error.issues.map((i) => ({ path: formatIssuePath(field ? [field, ...i.path] : i.path), message: i.message })),
     });
   }
   return result.data;
@@ -76,6 +80,17 @@ async function readLimited(request: Request, limitBytes: number): Promise<string
     chunks.push(value);
   }
   return new TextDecoder().decode(Buffer.concat(chunks));
+}
+
+/**
+ * A number from the request path, read as written in the address: Astro decodes `%31` to `1` in
+ * `params` and `url`, so the raw segment at the parameter's place in the route pattern is parsed.
+ */
+export function pathId(ctx: Pick<APIContext, 'params' | 'request' | 'routePattern'>, name: string, field = name): number {
+  const index = ctx.routePattern.split('/').indexOf(`[${name}]`);
+  // ctx.url.pathname is decoded too; the request's own URL is as sent.
+  const raw = index >= 0 ? new URL(ctx.request.url).pathname.split('/')[index] : ctx.params[name];
+  return parseWith(idParam, raw, field);
 }
 
 /** Reads query-string parameters through a zod schema (unknown keys are ignored). */

@@ -13,6 +13,22 @@ ${input.lines.map((l) => `<p>${escapeHtml(l)}</p>`).join('\n')}
   return { to: input.to, subject: input.subject, kind: input.kind, organizationId: input.organizationId, text, html };
 }
 
+/** At most this many comments, each cut to this many characters, go into one mail; the plan page has them all. */
+export const MAIL_COMMENTS = 20;
+export const MAIL_COMMENT_CHARS = 1000;
+
+/** Cuts text to `max` code points (never inside a surrogate pair), marking the cut. */
+export function clip(text: string, max: number): string {
+  const points = [...text];
+  return points.length <= max ? text : `${points.slice(0, max).join('')}…`;
+}
+
+function commentLines(comments: string[]): string[] {
+  const shown = comments.slice(0, MAIL_COMMENTS).map((c) => `• ${clip(c, MAIL_COMMENT_CHARS)}`);
+  const more = comments.length - MAIL_COMMENTS;
+  return more > 0 ? [...shown, `…and ${more} more on the plan page.`] : shown;
+}
+
 export interface PlanRef {
   id: number;
   title: string;
@@ -40,7 +56,7 @@ export function decidedMessage(to: string, plan: PlanRef, decision: 'approve' | 
     organizationId: plan.organizationId,
     lines: approved
       ? [`${byName} approved "${plan.title}" (revision ${plan.revision}).`, 'Keep the field record as the grounds go on and come off.']
-      : [`${byName} returned "${plan.title}" (revision ${plan.revision}) with these comments:`, ...comments.map((c) => `• ${c}`), 'Fix what they point at, then submit again.'],
+      : [`${byName} returned "${plan.title}" (revision ${plan.revision}) with these comments:`, ...commentLines(comments), 'Fix what they point at, then submit again.'],
     link: { href: `${baseUrl}/plans/${plan.id}`, label: 'Open the plan' },
   });
 }
@@ -64,5 +80,21 @@ export function resetMessage(to: string, name: string, link: string, hours: numb
     organizationId: null,
     lines: [`Hello ${name},`, 'Someone (we hope you) asked to reset your Bondmap password.', `The link below works once and for ${hours} hour${hours === 1 ? '' : 's'}. If you did not ask, ignore this message; your password stays as it is.`],
     link: { href: link, label: 'Choose a new password' },
+  });
+}
+
+/** To an address that already has an account in another organisation: nothing was created. */
+export function addressInUseMessage(to: string, organizationName: string, signInLink: string): OutgoingMail {
+  return compose({
+    to,
+    subject: `An invitation to Bondmap for ${organizationName}`,
+    kind: 'user.invite-refused',
+    organizationId: null,
+    lines: [
+      `An admin of ${organizationName} tried to add this address to Bondmap.`,
+      'This address already has a Bondmap account in another organisation, and one address can belong to one organisation only, so nothing was created.',
+      'If you should join them, ask them to invite another address of yours. If you did not expect this, you need do nothing.',
+    ],
+    link: { href: signInLink, label: 'Sign in to your account' },
   });
 }

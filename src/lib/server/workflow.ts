@@ -24,16 +24,22 @@ export async function submitForReview(person: Person, planId: number, requestUrl
   const db = getDb();
   const plan = await requirePlan(person, planId);
   const report = checkDocument(plan.document);
-  const outcome = await submitPlan(db, person.organizationId, planId, person.id, report);
+  // The reviewers' mail is queued inside the transaction: the request does all of it or none.
+  const outcome = await submitPlan(db, person.organizationId, planId, person.id, report, {
+    checkedRevision: plan.currentRevision,
+    then: async (transaction, revision) => {
+      const reviewers = await db.models.User.findAll({ where: { organizationId: person.organizationId, role: 'reviewer', disabled: false }, attributes: ['email', 'id'], transaction });
+      const ref = { id: plan.id, title: plan.title, revision, organizationId: person.organizationId };
+      await queueMail(reviewers.filter((r) => r.id !== person.id).map((r) => submittedMessage(r.email, ref, person.name, publicUrl(requestUrl))), transaction);
+    },
+  });
   if (outcome.kind === 'not-found') throw new AppError('NOT_FOUND');
+  if (outcome.kind === 'stale') throw new AppError('STALE_REVISION', { message: 'The plan was saved while it was being submitted, so the revision checked is not the current one; nothing was submitted. Submit again.', extra: { currentRevision: outcome.revision } });
   if (outcome.kind === 'not-submittable') throw new AppError('NOT_SUBMITTABLE', { extra: { status: outcome.status } });
   if (outcome.kind === 'blocked') {
     const blockers = report.findings.filter((f) => f.severity === 'blocker').map((f) => ({ rule: f.rule, elements: f.elements, message: f.message }));
     throw new AppError('SUBMIT_BLOCKED', { extra: { blockers } });
   }
-  const reviewers = await db.models.User.findAll({ where: { organizationId: person.organizationId, role: 'reviewer', disabled: false }, attributes: ['email', 'id'] });
-  const ref = { id: plan.id, title: plan.title, revision: plan.currentRevision, organizationId: person.organizationId };
-  await queueMail(reviewers.filter((r) => r.id !== person.id).map((r) => submittedMessage(r.email, ref, person.name, publicUrl(requestUrl))));
   return (await getPlan(db, person.organizationId, planId))!;
 }
 
@@ -54,12 +60,21 @@ export async function decide(
     documentHash: approving ? canonicalHash(plan.document) : null,
     reportHash: approving ? canonicalHash(plan.report) : null,
     revision: input.revision ?? plan.currentRevision,
+  }, async (transaction, revision) => {
+    // The author's mail is queued inside the decision's transaction: all of it or none.
+    const author = await db.models.User.findByPk(plan.authorId, { attributes: ['email', 'disabled'], transaction });
+    if (!author || author.disabled) return;
+    const open = await db.models.PlanComment.findAll({ where: { planId, resolvedAt: null }, order: [['id', 'ASC']], transaction });
+    const ref = { id: plan.id, title: plan.title, revision, organizationId: person.organizationId };
+    await queueMail([decidedMessage(author.email, ref, input.decision, person.name, open.map((c) => (c.elementId ? `${c.elementId}: ${c.body}` : c.body)), publicUrl(requestUrl))], transaction);
   });
   switch (outcome.kind) {
     case 'not-found':
       throw new AppError('NOT_FOUND');
     case 'own-plan':
       throw new AppError('OWN_PLAN');
+    case 'related-reviewer':
+      throw new AppError('RELATED_REVIEWER');
     case 'not-submitted':
       throw new AppError('NOT_SUBMITTED', { extra: { status: outcome.status } });
     case 'already-decided':
@@ -68,12 +83,6 @@ export async function decide(
       throw new AppError('STALE_REVISION', { extra: { currentRevision: outcome.currentRevision } });
     case 'ok':
       break;
-  }
-  const author = await db.models.User.findByPk(plan.authorId, { attributes: ['email', 'disabled'] });
-  if (author && !author.disabled) {
-    const open = await db.models.PlanComment.findAll({ where: { planId, resolvedAt: null }, order: [['id', 'ASC']] });
-    const ref = { id: plan.id, title: plan.title, revision: plan.currentRevision, organizationId: person.organizationId };
-    await queueMail([decidedMessage(author.email, ref, input.decision, person.name, open.map((c) => (c.elementId ? `${c.elementId}: ${c.body}` : c.body)), publicUrl(requestUrl))]);
   }
   return (await getPlan(db, person.organizationId, planId))!;
 }

@@ -6,6 +6,6 @@ import { setPasswordWithToken } from '../../../lib/server/passwords';
 /** Sets a password through a one-time link (invitation or reset); the link then stops working. */
 export const POST = endpoint(async (ctx) => {
   const body = await readJson(ctx, setPasswordBody, 16 * 1024);
-  if (!(await setPasswordWithToken(body.token, body.password))) throw new AppError('TOKEN_INVALID');
+  if (!(await setPasswordWithToken(body.token, body.password, { personId: ctx.locals.person?.id ?? null, sessionToken: ctx.locals.sessionId }))) throw new AppError('TOKEN_INVALID');
   return json({ ok: true });
 });

@@ -1,19 +1,22 @@
 import { getDb } from '../../../../../db/connection';
 import { getPlan, storeReport } from '../../../../../db/repositories/plans';
-import { idParam } from '../../../../lib/schemas/api';
 import { checkDocument } from '../../../../lib/server/checking';
 import { AppError } from '../../../../lib/server/errors';
-import { requireUser } from '../../../../lib/server/guards';
-import { endpoint, json, parseWith } from '../../../../lib/server/http';
+import { hasRole, requireUser } from '../../../../lib/server/guards';
+import { endpoint, json, pathId } from '../../../../lib/server/http';
 
-/** Checks the plan's current revision again and stores the report with that revision. */
+/**
+ * Checks the plan's current revision again. For a crew lead or admin (who may edit the plan) the
+ * report is stored with that revision; for a reviewer or apprentice the call is read-only: the
+ * report is computed and returned with `stored: false`.
+ */
 export const POST = endpoint(async (ctx) => {
   const person = requireUser(ctx);
-  const id = parseWith(idParam, ctx.params.id);
+  const id = pathId(ctx, 'id');
   const db = getDb();
   const plan = await getPlan(db, person.organizationId, id);
   if (!plan) throw new AppError('NOT_FOUND');
   const report = checkDocument(plan.document);
-  const stored = await storeReport(db, person.organizationId, id, plan.currentRevision, report);
+  const stored = hasRole(person, 'crew_lead', 'admin') && (await storeReport(db, person.organizationId, id, plan.currentRevision, report));
   return json({ revision: plan.currentRevision, stored, report });
 });

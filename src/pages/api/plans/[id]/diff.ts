@@ -5,14 +5,14 @@ import { diffPlans } from '../../../../lib/domain/plan-diff';
 import { idParam } from '../../../../lib/schemas/api';
 import { AppError } from '../../../../lib/server/errors';
 import { requireUser } from '../../../../lib/server/guards';
-import { endpoint, json, parseWith, readQuery } from '../../../../lib/server/http';
+import { endpoint, json, pathId, readQuery } from '../../../../lib/server/http';
 
 const query = z.object({ from: idParam, to: idParam });
 
 /** What changed from revision `from` to revision `to`: nodes and links added, removed, changed. */
 export const GET = endpoint(async (ctx) => {
   const person = requireUser(ctx);
-  const id = parseWith(idParam, ctx.params.id);
+  const id = pathId(ctx, 'id');
   const { from, to } = readQuery(ctx.url, query);
   const db = getDb();
   const [a, b] = await Promise.all([getRevision(db, person.organizationId, id, from), getRevision(db, person.organizationId, id, to)]);

@@ -1,15 +1,14 @@
 import { getDb } from '../../../../../db/connection';
 import { listEvents } from '../../../../../db/repositories/audit';
 import { getPlan } from '../../../../../db/repositories/plans';
-import { idParam } from '../../../../lib/schemas/api';
 import { AppError } from '../../../../lib/server/errors';
 import { requireUser } from '../../../../lib/server/guards';
-import { endpoint, json, parseWith } from '../../../../lib/server/http';
+import { endpoint, json, pathId } from '../../../../lib/server/http';
 
 /** Who did what when: every save, state change, comment and decision on the plan, newest first. */
 export const GET = endpoint(async (ctx) => {
   const person = requireUser(ctx);
-  const id = parseWith(idParam, ctx.params.id);
+  const id = pathId(ctx, 'id');
   const db = getDb();
   if (!(await getPlan(db, person.organizationId, id))) throw new AppError('NOT_FOUND');
   return json({ events: await listEvents(db, person.organizationId, 'plan', id) });

@@ -1,15 +1,15 @@
 import { getDb } from '../../../../../db/connection';
 import { getPlan, saveDraft } from '../../../../../db/repositories/plans';
-import { idParam, savePlanBody } from '../../../../lib/schemas/api';
+import { savePlanBody } from '../../../../lib/schemas/api';
 import { checkDocument } from '../../../../lib/server/checking';
 import { AppError } from '../../../../lib/server/errors';
 import { requireRole, requireUser } from '../../../../lib/server/guards';
-import { endpoint, json, parseWith, readJson } from '../../../../lib/server/http';
+import { endpoint, json, pathId, readJson } from '../../../../lib/server/http';
 import { planJson } from '../../../../lib/server/plan-json';
 
 export const GET = endpoint(async (ctx) => {
   const person = requireUser(ctx);
-  const id = parseWith(idParam, ctx.params.id);
+  const id = pathId(ctx, 'id');
   const plan = await getPlan(getDb(), person.organizationId, id);
   if (!plan) throw new AppError('NOT_FOUND');
   return json({ plan: planJson(plan) });
@@ -21,7 +21,7 @@ export const GET = endpoint(async (ctx) => {
  */
 export const PUT = endpoint(async (ctx) => {
   const person = requireRole(ctx, 'crew_lead', 'admin');
-  const id = parseWith(idParam, ctx.params.id);
+  const id = pathId(ctx, 'id');
   const body = await readJson(ctx, savePlanBody);
   const document = body.title ? { ...body.document, title: body.title } : body.document;
   const result = await saveDraft(getDb(), person.organizationId, id, person.id, {

@@ -1,15 +1,15 @@
 import { getDb } from '../../../../../../db/connection';
 import { listComments, setCommentResolved } from '../../../../../../db/repositories/revisions';
-import { idParam, resolveCommentBody } from '../../../../../lib/schemas/api';
+import { resolveCommentBody } from '../../../../../lib/schemas/api';
 import { AppError } from '../../../../../lib/server/errors';
 import { requireRole } from '../../../../../lib/server/guards';
-import { endpoint, json, parseWith, readJson } from '../../../../../lib/server/http';
+import { endpoint, json, pathId, readJson } from '../../../../../lib/server/http';
 
 /** Resolves a comment (the crew lead fixed it) or opens it again: `{resolved}`. */
 export const PATCH = endpoint(async (ctx) => {
   const person = requireRole(ctx, 'crew_lead', 'admin', 'reviewer');
-  const id = parseWith(idParam, ctx.params.id);
-  const commentId = parseWith(idParam, ctx.params.cid);
+  const id = pathId(ctx, 'id');
+  const commentId = pathId(ctx, 'cid', 'commentId');
   const body = await readJson(ctx, resolveCommentBody, 4 * 1024);
   const db = getDb();
   if (!(await listComments(db, person.organizationId, id))) throw new AppError('NOT_FOUND');

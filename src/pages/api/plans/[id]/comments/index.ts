@@ -1,14 +1,14 @@
 import { getDb } from '../../../../../../db/connection';
 import { getPlan } from '../../../../../../db/repositories/plans';
 import { addComment, listComments } from '../../../../../../db/repositories/revisions';
-import { commentBody, idParam } from '../../../../../lib/schemas/api';
+import { commentBody } from '../../../../../lib/schemas/api';
 import { AppError } from '../../../../../lib/server/errors';
 import { requireRole, requireUser } from '../../../../../lib/server/guards';
-import { endpoint, json, parseWith, readJson } from '../../../../../lib/server/http';
+import { endpoint, json, pathId, readJson } from '../../../../../lib/server/http';
 
 export const GET = endpoint(async (ctx) => {
   const person = requireUser(ctx);
-  const comments = await listComments(getDb(), person.organizationId, parseWith(idParam, ctx.params.id));
+  const comments = await listComments(getDb(), person.organizationId, pathId(ctx, 'id'));
   if (!comments) throw new AppError('NOT_FOUND');
   return json({ comments });
 });
@@ -16,7 +16,7 @@ export const GET = endpoint(async (ctx) => {
 /** Adds a comment on the current revision, pinned to one of its nodes or links when `elementId` is given. */
 export const POST = endpoint(async (ctx) => {
   const person = requireRole(ctx, 'reviewer', 'admin', 'crew_lead');
-  const id = parseWith(idParam, ctx.params.id);
+  const id = pathId(ctx, 'id');
   const body = await readJson(ctx, commentBody, 64 * 1024);
   const db = getDb();
   const plan = await getPlan(db, person.organizationId, id);
@@ -27,6 +27,7 @@ export const POST = endpoint(async (ctx) => {
     throw new AppError('VALIDATION', { issues: [{ path: 'elementId', message: `no node or link with id "${elementId}" in revision ${plan.currentRevision}` }] });
   }
   const commentId = await addComment(db, person.organizationId, id, person.id, { elementId, body: body.body, revision: plan.currentRevision });
+  if (commentId === null) throw new AppError('NOT_FOUND');
   const comments = (await listComments(db, person.organizationId, id))!;
   return json({ comment: comments.find((c) => c.id === commentId) }, 201);
 });
