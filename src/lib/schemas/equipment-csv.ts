@@ -20,7 +20,12 @@ export interface CsvIssue {
   path: string;
   message: string;
 }
-export type CsvRow = CreateSetBody & { line: number; testDueOn?: string };
+export interface CsvRow {
+  line: number;
+  body: CreateSetBody;
+  /** The export's due date, kept for the command-line check only. */
+  testDueOn?: string;
+}
 export type CsvResult = { ok: true; rows: CsvRow[] } | { ok: false; issues: CsvIssue[] };
 
 type Record_ = { record: Record<string, string>; info: { lines: number } };
@@ -90,7 +95,7 @@ export function parseInventoryCsv(text: string): CsvResult {
     if (earlier !== undefined) issues.push({ path: `line ${line}.tag`, message: `tag "${parsed.data.tag}" is already on line ${earlier}` });
     firstLineOfTag.set(parsed.data.tag.toLowerCase(), line);
     const due = record.testDueOn;
-    rows.push({ ...parsed.data, line, ...(due && isCalendarDate(due) ? { testDueOn: due } : {}) });
+    rows.push({ line, body: parsed.data, ...(due && isCalendarDate(due) ? { testDueOn: due } : {}) });
   }
   return issues.length ? { ok: false, issues } : { ok: true, rows };
 }
@@ -101,17 +106,17 @@ export function inventoryFromCsv(text: string, intervalMonths = DEFAULT_TEST_INT
   if (!result.ok) return result;
   return {
     ok: true,
-    sets: result.rows.map((r) => ({
-      tag: r.tag,
-      cable: r.cable,
-      lengthM: r.lengthM,
-      clampKind: r.clampKind,
-      clampKa: r.clampKa,
-      clampCycles: r.clampCycles,
-      connection: r.connection,
-      status: r.status,
-      lastTestedOn: r.lastTestedOn ?? null,
-      testDueOn: r.testDueOn ?? testDueOn(r.lastTestedOn ?? null, r.inServiceOn, intervalMonths),
+    sets: result.rows.map(({ body: b, testDueOn: due }) => ({
+      tag: b.tag,
+      cable: b.cable,
+      lengthM: b.lengthM,
+      clampKind: b.clampKind,
+      clampKa: b.clampKa,
+      clampCycles: b.clampCycles,
+      connection: b.connection,
+      status: b.status,
+      lastTestedOn: b.lastTestedOn ?? null,
+      testDueOn: due ?? testDueOn(b.lastTestedOn ?? null, b.inServiceOn, intervalMonths),
     })),
   };
 }

@@ -10,7 +10,7 @@ describe('parseInventoryCsv', () => {
     const result = parseInventoryCsv(`${HEADER}\n${GOOD}\n\nGS-02,,4/0,6.5,live-line,43,30,bare-strands,2025-02-01,,,\n`);
     expect(result.ok).toBe(true);
     if (!result.ok) return;
-    expect(result.rows.map((r) => [r.tag, r.line, r.lengthM, r.status])).toEqual([['GS-01', 2, 3, 'in-service'], ['GS-02', 4, 6.5, 'in-service']]);
+    expect(result.rows.map((r) => [r.body.tag, r.line, r.body.lengthM, r.body.status])).toEqual([['GS-01', 2, 3, 'in-service'], ['GS-02', 4, 6.5, 'in-service']]);
   });
 
   it('reports every bad row at once', () => {

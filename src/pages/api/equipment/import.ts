@@ -20,9 +20,8 @@ export const POST = endpoint(async (ctx) => {
   const parsed = parseInventoryCsv(await readLimited(ctx.request, LIMIT));
   if (!parsed.ok) throw new AppError('VALIDATION', { message: 'Some rows are not valid; nothing was imported. Fix the cells listed and import the whole file again.', issues: parsed.issues });
   const day = today();
-  const future = parsed.rows.filter((r) => r.lastTestedOn && r.lastTestedOn > day);
+  const future = parsed.rows.filter((r) => r.body.lastTestedOn && r.body.lastTestedOn > day);
   if (future.length) throw new AppError('VALIDATION', { issues: future.map((r) => ({ path: `line ${r.line}.lastTestedOn`, message: 'must not be in the future' })) });
-  const bodies = parsed.rows.map(({ line: _line, testDueOn: _due, ...body }) => body);
-  const { created, updated } = unwrap(await saveSets(getDb(), person.organizationId, person.id, bodies, 'upsert'));
+  const { created, updated } = unwrap(await saveSets(getDb(), person.organizationId, person.id, parsed.rows.map((r) => r.body), 'upsert'));
   return json({ created: created.length, updated: updated.length, items: [...created, ...updated] });
 });

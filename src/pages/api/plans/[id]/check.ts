@@ -1,7 +1,7 @@
 import { getDb } from '../../../../../db/connection';
 import { getPlan, storeReport } from '../../../../../db/repositories/plans';
 import { idParam } from '../../../../lib/schemas/api';
-import { checkDocument } from '../../../../lib/server/checking';
+import { checkForOrganization } from '../../../../lib/server/checking';
 import { AppError } from '../../../../lib/server/errors';
 import { requireUser } from '../../../../lib/server/guards';
 import { endpoint, json, parseWith } from '../../../../lib/server/http';
@@ -13,7 +13,7 @@ export const POST = endpoint(async (ctx) => {
   const db = getDb();
   const plan = await getPlan(db, person.organizationId, id);
   if (!plan) throw new AppError('NOT_FOUND');
-  const report = checkDocument(plan.document);
+  const report = await checkForOrganization(db, person.organizationId, plan.document);
   const stored = await storeReport(db, person.organizationId, id, plan.currentRevision, report);
   return json({ revision: plan.currentRevision, stored, report });
 });
