@@ -1,8 +1,6 @@
 import { getDb } from '../../../../db/connection';
-import { saveSets } from '../../../../db/repositories/equipment';
-import { parseInventoryCsv } from '../../../lib/schemas/equipment-csv';
 import { AppError } from '../../../lib/server/errors';
-import { today, unwrap } from '../../../lib/server/equipment-http';
+import { importInventory } from '../../../lib/server/equipment-pages';
 import { requireRole } from '../../../lib/server/guards';
 import { endpoint, json, readLimited } from '../../../lib/server/http';
 
@@ -17,11 +15,7 @@ export const POST = endpoint(async (ctx) => {
   const type = ctx.request.headers.get('content-type') ?? '';
   if (!/^text\/(csv|plain)\b/i.test(type)) throw new AppError('UNSUPPORTED_MEDIA', { message: 'Send the inventory as CSV (Content-Type: text/csv).' });
   if (Number(ctx.request.headers.get('content-length') ?? 0) > LIMIT) throw new AppError('BODY_TOO_LARGE', { extra: { limitBytes: LIMIT } });
-  const parsed = parseInventoryCsv(await readLimited(ctx.request, LIMIT));
-  if (!parsed.ok) throw new AppError('VALIDATION', { message: 'Some rows are not valid; nothing was imported. Fix the cells listed and import the whole file again.', issues: parsed.issues });
-  const day = today();
-  const future = parsed.rows.filter((r) => r.body.lastTestedOn && r.body.lastTestedOn > day);
-  if (future.length) throw new AppError('VALIDATION', { issues: future.map((r) => ({ path: `line ${r.line}.lastTestedOn`, message: 'must not be in the future' })) });
-  const { created, updated } = unwrap(await saveSets(getDb(), person.organizationId, person.id, parsed.rows.map((r) => r.body), 'upsert'));
-  return json({ created: created.length, updated: updated.length, items: [...created, ...updated] });
+  const result = await importInventory(getDb(), person.organizationId, person.id, await readLimited(ctx.request, LIMIT));
+  if (!result.ok) throw new AppError('VALIDATION', { message: 'Some rows are not valid; nothing was imported. Fix the cells listed and import the whole file again.', issues: result.issues });
+  return json({ created: result.created.length, updated: result.updated.length, items: [...result.created, ...result.updated] });
 });
