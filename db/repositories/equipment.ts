@@ -72,7 +72,7 @@ const eventJson = (e: SetEvent): EventJson => ({ kind: e.kind, fromStatus: e.fro
 
 const SORT: Record<SetSort, string> = { tag: 'tag', cable: 'cable', length: 'lengthM', clamp: 'clampKa', status: 'status', lastTested: 'lastTestedOn', due: 'testDueOn' };
 
-/** One page of sets; `due` and `dueWithinDays` count from `today` (YYYY-MM-DD). */
+/** One page of sets; `due` and `dueWithinDays` count from `today` (YYYY-MM-DD) and skip retired sets. */
 export async function listSets(db: Db, organizationId: number, query: ListSetsQuery, today: string) {
   const where: WhereOptions = { organizationId };
   if (query.status) Object.assign(where, { status: query.status });
@@ -82,6 +82,8 @@ export async function listSets(db: Db, organizationId: number, query: ListSetsQu
   if (query.due === 'soon') due.push({ [Op.gte]: today, [Op.lte]: addDays(today, 30) });
   if (query.dueWithinDays !== undefined) due.push({ [Op.lte]: addDays(today, query.dueWithinDays) });
   if (due.length) Object.assign(where, { testDueOn: { [Op.and]: due } });
+  // A retired set is never due; the due filters leave it out unless its status is asked for.
+  if (due.length && !query.status) Object.assign(where, { status: { [Op.ne]: 'retired' } });
   const dir = query.dir.toUpperCase() as 'ASC' | 'DESC';
   const order: Order = [[SORT[query.sort], dir], ['tag', 'ASC'], ['id', 'ASC']];
   const { rows, count } = await db.models.GroundingSet.findAndCountAll({ where, order, limit: query.pageSize, offset: (query.page - 1) * query.pageSize });

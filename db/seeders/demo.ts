@@ -12,6 +12,7 @@ import { decidePlan, submitPlan } from '../repositories/review';
 import { addComment } from '../repositories/revisions';
 import type { Role } from '../../src/lib/domain/roles';
 import { DEMO_PLANS, OTHER_ORG_PLAN, type DemoPlan } from './demo-plans';
+import { seedDemoEquipment } from './demo-equipment';
 
 export const DEMO_PASSWORD = 'bondmap-demo';
 
@@ -80,5 +81,6 @@ export async function seedDemo(db: Db): Promise<{ people: number; plans: number 
   const plans =
     (await seedPlans(db, orgIds.demo, ids['lead@demo.test'], ids['reviewer@demo.test'], DEMO_PLANS)) +
     (await seedPlans(db, orgIds.other, ids['lead@other.test'], null, [OTHER_ORG_PLAN]));
+  await seedDemoEquipment(db, orgIds.demo, ids['admin@demo.test'], ids['lead@demo.test']);
   return { people, plans };
 }
