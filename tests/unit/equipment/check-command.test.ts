@@ -56,3 +56,12 @@ it('exits 2 naming the line and column of a bad inventory, and for a missing val
   expect((await run(['clean.json', '--equipment', 'sets.csv', '--stage', 'later'])).code).toBe(2);
   expect((await run(['clean.json', '--equipment', 'none.csv'])).stderr).toMatch(/cannot read none\.csv/);
 });
+
+it('lists the sets with status and due date in the text report', async () => {
+  const { stdout } = await run(['--text', '--equipment', 'sets.csv', 'overdue.json']);
+  const lines = stdout.split('\n');
+  const start = lines.indexOf('Grounding sets');
+  expect(start).toBeGreaterThan(0);
+  expect(lines[start + 3]).toMatch(/^ {2}LV-205\s+jA\s+in-service\s+2025-05-01\s+2026-05-01\s+overdue$/);
+  expect((await run(['--text', 'overdue.json'])).stdout).not.toContain('Grounding sets');
+});

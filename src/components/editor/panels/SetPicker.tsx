@@ -19,10 +19,11 @@ export function withSet(jumper: Jumper, set: SetRecord): Jumper {
   return { ...jumper, equipmentId: set.tag, cable: set.cable, lengthM: set.lengthM, clampKa: set.clampKa, clampCycles: set.clampCycles, clampKind: set.clampKind, connection: set.connection };
 }
 
-function useInServiceSets(query: string) {
+function useInServiceSets(open: boolean, query: string) {
   const [sets, setSets] = useState<ListedSet[] | null>(null);
   const [failed, setFailed] = useState(false);
   useEffect(() => {
+    if (!open) return undefined;
     const controller = new AbortController();
     const timer = setTimeout(() => {
       const params = new URLSearchParams({ status: 'in-service', pageSize: '20', sort: 'tag' });
@@ -39,7 +40,7 @@ function useInServiceSets(query: string) {
       clearTimeout(timer);
       controller.abort();
     };
-  }, [query]);
+  }, [open, query]);
   return { sets, failed };
 }
 
@@ -48,7 +49,7 @@ export function SetPicker({ jumper }: { jumper: Jumper }) {
   const [query, setQuery] = useState('');
   const [open, setOpen] = useState(false);
   const updateElement = useEditor((s) => s.updateElement);
-  const { sets, failed } = useInServiceSets(open ? query : '');
+  const { sets, failed } = useInServiceSets(open, query);
   const day = today();
   const take = (set: ListedSet) => {
     updateElement(withSet(jumper, set) as PlanLink);
