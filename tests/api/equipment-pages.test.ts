@@ -57,3 +57,17 @@ it('keeps the settings page for admins', async () => {
   expect(page.status).toBe(200);
   expect(page.text).toContain('Not chosen yet');
 });
+
+it('adds a set from the page form, naming each bad field and saving nothing on a bad one', async () => {
+  const form = (fields: Record<string, string>) => admin.request('POST', '/equipment', { body: new URLSearchParams({ action: 'add', ...fields }).toString(), headers: { 'content-type': 'application/x-www-form-urlencoded', origin: new URL(admin.baseUrl).origin } });
+  const good = { tag: 'P-FORM', description: 'From the form', cable: '2/0', lengthM: '2.4', clampKind: 'grounding', clampKa: '27', clampCycles: '15', connection: 'ferrule', inServiceOn: '2025-03-01', lastTestedOn: '' };
+  const bad = await form({ ...good, lengthM: 'long', inServiceOn: '2025-02-30' });
+  expect(bad.status).toBe(200);
+  expect(bad.text).toContain('Nothing was saved; fix the fields marked below.');
+  expect(bad.text).toContain('must be a real date written YYYY-MM-DD');
+  expect((await admin.get('/api/equipment?q=P-FORM')).body.total).toBe(0);
+  const ok = await form(good);
+  expect(ok.status).toBe(303);
+  expect(ok.headers.get('location')).toMatch(/^\/equipment\/\d+$/);
+  expect((await admin.get('/api/equipment?q=P-FORM')).body.items[0]).toMatchObject({ lengthM: 2.4, testDueOn: '2026-03-01' });
+});
