@@ -6,6 +6,7 @@
  */
 import { checkPlan } from '../lib/domain/checker';
 import type { SetRecord } from '../lib/domain/equipment';
+import { isCalendarDate } from '../lib/domain/equipment';
 import { CHECK_STAGES, type CheckStage } from '../lib/domain/sets-in-plan';
 import { inventoryFromCsv } from '../lib/schemas/equipment-csv';
 import { parsePlan } from '../lib/schemas/plan';
@@ -16,7 +17,7 @@ export const EXIT_BLOCKED = 1;
 export const EXIT_INVALID = 2;
 
 export const USAGE =
-  'usage: npm run check -- [--text] [--equipment SETS.csv [--stage draft|submit|field]] FILE\n' +
+  'usage: npm run check -- [--text] [--equipment SETS.csv [--stage draft|submit|field] [--today YYYY-MM-DD]] FILE\n' +
   '  prints the check report as JSON (or a table with --text); exit 0 ok, 1 blockers, 2 invalid\n' +
   '  --equipment checks the jumpers\' sets (equipmentId = tag) against an inventory in the export CSV format';
 
@@ -29,21 +30,26 @@ export interface CheckCommandIo {
   today?: string;
 }
 
-type Parsed = { ok: true; text: boolean; file: string; equipment?: string; stage: CheckStage } | { ok: false; problem: string } | { ok: 'help' };
+type Parsed = { ok: true; text: boolean; file: string; equipment?: string; stage: CheckStage; today?: string } | { ok: false; problem: string } | { ok: 'help' };
 
 function parseArgs(args: string[]): Parsed {
   let text = false;
   let equipment: string | undefined;
   let stage: CheckStage = 'draft';
+  let today: string | undefined;
   const files: string[] = [];
   for (let i = 0; i < args.length; i += 1) {
     const arg = args[i];
     if (arg === '--') continue;
-    if (arg === '--equipment' || arg === '--stage') {
+    if (arg === '--equipment' || arg === '--stage' || arg === '--today') {
       const value = args[i + 1];
       if (value === undefined || value.startsWith('--')) return { ok: false, problem: `${arg} needs a value` };
       i += 1;
       if (arg === '--equipment') equipment = value;
+      else if (arg === '--today') {
+        if (!isCalendarDate(value)) return { ok: false, problem: '--today must be a date written YYYY-MM-DD' };
+        today = value;
+      }
       else if ((CHECK_STAGES as readonly string[]).includes(value)) stage = value as CheckStage;
       else return { ok: false, problem: `--stage must be one of ${CHECK_STAGES.join(', ')}` };
       continue;
@@ -54,7 +60,7 @@ function parseArgs(args: string[]): Parsed {
     else files.push(arg);
   }
   if (files.length !== 1) return { ok: false, problem: files.length === 0 ? 'no plan file given' : 'give exactly one plan file' };
-  return { ok: true, text, file: files[0], equipment, stage };
+  return { ok: true, text, file: files[0], equipment, stage, today };
 }
 
 /** Runs the command and returns its exit status; never throws for a bad file or document. */
@@ -103,7 +109,7 @@ export async function runCheckCommand(io: CheckCommandIo): Promise<number> {
     }
     inventory = read.sets;
   }
-  const report = checkPlan(parsed.plan, undefined, inventory ? { inventory, today: io.today, stage: args.stage } : {});
+  const report = checkPlan(parsed.plan, undefined, inventory ? { inventory, today: args.today ?? io.today, stage: args.stage } : {});
   io.stdout(args.text ? formatTextReport(report, parsed.plan.title) : `${JSON.stringify(report, null, 2)}\n`);
   return report.ok ? EXIT_OK : EXIT_BLOCKED;
 }

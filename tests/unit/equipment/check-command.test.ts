@@ -65,3 +65,9 @@ it('lists the sets with status and due date in the text report', async () => {
   expect(lines[start + 3]).toMatch(/^ {2}LV-205\s+jA\s+in-service\s+2025-05-01\s+2026-05-01\s+overdue$/);
   expect((await run(['--text', 'overdue.json'])).stdout).not.toContain('Grounding sets');
 });
+
+it('checks on the day given by --today', async () => {
+  const early = await run(['--equipment', 'sets.csv', '--stage', 'submit', '--today', '2026-04-30', 'overdue.json']);
+  expect(early.code).toBe(0);
+  expect((await run(['--equipment', 'sets.csv', '--today', '2026-02-30', 'overdue.json'])).stderr).toMatch(/--today must be a date/);
+});
