@@ -28,6 +28,17 @@ describe('a set record', () => {
     expect(response.body.set).toMatchObject({ tag: body.tag, status: 'in-service', lastTestedOn: body.lastTestedOn, testDueOn: addMonths(body.lastTestedOn, 12) });
   });
 
+  it.each([
+    ['a leap day', '2024-02-29', null, '2025-02-28'],
+    ['a month end before February', '2026-01-31', null, '2027-01-31'],
+    ['the in-service date on a leap day, never tested', null, '2024-02-29', '2025-02-28'],
+    ['the last day of the year', '2025-12-31', null, '2026-12-31'],
+  ])('computes the due date from %s', async (_name, lastTestedOn, inServiceOn, due) => {
+    const response = await admin.post('/api/equipment', setBody({ lastTestedOn, ...(inServiceOn ? { inServiceOn } : { inServiceOn: '2023-01-01' }) }));
+    expect(response.status).toBe(201);
+    expect(response.body.set.testDueOn).toBe(due);
+  });
+
   it('refuses a duplicate tag with 409 naming it, and saves nothing', async () => {
     const body = setBody();
     expect((await admin.post('/api/equipment', body)).status).toBe(201);
