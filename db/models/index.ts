@@ -1,6 +1,7 @@
 /** All Sequelize models and their associations; tables themselves come from db/migrations. */
 import type { Sequelize } from 'sequelize';
 import { initAuditEvent } from './audit-event';
+import { initEquipment } from './equipment';
 import { initLoginAttempt } from './login-attempt';
 import { initMail } from './mail';
 import { initOrganization } from './organization';
@@ -27,6 +28,7 @@ export function defineModels(sequelize: Sequelize) {
     PlanComment: initPlanComment(sequelize),
     ...initMail(sequelize),
     ...initPractice(sequelize),
+    ...initEquipment(sequelize),
   };
   const { User, Session, Plan, PlanRevision, Organization } = models;
   User.belongsTo(Organization, { foreignKey: 'organizationId', as: 'organization' });
@@ -46,3 +48,4 @@ export type { PlanComment } from './plan-comment';
 export type { PlanDecision } from './plan-decision';
 export type { User } from './user';
 export type { PracticeAttempt, PracticeExercise } from './practice';
+export type { GroundingSet, SetTest, SetEvent } from './equipment';

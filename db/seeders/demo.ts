@@ -13,6 +13,7 @@ import { addComment } from '../repositories/revisions';
 import type { Role } from '../../src/lib/domain/roles';
 import { DEMO_PLANS, OTHER_ORG_PLAN, type DemoPlan } from './demo-plans';
 import { seedPractice } from './demo-practice';
+import { seedDemoEquipment } from './demo-equipment';
 
 export const DEMO_PASSWORD = 'bondmap-demo';
 
@@ -82,5 +83,6 @@ export async function seedDemo(db: Db): Promise<{ people: number; plans: number 
     (await seedPlans(db, orgIds.demo, ids['lead@demo.test'], ids['reviewer@demo.test'], DEMO_PLANS)) +
     (await seedPlans(db, orgIds.other, ids['lead@other.test'], null, [OTHER_ORG_PLAN])) +
     (await seedPractice(db, orgIds.demo, { lead: ids['lead@demo.test'], reviewer: ids['reviewer@demo.test'], apprentice: ids['apprentice@demo.test'] }));
+  await seedDemoEquipment(db, orgIds.demo, ids['admin@demo.test'], ids['lead@demo.test']);
   return { people, plans };
 }

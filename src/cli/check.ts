@@ -1,4 +1,4 @@
-/** Process wrapper for `npm run check -- [--text] FILE`; the logic is in check-command.ts. */
+/** Process wrapper for `npm run check -- [--text] [--equipment SETS.csv] FILE`; the logic is in check-command.ts. */
 import { readFile } from 'node:fs/promises';
 import { runCheckCommand } from './check-command';
 
@@ -7,4 +7,5 @@ process.exitCode = await runCheckCommand({
   readFile: (path) => readFile(path, 'utf8'),
   stdout: (text) => process.stdout.write(text),
   stderr: (text) => process.stderr.write(text),
+  today: new Date().toISOString().slice(0, 10),
 });

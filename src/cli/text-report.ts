@@ -15,7 +15,7 @@ export function formatTable(header: string[], rows: string[][]): string[] {
 
 const indent = (lines: string[]) => lines.map((l) => `  ${l}`);
 
-/** Renders every part of the report: result, findings, fault, contacts, jumpers, rods, caution. */
+/** Renders every part of the report: result, findings, fault, contacts, jumpers, rods, sets (when checked against an inventory), caution. */
 export function formatTextReport(report: CheckReport, title?: string): string {
   const { blockers, warnings, notes } = report.summary;
   const out: string[] = [];
@@ -64,6 +64,18 @@ export function formatTextReport(report: CheckReport, title?: string): string {
     ...indent(formatTable(['node', 'ohms', 'barricade m'], report.rods.map((r) => [r.node, num(r.ohms, 2), num(r.barricadeRadiusM, 1)]))),
     '',
   );
+  if (report.sets) {
+    out.push('Grounding sets');
+    out.push(
+      ...indent(
+        formatTable(
+          ['tag', 'jumpers', 'status', 'last test', 'test due', 'due'],
+          report.sets.map((set) => [set.tag, set.jumpers.join(', '), set.known ? (set.status ?? '') : 'not on record', set.lastTestedOn ?? '—', set.testDueOn ?? '—', set.due ?? '—']),
+        ),
+      ),
+      '',
+    );
+  }
   out.push('Caution', `  ${report.caution}`);
   return `${out.join('\n')}\n`;
 }

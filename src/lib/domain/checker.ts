@@ -18,6 +18,7 @@ import {
   type ReportRod,
 } from './report';
 import { compareFindings, runRules } from './rules/index';
+import { applyInventory, reportSets, type CheckOptions } from './sets-in-plan';
 import { mapZones } from './zones';
 
 export const CALC_FAILED = 'calc-failed';
@@ -106,7 +107,9 @@ function toReportRod(rod: NetworkFigures['rods'][number]): ReportRod {
  * limits (IEEE Std 80, IEC 60909-0), cable and clamp ratings (ASTM F855, secondhand) and every rule
  * of rules/, returned as the version-1 check report. `calc` is replaceable for tests.
  */
-export function checkPlan(plan: PlanDocument, calc: CalcEntryPoints = defaultCalc): CheckReport {
+export function checkPlan(drawn: PlanDocument, calc: CalcEntryPoints = defaultCalc, options: CheckOptions = {}): CheckReport {
+  // With an inventory, jumpers that name a known set carry that set's figures from here on.
+  const { plan, sets } = applyInventory(drawn, options);
   const model = buildPlanModel(plan);
   const zones = mapZones(model);
   const { fault, tolerableBodyAmps, network, extra } = runCalc(plan, calc);
@@ -119,6 +122,7 @@ export function checkPlan(plan: PlanDocument, calc: CalcEntryPoints = defaultCal
     fault,
     tolerableBodyAmps,
     network,
+    sets,
     cableRatingKa(cable) {
       try {
         return calc.cableRating(cable, durationS, frequencyHz).ratingKa;
@@ -156,6 +160,7 @@ export function checkPlan(plan: PlanDocument, calc: CalcEntryPoints = defaultCal
     jumpers: network.jumpers.map(toReportJumper),
     rods: network.rods.map(toReportRod),
     assumptions: network.assumptions.map((a) => ({ ...a, value: figure(a.value) })),
+    ...(sets ? { sets: reportSets(sets) } : {}),
     caution: CAUTION,
   };
 }

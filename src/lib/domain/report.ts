@@ -4,6 +4,8 @@
  * additions; a figure that could not be computed is null and a `figure-invalid` blocker names it,
  * so the JSON never carries NaN or Infinity.
  */
+import type { ReportSet } from './sets-in-plan';
+
 export const REPORT_FORMAT = 'bondmap-check' as const;
 export const REPORT_VERSION = 1 as const;
 
@@ -112,6 +114,8 @@ export type CheckReport = {
   rods: ReportRod[];
   /** Extra: values the calculation assumed because the plan left them out. */
   assumptions?: ReportAssumption[];
+  /** Extra: the grounding sets the plan names, with status and due date (only when checked against an inventory). */
+  sets?: ReportSet[];
   /** Extra: the safety caution, on every report. */
   caution: string;
 };

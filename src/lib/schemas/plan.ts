@@ -151,6 +151,8 @@ export const linkSchema = z.discriminatedUnion(
         clampCycles: positive().max(300, 'must be at most 300 cycles').optional(),
         ohms: ohms(),
         equipmentId: id().optional(),
+        clampKind: z.enum(['grounding', 'live-line']).optional(),
+        connection: z.enum(['ferrule', 'bare-strands']).optional(),
       })
       .passthrough(),
     z.object({ ...linkBase, kind: z.literal('bond'), ohms: ohms() }).passthrough(),

@@ -25,6 +25,8 @@ export const ERRORS = {
   EMAIL_TAKEN: { status: 409, message: 'Someone already has this e-mail address. Use another, or find that person in the list.' },
   SELF_CHANGE: { status: 409, message: 'You cannot disable yourself or take away your own admin role; ask another admin.' },
   RELATED_REVIEWER: { status: 403, message: 'You were invited by (or through) the author or an editor of this plan, or share a mailbox with one, so someone else must approve it.' },
+  SET_TAG_TAKEN: { status: 409, message: 'The organisation already has a grounding set with this tag; nothing was saved. Use another tag, or edit that set.' },
+  SET_NEEDS_TEST: { status: 409, message: 'This set is out of service until it passes an in-service test; record a passing test to put it back in service.' },
   DB_DOWN: { status: 503, message: 'The database cannot be reached just now; nothing was changed. Try again in a moment.' },
   INTERNAL: { status: 500, message: 'Something went wrong on our side; nothing was changed. Try again, and tell your admin if it keeps happening.' },
   EXERCISE_NO_GAP: { status: 409, message: 'The modified plan has no blocker the approved one lacks, so there is nothing to find: an exercise must have a gap. Remove or change another link.' },

@@ -64,7 +64,8 @@ export function parseWith<S extends z.ZodTypeAny>(schema: S, value: unknown, fie
   return result.data;
 }
 
-async function readLimited(request: Request, limitBytes: number): Promise<string> {
+/** Reads the raw body as text, refusing it past the limit. */
+export async function readLimited(request: Request, limitBytes: number): Promise<string> {
   if (!request.body) return '';
   const reader = request.body.getReader();
   const chunks: Uint8Array[] = [];

@@ -7,7 +7,7 @@ import { getPlan, type PlanDetail } from '../../../db/repositories/plans';
 import { decidePlan, reopenApproved, submitPlan, type Decision } from '../../../db/repositories/review';
 import { canonicalHash } from '../domain/canonical-json';
 import type { Person } from '../domain/people';
-import { checkDocument } from './checking';
+import { checkForOrganization } from './checking';
 import { AppError } from './errors';
 import { queueMail } from './mail';
 import { decidedMessage, submittedMessage } from './mail-messages';
@@ -23,7 +23,7 @@ async function requirePlan(person: Person, planId: number): Promise<PlanDetail> 
 export async function submitForReview(person: Person, planId: number, requestUrl?: URL): Promise<PlanDetail> {
   const db = getDb();
   const plan = await requirePlan(person, planId);
-  const report = checkDocument(plan.document);
+  const report = await checkForOrganization(db, person.organizationId, plan.document, 'submit');
   // The reviewers' mail is queued inside the transaction: the request does all of it or none.
   const outcome = await submitPlan(db, person.organizationId, planId, person.id, report, {
     checkedRevision: plan.currentRevision,

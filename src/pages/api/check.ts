@@ -1,11 +1,12 @@
 import { planDocumentSchema } from '../../lib/schemas/plan';
-import { checkDocument } from '../../lib/server/checking';
+import { getDb } from '../../../db/connection';
+import { checkForOrganization } from '../../lib/server/checking';
 import { requireUser } from '../../lib/server/guards';
 import { endpoint, json, readJson } from '../../lib/server/http';
 
-/** Checks a posted plan document and returns the report (nothing is stored). Any signed-in person. */
+/** Checks a posted plan document and returns the report (nothing is stored), against the organisation's grounding sets. Any signed-in person. */
 export const POST = endpoint(async (ctx) => {
-  requireUser(ctx);
+  const person = requireUser(ctx);
   const document = await readJson(ctx, planDocumentSchema, 8 * 1024 * 1024);
-  return json(checkDocument(document));
+  return json(await checkForOrganization(getDb(), person.organizationId, document));
 });

@@ -8,6 +8,7 @@ import { KIND_LABELS, LINK_LABELS } from '../plan-ops';
 import { findElement, isLink, useEditor } from '../selectors';
 import { CRITERIA_FIELDS, CRITERIA_SCHEMA, LINK_FIELDS, LINK_SCHEMA, NODE_FIELDS, NODE_SCHEMA, SYSTEM_FIELDS, SYSTEM_SCHEMA } from './fields';
 import { PropertiesForm } from './PropertiesForm';
+import { SetPicker } from './SetPicker';
 
 const EMPTY: PlanNode[] = [];
 const DEFAULT_CRITERIA = { bodyKg: 50 };
@@ -69,6 +70,7 @@ export function Inspector() {
             <ul className="list-disc space-y-1 pl-5 text-sm">{explanation.map((line) => <li key={line}>{line}</li>)}</ul>
           </section>
         )}
+        {!readOnly && element.kind === 'jumper' && <SetPicker jumper={element as Extract<PlanLink, { kind: 'jumper' }>} />}
         <PropertiesForm
           key={element.id}
           title={title}

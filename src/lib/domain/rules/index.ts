@@ -19,6 +19,11 @@ import { checkPhaseUngrounded } from './phase-ungrounded';
 import { checkPoleGroundRelied } from './pole-ground-relied';
 import { checkReachInsulating } from './reach-insulating';
 import { checkRodBarricade } from './rod-barricade';
+import { checkSetDiffers } from './set-differs';
+import { checkSetNotInService } from './set-not-in-service';
+import { checkSetTestOverdue } from './set-test-overdue';
+import { checkSetUnknown } from './set-unknown';
+import { checkSetUsedTwice } from './set-used-twice';
 import { checkStandNotConductive } from './stand-not-conductive';
 import { checkSurfaceOutsideZone } from './surface-outside-zone';
 import type { Finding, Rule, RuleContext } from './types';
@@ -46,6 +51,11 @@ export const RULES: Readonly<Record<string, Rule>> = {
   'reach-insulating': checkReachInsulating,
   'clearing-outside-range': checkClearingOutsideRange,
   'figure-invalid': checkFigureInvalid,
+  'set-unknown': checkSetUnknown,
+  'set-not-in-service': checkSetNotInService,
+  'set-test-overdue': checkSetTestOverdue,
+  'set-differs': checkSetDiffers,
+  'set-used-twice': checkSetUsedTwice,
 };
 
 function compareElements(a: string[], b: string[]): number {

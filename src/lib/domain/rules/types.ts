@@ -5,6 +5,7 @@
 import type { CableSize, PlanDocument } from '../../schemas/plan';
 import type { FaultFigures, NetworkFigures } from '../calc/contract';
 import type { PlanModel } from '../plan-model';
+import type { SetContext } from '../sets-in-plan';
 import type { Finding } from '../report';
 import type { ZoneMap } from '../zones';
 
@@ -20,6 +21,8 @@ export interface RuleContext {
   network: NetworkFigures;
   /** Rating of a cable size for this plan's clearing time and frequency, kA, to suggest a size that suffices. */
   cableRatingKa(cable: CableSize): number;
+  /** The grounding sets the plan names, when an inventory was given (set-* rules); `plan` then carries the sets' figures. */
+  sets?: SetContext | null;
 }
 
 export type Rule = (ctx: RuleContext) => Finding[];

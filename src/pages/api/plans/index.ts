@@ -1,7 +1,7 @@
 import { getDb } from '../../../../db/connection';
 import { createPlan, describeStructure, listPlans } from '../../../../db/repositories/plans';
 import { createPlanBody, listPlansQuery } from '../../../lib/schemas/api';
-import { checkDocument } from '../../../lib/server/checking';
+import { checkForOrganization } from '../../../lib/server/checking';
 import { requireRole, requireUser } from '../../../lib/server/guards';
 import { endpoint, json, readJson, readQuery } from '../../../lib/server/http';
 import { planJson, summaryJson } from '../../../lib/server/plan-json';
@@ -25,7 +25,7 @@ export const POST = endpoint(async (ctx) => {
     title: body.title,
     structure: body.structure ?? describeStructure(document),
     document,
-    report: checkDocument(document),
+    report: await checkForOrganization(getDb(), person.organizationId, document),
   });
   return json({ plan: planJson(plan) }, 201, { location: `/api/plans/${plan.id}` });
 });

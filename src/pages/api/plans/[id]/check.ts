@@ -1,6 +1,6 @@
 import { getDb } from '../../../../../db/connection';
 import { getPlan, storeReport } from '../../../../../db/repositories/plans';
-import { checkDocument } from '../../../../lib/server/checking';
+import { checkForOrganization } from '../../../../lib/server/checking';
 import { AppError } from '../../../../lib/server/errors';
 import { hasRole, requireUser } from '../../../../lib/server/guards';
 import { endpoint, json, pathId } from '../../../../lib/server/http';
@@ -16,7 +16,7 @@ export const POST = endpoint(async (ctx) => {
   const db = getDb();
   const plan = await getPlan(db, person.organizationId, id);
   if (!plan) throw new AppError('NOT_FOUND');
-  const report = checkDocument(plan.document);
+  const report = await checkForOrganization(db, person.organizationId, plan.document);
   const stored = hasRole(person, 'crew_lead', 'admin') && (await storeReport(db, person.organizationId, id, plan.currentRevision, report));
   return json({ revision: plan.currentRevision, stored, report });
 });

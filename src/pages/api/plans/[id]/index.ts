@@ -1,7 +1,7 @@
 import { getDb } from '../../../../../db/connection';
 import { getPlan, saveDraft } from '../../../../../db/repositories/plans';
 import { savePlanBody } from '../../../../lib/schemas/api';
-import { checkDocument } from '../../../../lib/server/checking';
+import { checkForOrganization } from '../../../../lib/server/checking';
 import { AppError } from '../../../../lib/server/errors';
 import { requireRole, requireUser } from '../../../../lib/server/guards';
 import { endpoint, json, pathId, readJson } from '../../../../lib/server/http';
@@ -29,7 +29,7 @@ export const PUT = endpoint(async (ctx) => {
     title: body.title,
     structure: body.structure,
     document,
-    report: checkDocument(document),
+    report: await checkForOrganization(getDb(), person.organizationId, document),
   });
   switch (result.kind) {
     case 'not-found':

@@ -1,0 +1,41 @@
+/** The organisation's own equipment settings: test interval and resistance limits. */
+import type { Transaction } from 'sequelize';
+import { DEFAULT_TEST_INTERVAL_MONTHS, testDueOn, type ResistanceLimit } from '../../src/lib/domain/equipment';
+import type { SettingsBody } from '../../src/lib/schemas/equipment';
+import type { Db } from '../connection';
+
+export interface EquipmentSettings {
+  testIntervalMonths: number;
+  /** True while the organisation has not chosen an interval (the default is shown as a choice to make). */
+  intervalIsDefault: boolean;
+  resistanceLimits: ResistanceLimit[];
+}
+
+export async function getSettings(db: Db, organizationId: number, transaction?: Transaction): Promise<EquipmentSettings> {
+  const row = await db.models.OrganizationSetting.findByPk(organizationId, { transaction });
+  if (!row) return { testIntervalMonths: DEFAULT_TEST_INTERVAL_MONTHS, intervalIsDefault: true, resistanceLimits: [] };
+  return { testIntervalMonths: row.testIntervalMonths, intervalIsDefault: false, resistanceLimits: JSON.parse(row.resistanceLimits) as ResistanceLimit[] };
+}
+
+/** Saves the settings and recomputes every set's due date when the interval changed. */
+export async function saveSettings(db: Db, organizationId: number, actorId: string, body: SettingsBody): Promise<EquipmentSettings> {
+  return db.sequelize.transaction(async (transaction) => {
+    const current = await getSettings(db, organizationId, transaction);
+    const next = {
+      testIntervalMonths: body.testIntervalMonths ?? current.testIntervalMonths,
+      resistanceLimits: body.resistanceLimits ?? current.resistanceLimits,
+    };
+    await db.models.OrganizationSetting.upsert(
+      { organizationId, testIntervalMonths: next.testIntervalMonths, resistanceLimits: JSON.stringify(next.resistanceLimits), updatedBy: actorId },
+      { transaction },
+    );
+    if (next.testIntervalMonths !== current.testIntervalMonths || current.intervalIsDefault) {
+      const sets = await db.models.GroundingSet.findAll({ where: { organizationId }, transaction, lock: transaction.LOCK.UPDATE });
+      for (const set of sets) {
+        const due = testDueOn(set.lastTestedOn, set.inServiceOn, next.testIntervalMonths);
+        if (due !== set.testDueOn) await set.update({ testDueOn: due }, { transaction });
+      }
+    }
+    return { ...next, intervalIsDefault: false };
+  });
+}
