@@ -1,5 +1,5 @@
 /**
- * The plan document, version 1 (shared/design/plan-format.md): the one zod schema that the
+ * The plan document, version 1 (docs/plan-format.md): the one zod schema that the
  * editor, the endpoints, the checker and the command line all parse with.
  * Quantities are stored in fixed SI-ish units whose names carry the unit.
  */
@@ -23,6 +23,7 @@ export const NODE_KINDS = [
   'mat',
   'pole-ground',
   'worker',
+  'supply-end',
 ] as const;
 export type NodeKind = (typeof NODE_KINDS)[number];
 
@@ -35,6 +36,14 @@ export type CableSize = (typeof CABLE_SIZES)[number];
 
 export const MATERIALS = ['wood', 'steel', 'concrete', 'fiberglass'] as const;
 export type Material = (typeof MATERIALS)[number];
+
+/** How the rods of a group stand (docs/plan-format.md); absent: the most compact of the three is assumed. */
+export const ROD_ARRANGEMENTS = ['line', 'ring', 'grid'] as const;
+export type RodArrangement = (typeof ROD_ARRANGEMENTS)[number];
+
+/** What a jumper's clamps are made for, and how its cable is terminated in them (docs/plan-format.md). */
+export const CLAMP_KINDS = ['grounding', 'live-line'] as const;
+export const CONNECTIONS = ['ferrule', 'bare-strands'] as const;
 
 const finite = () => z.number({ invalid_type_error: 'must be a number', required_error: 'is required' }).finite('must be a finite number');
 const positive = () => finite().positive('must be greater than 0');
@@ -92,7 +101,7 @@ export const nodeSchema = z.discriminatedUnion(
       .object({ ...nodeBase, kind: z.literal('structure'), material, groundOhms: groundOhms() })
       .passthrough(),
     z.object({ ...nodeBase, kind: z.literal('crossarm'), material }).passthrough(),
-    z.object({ ...nodeBase, kind: z.literal('hardware') }).passthrough(),
+    z.object({ ...nodeBase, kind: z.literal('hardware'), groundOhms: groundOhms() }).passthrough(),
     z.object({ ...nodeBase, kind: z.literal('cluster-bar') }).passthrough(),
     z
       .object({
@@ -104,6 +113,7 @@ export const nodeSchema = z.discriminatedUnion(
         count: z.number({ invalid_type_error: 'must be a number' }).int('must be a whole number').min(1, 'must be at least 1').max(100, 'must be at most 100').optional(),
         spacingM: positive().max(1000, 'must be at most 1000 m').optional(),
         workDistanceM: finite().min(0, 'must be 0 or more').max(10000, 'must be at most 10000 m').optional(),
+        arrangement: z.enum(ROD_ARRANGEMENTS, { errorMap: () => ({ message: `must be one of ${ROD_ARRANGEMENTS.join(', ')}` }) }).optional(),
       })
       .passthrough(),
     z.object({ ...nodeBase, kind: z.literal('earth') }).passthrough(),
@@ -112,12 +122,20 @@ export const nodeSchema = z.discriminatedUnion(
         ...nodeBase,
         kind: z.literal('bucket'),
         insulatedBoom: z.boolean({ invalid_type_error: 'must be true or false' }).optional(),
+        onTruck: id().optional(),
       })
       .passthrough(),
     z.object({ ...nodeBase, kind: z.literal('truck'), groundOhms: groundOhms() }).passthrough(),
     z.object({ ...nodeBase, kind: z.literal('mat') }).passthrough(),
     z.object({ ...nodeBase, kind: z.literal('pole-ground') }).passthrough(),
     z.object({ ...nodeBase, kind: z.literal('worker'), standsOn: id() }).passthrough(),
+    z
+      .object({
+        ...nodeBase,
+        kind: z.literal('supply-end'),
+        phases: z.array(id(), { invalid_type_error: 'must be a list', required_error: 'is required' }).min(1, 'must name at least one phase').max(12, 'must name at most 12 phases'),
+      })
+      .passthrough(),
   ],
   {
     errorMap: (issue, ctx) =>
@@ -150,9 +168,13 @@ export const linkSchema = z.discriminatedUnion(
         clampCycles: positive().max(300, 'must be at most 300 cycles').optional(),
         ohms: ohms(),
         equipmentId: id().optional(),
+        clampKind: z.enum(CLAMP_KINDS, { errorMap: () => ({ message: `must be one of ${CLAMP_KINDS.join(', ')}` }) }).optional(),
+        connection: z.enum(CONNECTIONS, { errorMap: () => ({ message: `must be one of ${CONNECTIONS.join(', ')}` }) }).optional(),
       })
       .passthrough(),
-    z.object({ ...linkBase, kind: z.literal('bond'), ohms: ohms() }).passthrough(),
+    z
+      .object({ ...linkBase, kind: z.literal('bond'), ohms: ohms(), span: z.boolean({ invalid_type_error: 'must be true or false' }).optional() })
+      .passthrough(),
     z.object({ ...linkBase, kind: z.literal('reach') }).passthrough(),
   ],
   {
@@ -173,7 +195,7 @@ export interface RawIssue {
   message: string;
 }
 
-type LooseNode = { id?: unknown; kind?: unknown; standsOn?: unknown; count?: unknown; spacingM?: unknown };
+type LooseNode = { id?: unknown; kind?: unknown; standsOn?: unknown; count?: unknown; spacingM?: unknown; onTruck?: unknown; phases?: unknown };
 type LooseLink = { id?: unknown; kind?: unknown; from?: unknown; to?: unknown };
 const asList = (value: unknown): Record<string, unknown>[] =>
   Array.isArray(value) ? value.map((item) => (item && typeof item === 'object' ? (item as Record<string, unknown>) : {})) : [];
@@ -200,6 +222,15 @@ export function findReferenceIssues(input: unknown): RawIssue[] {
       const target = nodeById.get(node.standsOn);
       if (!target) issues.push({ path: ['nodes', i, 'standsOn'], message: `no node with id "${node.standsOn}"` });
       else if (target.kind === 'worker') issues.push({ path: ['nodes', i, 'standsOn'], message: 'a worker cannot stand on a worker' });
+      else if (target.kind === 'supply-end') issues.push({ path: ['nodes', i, 'standsOn'], message: 'a supply end is a marker, not something to stand on' });
+    }
+    if (node.kind === 'bucket' && typeof node.onTruck === 'string' && nodeById.get(node.onTruck)?.kind !== 'truck') {
+      issues.push({ path: ['nodes', i, 'onTruck'], message: `no truck with id "${node.onTruck}"` });
+    }
+    if (node.kind === 'supply-end' && Array.isArray(node.phases)) {
+      node.phases.forEach((ref, k) => {
+        if (typeof ref === 'string' && nodeById.get(ref)?.kind !== 'phase') issues.push({ path: ['nodes', i, 'phases', k], message: `no phase with id "${ref}"` });
+      });
     }
     if (node.kind === 'ground-rod' && typeof node.count === 'number' && node.count > 1 && node.spacingM === undefined) {
       issues.push({ path: ['nodes', i, 'spacingM'], message: 'is required when count is more than 1' });
@@ -224,6 +255,9 @@ export function findReferenceIssues(input: unknown): RawIssue[] {
     }
     if ((link.kind === 'jumper' || link.kind === 'bond') && (fromKind === 'worker' || toKind === 'worker')) {
       issues.push({ path: ['links', i, 'kind'], message: 'a worker is joined to surfaces by reach links only; a worker is never a bonding path' });
+    }
+    if (fromKind === 'supply-end' || toKind === 'supply-end') {
+      issues.push({ path: ['links', i, fromKind === 'supply-end' ? 'from' : 'to'], message: 'a supply end is a marker: it names its phases and takes no links' });
     }
   });
   return issues;

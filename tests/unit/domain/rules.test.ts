@@ -4,8 +4,8 @@
  */
 import { describe, expect, it } from 'vitest';
 import { checkPlan } from '../../../src/lib/domain/checker';
-import type { PlanDocument } from '../../../src/lib/schemas/plan';
 import { bucketLinks, bucketNodes, bucketPlan, link, makePlan, node, patchElement } from '../../helpers/plan-factory';
+import { describeRuleCases, type RuleCase } from '../../helpers/rule-cases';
 
 const climberNodes = () => [node.structure('P1', 'wood'), node.phase('A'), node.phase('B'), node.neutral(), node.cluster(), node.worker('W1', 'CB')];
 const climberLinks = () => [link.jumper('jA', 'A', 'CB'), link.jumper('jB', 'B', 'CB'), link.jumper('jN', 'CB', 'N'), link.reach('rA', 'W1', 'A'), link.reach('rB', 'W1', 'B')];
@@ -21,7 +21,7 @@ function farSide(lineOhms: number, neutralOhms: number, criteria: Record<string,
     links: [
       link.jumper('jAG', 'AG', 'CBG', { ohms: 0.001 }),
       link.bond('line', 'AG', 'AW', { ohms: lineOhms }),
-      link.bond('neutral', 'CBG', 'NW', { ohms: neutralOhms }),
+      link.bond('neutral', 'CBG', 'NW', { ohms: neutralOhms, span: true }),
       link.bond('bBK', 'BK', 'NW', { ohms: 0 }),
       link.reach('rAW', 'W1', 'AW'),
     ],
@@ -33,15 +33,7 @@ const patchedJumper = (patch: Record<string, unknown>, system: Record<string, un
   makePlan({ system, nodes: bucketNodes(), links: patchElement(bucketLinks(others), 'jA', patch) });
 const heavy = { cable: '4/0' };
 
-interface Case {
-  rule: string;
-  severity: 'blocker' | 'warning' | 'note';
-  fires: () => PlanDocument;
-  elements: string[][];
-  clean: () => PlanDocument;
-}
-
-const cases: Case[] = [
+const cases: RuleCase[] = [
   {
     rule: 'stand-not-conductive',
     severity: 'blocker',
@@ -99,7 +91,7 @@ const cases: Case[] = [
     elements: [['N']],
     clean: () => bucketPlan(),
   },
-  { rule: 'no-worker', severity: 'note', fires: () => makePlan({ nodes: [node.phase('A')] }), elements: [[]], clean: () => bucketPlan() },
+  { rule: 'plan-incomplete', severity: 'blocker', fires: () => makePlan({ nodes: [node.phase('A')] }), elements: [[]], clean: () => bucketPlan() },
   {
     rule: 'link-on-insulator',
     severity: 'warning',
@@ -118,20 +110,7 @@ const cases: Case[] = [
   },
 ];
 
-describe.each(cases)('rule $rule', ({ rule, severity, fires, elements, clean }) => {
-  it(`fires as a ${severity} with exactly ${JSON.stringify(elements)}`, () => {
-    const found = checkPlan(fires()).findings.filter((f) => f.rule === rule);
-    expect(found.map((f) => f.elements)).toEqual(elements);
-    expect(found.map((f) => f.severity)).toEqual(elements.map(() => severity));
-    for (const f of found) {
-      expect(f.message).toMatch(/\.$/);
-      expect(f.basis.length).toBeGreaterThan(5);
-    }
-  });
-  it('stays quiet on the corrected plan', () => {
-    expect(checkPlan(clean()).findings.filter((f) => f.rule === rule)).toEqual([]);
-  });
-});
+describeRuleCases(cases);
 
 describe('rule details', () => {
   it('rod-barricade turns into a warning when the work position is inside the radius', () => {

@@ -49,7 +49,8 @@ export const NODE_FIELDS: Record<NodeKind, FieldSpec[]> = {
   truck: [label, groundOhms],
   mat: [label],
   'pole-ground': [label],
-  worker: [label, { key: 'standsOn', label: 'Stands on', type: 'node', nodeFilter: (k) => k !== 'worker' }],
+  worker: [label, { key: 'standsOn', label: 'Stands on', type: 'node', nodeFilter: (k) => k !== 'worker' && k !== 'supply-end' }],
+  'supply-end': [label],
 };
 
 export const LINK_FIELDS: Record<LinkKind, FieldSpec[]> = {

@@ -63,6 +63,14 @@ export function straightWireInductanceH(lengthM: number, radius: RadiusM): numbe
  */
 export const CLAMP_CONTACT_OHMS = 50e-6;
 
+/**
+ * Resistance added to a jumper whose cable is stripped and put under an eye bolt or clamp without
+ * a compression ferrule (`connection: "bare-strands"`), Ω: 1 mΩ, twenty clamp contacts. Our own
+ * assumption (common practice holds that bare strands corrode, break and add resistance; no
+ * figure is published that we know of); erring high raises the voltage across a worker in parallel.
+ */
+export const BARE_STRANDS_OHMS = 1e-3;
+
 export interface SeriesImpedance {
   resistanceOhms: number;
   reactanceOhms: number;

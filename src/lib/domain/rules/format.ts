@@ -35,3 +35,9 @@ export function listOf(names: string[]): string {
   if (names.length <= 1) return names.join('');
   return `${names.slice(0, -1).join(', ')} and ${names[names.length - 1]}`;
 }
+
+/** Force per length in N/m, whole newtons: "463 N/m". */
+export const newtonsPerMetre = (value: number) => `${fixed(value, 0)} N/m`;
+
+/** Resistance in milliohms to two significant figures, for small added resistances: "1 mΩ". */
+export const milliohms = (valueOhms: number) => (Number.isFinite(valueOhms) ? `${Number((valueOhms * 1000).toPrecision(2))} mΩ` : 'an unknown resistance');
