@@ -41,3 +41,6 @@ export const newtonsPerMetre = (value: number) => `${fixed(value, 0)} N/m`;
 
 /** Resistance in milliohms to two significant figures, for small added resistances: "1 mΩ". */
 export const milliohms = (valueOhms: number) => (Number.isFinite(valueOhms) ? `${Number((valueOhms * 1000).toPrecision(2))} mΩ` : 'an unknown resistance');
+
+/** A length that may be short: millimetres below 1 m ("20 mm"), else metres to one decimal. */
+export const shortLength = (valueM: number) => (Number.isFinite(valueM) && Math.abs(valueM) < 1 ? `${Number((valueM * 1000).toPrecision(3))} mm` : metres(valueM));
