@@ -110,7 +110,7 @@ describe('buildNetwork', () => {
     expect(network.branchRe[0]).toBe(80);
   });
 
-  it('uses `ohms` as a pure resistance and 0.0001 Ω for a bond without it (plan-format.md)', () => {
+  it('uses `ohms` as a pure resistance and 0.0001 Ω for a bond without it (docs/plan-format.md)', () => {
     const plan = phaseToEarth([{ id: 'H', kind: 'hardware' }], [
       { id: 'b1', kind: 'bond', from: 'H', to: 'CB' },
       { id: 'j9', kind: 'jumper', from: 'H', to: 'N', cable: '4/0', lengthM: 3, ohms: 0.002 },

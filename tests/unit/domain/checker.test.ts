@@ -28,13 +28,13 @@ describe('checkPlan report', () => {
     expect(report.summary).toMatchObject({ blockers: 0, warnings: 2 });
   });
 
-  it('computes the contract figures for the plan-format.md example system', () => {
+  it('computes the contract figures for the docs/plan-format.md example system', () => {
     const report = checkPlan(bucketPlan());
-    // plan-format.md: durationS = clearingCycles / frequencyHz = 15 / 60.
+    // docs/plan-format.md: durationS = clearingCycles / frequencyHz = 15 / 60.
     expect(report.fault.durationS).toBeCloseTo(0.25, 12);
-    // IEEE Std 80 (Dalziel, 50 kg): 0.116 / √0.25 = 0.232 A, engineering.md §2 table.
+    // IEEE Std 80 (Dalziel, 50 kg): 0.116 / √0.25 = 0.232 A, docs/engineering.md §2 table.
     expect(report.tolerableBodyAmps).toBeCloseTo(0.232, 4);
-    // engineering.md §3 [calc]: X/R 10, 0.25 s → Df 1.052; IEC 60909-0 κ(X/R 10) = 1.7460.
+    // docs/engineering.md §3 [calc]: X/R 10, 0.25 s → Df 1.052; IEC 60909-0 κ(X/R 10) = 1.7460.
     expect(report.fault.decrementFactor).toBeCloseTo(1.052, 3);
     expect(report.fault.peakFactor).toBeCloseTo(1.746, 3);
     expect(report.zones).toEqual([{ nodes: ['A', 'B', 'BK', 'C', 'CB', 'N'], grounded: true }]);
@@ -42,7 +42,7 @@ describe('checkPlan report', () => {
     expect(report.jumpers.map((j) => j.link)).toEqual(['jA', 'jB', 'jC', 'jN', 'jBK']);
   });
 
-  it('finds 0.490 A through a worker beyond the grounds (engineering.md §2 [calc], ±0.001 A)', () => {
+  it('finds 0.490 A through a worker beyond the grounds (docs/engineering.md §2 [calc], ±0.001 A)', () => {
     const plan = makePlan({
       system: { xOverR: 0 }, // Df = 1: the worked example's symmetrical current is what is injected
       nodes: [node.phase('AG'), node.phase('AW'), node.cluster('CBG'), node.neutral('NW'), node.bucket(), node.worker('W1', 'BK')],

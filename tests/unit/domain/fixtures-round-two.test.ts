@@ -28,7 +28,7 @@ describe('issue 11 fixtures, figures', () => {
 
   it('rod-triangle: three rods one length apart by the resistance matrix, above the remembered IEEE Std 142 multiplier', () => {
     const report = check('rod-triangle');
-    const single = singleRodOhms(100, 2.4384, radiusFromDiameterMm(15.875)); // 39.90 Ω, engineering.md §5 [calc]
+    const single = singleRodOhms(100, 2.4384, radiusFromDiameterMm(15.875)); // 39.90 Ω, docs/engineering.md §5 [calc]
     const table = ((new Map(IEEE142_MULTIPLIERS).get(3) as number) * single) / 3; // 17.16 Ω, IEEE Std 142 F = 1.29 [from memory]
     expect(report.rods[0].ohms).toBeCloseTo(17.943, 3); // mutual-resistance matrix [calc]
     expect((report.rods[0].ohms as number) / table).toBeGreaterThan(1.04); // the issue: the table is 4–7 % low for a triangle
@@ -38,7 +38,7 @@ describe('issue 11 fixtures, figures', () => {
   it('asymmetry-tips-contact: 0.220 A symmetrical passes, Df × If = 1.101 × 10 kA gives 0.242 A and fails (IEEE Std 80)', () => {
     const plan = load('asymmetry-tips-contact');
     const report = checkPlan(plan);
-    // engineering.md §3 table: X/R 20, 15 cycles → Df 1.101.
+    // docs/engineering.md §3 table: X/R 20, 15 cycles → Df 1.101.
     expect(report.fault.decrementFactor).toBeCloseTo(1.101, 3);
     expect(report.fault.injectedKa).toBeCloseTo(11.01, 2);
     // I_B = I·Z/(Z + R_B), Z = 0.0105 + 0.0105 + 0.001 = 0.022 Ω [calc].

@@ -25,7 +25,7 @@ const kinds = makePlan({
   ],
 }).nodes;
 
-// Expected character of each kind, from plan-format.md ("Wood and fiberglass are not bonding
+// Expected character of each kind, from docs/plan-format.md ("Wood and fiberglass are not bonding
 // paths", pole ground "conducts but is never relied on") and the brief's list of ground sources.
 describe.each([
   ['A', true, false, false],

@@ -137,6 +137,6 @@ describe('round-two details', () => {
   it('the check reports the decrement factor and the current it injected (IEEE Std 80: Df × If)', () => {
     const report = checkPlan(bucketPlan());
     expect(report.fault.injectedKa).toBeCloseTo(10 * (report.fault.decrementFactor ?? NaN), 12);
-    expect(report.fault.decrementFactor).toBeCloseTo(1.052, 3); // engineering.md §3 table, X/R 10, 15 cycles
+    expect(report.fault.decrementFactor).toBeCloseTo(1.052, 3); // docs/engineering.md §3 table, X/R 10, 15 cycles
   });
 });

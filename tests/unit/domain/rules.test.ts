@@ -12,7 +12,7 @@ const climberLinks = () => [link.jumper('jA', 'A', 'CB'), link.jumper('jB', 'B',
 const climber = (extra: { nodes?: Record<string, unknown>[]; links?: Record<string, unknown>[] } = {}) =>
   makePlan({ nodes: [...climberNodes(), ...(extra.nodes ?? [])], links: [...climberLinks(), ...(extra.links ?? [])] });
 
-/** One span beyond the grounds (engineering.md §2): the worker bridges line + neutral + jumper. */
+/** One span beyond the grounds (docs/engineering.md §2): the worker bridges line + neutral + jumper. */
 function farSide(lineOhms: number, neutralOhms: number, criteria: Record<string, unknown> = {}, system: Record<string, unknown> = {}) {
   return makePlan({
     criteria,
@@ -74,7 +74,7 @@ const cases: RuleCase[] = [
     elements: [['jA']],
     clean: () => patchedJumper({ clampKa: 30, clampCycles: 15 }, { faultKa: 20 }),
   },
-  // engineering.md §2 [calc]: 10 kA through 0.049 Ω bridged by 1000 Ω gives 0.490 A > 0.232 A; 0.0011 Ω gives 0.011 A.
+  // docs/engineering.md §2 [calc]: 10 kA through 0.049 Ω bridged by 1000 Ω gives 0.490 A > 0.232 A; 0.0011 Ω gives 0.011 A.
   { rule: 'body-current-exceeds', severity: 'blocker', fires: () => farSide(0.024, 0.024), elements: [['W1', 'AW']], clean: () => farSide(0.00005, 0.00005) },
   { rule: 'lead-slack', severity: 'warning', fires: () => patchedJumper({ lengthM: 6, spanM: 1.5 }), elements: [['jA']], clean: () => patchedJumper({ lengthM: 1.8, spanM: 1.5 }) },
   {

@@ -40,7 +40,7 @@ export function r20OhmPerM(cable: CableSize): number {
 
 /**
  * Radius to use in the inductance formula: half the stranded conductor's overall diameter
- * (NEC Table 8). This is what reproduces engineering.md §2 (r 6.71 mm for 4/0, 3.71 mm for #2);
+ * (NEC Table 8). This is what reproduces docs/engineering.md §2 (r 6.71 mm for 4/0, 3.71 mm for #2);
  * the radius of a solid rod of the same area (5.84 mm for 4/0) would give about 2 % more L.
  */
 export function conductorRadiusM(cable: CableSize): RadiusM {

@@ -10,7 +10,7 @@ export const COPPER_MELT_C = 1083;
 export const AMBIENT_C = 40;
 /**
  * Fraction of nominal area taken for fusing: 98 %, which reproduces the grade table's ultimate
- * column (20 of 21 cells) and engineering.md's worked example (#2, 0.25 s → 18,696 A).
+ * column (20 of 21 cells) and docs/engineering.md's worked example (#2, 0.25 s → 18,696 A).
  */
 export const FUSING_AREA_FRACTION = 0.98;
 
