@@ -158,7 +158,7 @@ export function checkPlan(plan: PlanDocument, calc: CalcEntryPoints = defaultCal
     contacts: network.contacts.map(toReportContact),
     jumpers: network.jumpers.map(toReportJumper),
     rods: network.rods.map(toReportRod),
-    bonds: network.bonds.map((bond) => ({ link: bond.link, currentKa: figure(bond.currentKa), ohmsGiven: bond.ohmsGiven, span: bond.span })),
+    bonds: network.bonds.map((bond) => ({ link: bond.link, currentKa: figure(bond.currentKa), ohmsGiven: bond.ohmsGiven })),
     assumptions: network.assumptions.map((a) => ({ ...a, value: figure(a.value) })),
     caution: CAUTION,
   };

@@ -69,12 +69,11 @@ export interface ReportContact {
   systemVoltageLimited?: boolean;
 }
 
-/** Extra: a bond or span the solve put current through. */
+/** Extra: a bond (not a span) the solve put more than 1 A through. */
 export interface ReportBond {
   link: string;
   currentKa: Figure;
   ohmsGiven: boolean;
-  span: boolean;
 }
 
 export interface ReportJumper {
@@ -124,7 +123,7 @@ export type CheckReport = {
   contacts: ReportContact[];
   jumpers: ReportJumper[];
   rods: ReportRod[];
-  /** Extra: bonds and spans that carry fault current in the solve. */
+  /** Extra: bonds (not spans) that carry fault current in the solve. */
   bonds?: ReportBond[];
   /** Extra: values the calculation assumed because the plan left them out. */
   assumptions?: ReportAssumption[];

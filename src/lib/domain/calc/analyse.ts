@@ -145,9 +145,12 @@ function emptyWorst(plan: PlanDocument, network: Network): WorstCurrents {
     jumperTo[j] = network.branchTo[b];
     jumperAdmittance[j] = 1 / Math.hypot(network.branchRe[b], network.branchIm[b]);
   });
-  const bondLinks = plan.links.flatMap((link) => (link.kind === 'bond' && branchOfLink.has(link.id) ? [link] : []));
-  const bondBranch = bondLinks.map((link) => branchOfLink.get(link.id) as number);
+  // Bonds that are not spans (spans are line conductor, rated by the line): followed for bond rules.
   const nodeById = new Map(plan.nodes.map((node) => [node.id, node]));
+  const bondLinks = plan.links.flatMap((link) =>
+    link.kind === 'bond' && branchOfLink.has(link.id) && !isSpan(link, nodeById.get(link.from), nodeById.get(link.to)) ? [link] : [],
+  );
+  const bondBranch = bondLinks.map((link) => branchOfLink.get(link.id) as number);
   const rodIds = [...network.rods.keys()];
   const rodBranch = rodIds.map((id) => network.rods.get(id)?.branch as number);
   return {
@@ -161,7 +164,7 @@ function emptyWorst(plan: PlanDocument, network: Network): WorstCurrents {
     rodOhms: Float64Array.from(rodBranch, (b) => network.branchRe[b]),
     rodA: new Float64Array(rodIds.length).fill(-1),
     rodV: new Float64Array(rodIds.length),
-    bonds: bondLinks.map((link) => ({ link: link.id, ohmsGiven: link.ohms !== undefined, span: isSpan(link, nodeById.get(link.from), nodeById.get(link.to)) })),
+    bonds: bondLinks.map((link) => ({ link: link.id, ohmsGiven: link.ohms !== undefined })),
     bondFrom: Int32Array.from(bondBranch, (b) => network.branchFrom[b]),
     bondTo: Int32Array.from(bondBranch, (b) => network.branchTo[b]),
     bondAdmittance: Float64Array.from(bondBranch, (b) => 1 / Math.hypot(network.branchRe[b], network.branchIm[b])),

@@ -42,15 +42,13 @@ export interface ContactFigures {
   systemVoltageLimited: boolean;
 }
 
-/** A bond the solve puts current through (report field `bonds`). */
+/** A bond (not a span) the solve puts current through (report field `bonds`). */
 export interface BondFigures {
   link: string;
   /** Largest current the solve put through the bond, kA, worst phase. */
   currentKa: number;
   /** True when the plan gives the bond's resistance; otherwise BOND_DEFAULT_OHMS was used. */
   ohmsGiven: boolean;
-  /** True for a span of line conductor between structures (plan-model isSpan). */
-  span: boolean;
 }
 
 export interface JumperFigures {
@@ -96,7 +94,7 @@ export interface NetworkFigures {
   contacts: ContactFigures[];
   jumpers: JumperFigures[];
   rods: RodFigures[];
-  /** Bonds (and spans) the solve put current through, in plan order. */
+  /** Bonds (not spans: those are line conductor) the solve put more than 1 A through, in plan order. */
   bonds: BondFigures[];
   assumptions: Assumption[];
   /** Phase ids whose injection could not be solved because the phase has no path to earth. */

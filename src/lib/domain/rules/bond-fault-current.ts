@@ -12,7 +12,7 @@ export const BOND_FAULT_CURRENT = 'bond-fault-current';
  */
 export function checkBondFaultCurrent(ctx: RuleContext): Finding[] {
   return ctx.network.bonds.flatMap((bond) => {
-    if (bond.span || !Number.isFinite(bond.currentKa)) return [];
+    if (!Number.isFinite(bond.currentKa)) return [];
     const name = capitalise(ctx.model.nameOf(bond.link));
     return [
       bond.ohmsGiven
