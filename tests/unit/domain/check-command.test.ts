@@ -51,6 +51,12 @@ describe('npm run check', () => {
     expect(stdout).toMatch(/W2\s+T1\s+\d/);
   });
 
+  it('shows the injected current and a contact capped at the line-to-neutral voltage in --text', async () => {
+    const { stdout } = await run(['--text', 'p.json'], { 'p.json': fixture('rod-only-voltage-cap.json') });
+    expect(stdout).toContain('injected for contacts and rods (Df x If) 1.58 kA; contact voltages capped at 7200 V line-to-neutral');
+    expect(stdout).toMatch(/W2\s+T1\s+7199\.6 \(capped\)/);
+  });
+
   it('shows help and exits 0', async () => {
     const { code, stdout } = await run(['--help'], {});
     expect(code).toBe(0);
