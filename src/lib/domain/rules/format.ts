@@ -44,3 +44,9 @@ export const milliohms = (valueOhms: number) => (Number.isFinite(valueOhms) ? `$
 
 /** A length that may be short: millimetres below 1 m ("20 mm"), else metres to one decimal. */
 export const shortLength = (valueM: number) => (Number.isFinite(valueM) && Math.abs(valueM) < 1 ? `${Number((valueM * 1000).toPrecision(3))} mm` : metres(valueM));
+
+/** A dimensionless factor to three decimals: "1.052". */
+export const factor = (value: number) => (Number.isFinite(value) ? value.toFixed(3) : 'an unknown factor');
+
+/** A diameter in millimetres as entered: "15.875 mm". */
+export const millimetres = (valueMm: number) => `${Number.isFinite(valueMm) ? Number(valueMm.toPrecision(4)) : 'an unknown'} mm`;

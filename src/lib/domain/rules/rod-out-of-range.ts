@@ -1,6 +1,6 @@
 import { ROD_MIN_LENGTH_TO_RADIUS, rodInRange } from '../calc/rods';
 import { capitalise } from '../plan-model';
-import { shortLength } from './format';
+import { millimetres, shortLength } from './format';
 import type { Finding, RuleContext } from './types';
 
 export const ROD_OUT_OF_RANGE = 'rod-out-of-range';
@@ -21,7 +21,7 @@ export function checkRodOutOfRange(ctx: RuleContext): Finding[] {
         severity: 'blocker' as const,
         elements: [rod.id],
         message:
-          `${capitalise(ctx.model.nameOf(rod.id))} is ${shortLength(rod.lengthM)} long and ${rod.diameterMm} mm across; the rod formula needs a driven length of at least ${ROD_MIN_LENGTH_TO_RADIUS} radii (${shortLength(minimumM)} here), ` +
+          `${capitalise(ctx.model.nameOf(rod.id))} is ${shortLength(rod.lengthM)} long and ${millimetres(rod.diameterMm)} across; the rod formula needs a driven length of at least ${ROD_MIN_LENGTH_TO_RADIUS} radii (${shortLength(minimumM)} here), ` +
           'so it was not counted as a ground; check the length and diameter.',
         basis: `Dwight's rod formula (IEEE Std 142) holds for a long thin rod; Bondmap refuses L < ${ROD_MIN_LENGTH_TO_RADIUS}·a`,
       },
