@@ -27,7 +27,7 @@ export interface PlanSummary {
   updatedAt: Date;
 }
 
-/** A stored check report; its shape is the checker's contract (plan-format.md). */
+/** A stored check report; its shape is the checker's contract (docs/plan-format.md). */
 export type StoredReport = { summary?: { blockers: number; warnings: number; notes: number } } & Record<string, unknown>;
 
 export interface PlanDetail extends PlanSummary {

@@ -1,6 +1,6 @@
 /**
  * `npm run check -- [--text] FILE`: checks one plan file. The logic lives here, apart from the
- * process, so tests drive it with fake files and writers. Exit status (plan-format.md): 0 when
+ * process, so tests drive it with fake files and writers. Exit status (docs/plan-format.md): 0 when
  * the plan is ok, 1 with any blocker, 2 for a document that cannot be read or is invalid, with
  * every problem by path on standard error, one a line.
  */

@@ -35,6 +35,7 @@ export function formatTextReport(report: CheckReport, title?: string): string {
     'Fault',
     `  ${num(fault.symmetricalKa, 2)} kA symmetrical for ${num(fault.durationS, 3)} s; decrement factor ${num(fault.decrementFactor, 3)} -> ${num(fault.asymmetricalKa, 2)} kA`,
     `  peak factor ${num(fault.peakFactor, 3)} -> ${num(fault.peakKa, 2)} kA peak; force between adjacent leads ${num(fault.peakForceNPerM, 1)} N/m`,
+    `  injected for contacts and rods (Df x If) ${num(fault.injectedKa, 2)} kA; contact voltages capped at ${fault.lineToNeutralVolts == null ? '— (no nominal voltage)' : `${num(fault.lineToNeutralVolts, 0)} V line-to-neutral`}`,
     `  tolerable body current ${num(report.tolerableBodyAmps, 3)} A`,
     '',
   );
@@ -44,7 +45,7 @@ export function formatTextReport(report: CheckReport, title?: string): string {
     ...indent(
       formatTable(
         ['worker', 'surface', 'touch V', 'body A', 'limit A', 'status'],
-        report.contacts.map((c) => [c.worker, c.surface, num(c.touchVolts, 1), num(c.bodyAmps, 4), num(c.limitAmps, 3), c.status ?? '']),
+        report.contacts.map((c) => [c.worker, c.surface, `${num(c.touchVolts, 1)}${c.systemVoltageLimited ? ' (capped)' : ''}`, num(c.bodyAmps, 4), num(c.limitAmps, 3), c.status ?? '']),
       ),
     ),
     '',

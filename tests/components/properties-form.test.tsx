@@ -25,6 +25,7 @@ const SAMPLE: Record<NodeKind, Record<string, unknown>> = {
   mat: { id: 'M1', kind: 'mat' },
   'pole-ground': { id: 'PG', kind: 'pole-ground' },
   worker: { id: 'W1', kind: 'worker', standsOn: 'BK' },
+  'supply-end': { id: 'SE', kind: 'supply-end', phases: ['A'] },
 };
 const NODES = [SAMPLE.bucket, SAMPLE['cluster-bar'], SAMPLE.worker] as never[];
 

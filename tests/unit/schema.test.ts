@@ -12,7 +12,7 @@ const base = {
 };
 
 describe('plan schema', () => {
-  it('accepts the document example of plan-format.md', () => {
+  it('accepts the document example of docs/plan-format.md', () => {
     expect(parsePlan(base)).toMatchObject({ ok: true });
   });
 

@@ -11,13 +11,14 @@ export interface Clipboard { nodes: PlanNode[]; links: PlanLink[] }
 const NODE_PREFIX: Record<NodeKind, string> = {
   phase: 'PH', neutral: 'N', 'shield-wire': 'SW', structure: 'S', crossarm: 'X', hardware: 'H', 'cluster-bar': 'CB',
   'ground-rod': 'R', earth: 'E', bucket: 'BK', truck: 'T', mat: 'M', 'pole-ground': 'PG', worker: 'W',
+  'supply-end': 'SE',
 };
 const LINK_PREFIX: Record<LinkKind, string> = { jumper: 'j', bond: 'b', reach: 'r' };
 
 export const KIND_LABELS: Record<NodeKind, string> = {
   phase: 'Phase', neutral: 'Neutral', 'shield-wire': 'Shield wire', structure: 'Structure', crossarm: 'Crossarm',
   hardware: 'Hardware', 'cluster-bar': 'Cluster bar', 'ground-rod': 'Ground rod', earth: 'Earth', bucket: 'Bucket',
-  truck: 'Truck', mat: 'Mat', 'pole-ground': 'Pole ground', worker: 'Worker',
+  truck: 'Truck', mat: 'Mat', 'pole-ground': 'Pole ground', worker: 'Worker', 'supply-end': 'Supply end',
 };
 export const LINK_LABELS: Record<LinkKind, string> = { jumper: 'Jumper', bond: 'Bond', reach: 'Reach' };
 
@@ -56,6 +57,9 @@ export function createNode(doc: PlanDocument, kind: NodeKind, position: Point, s
       return { ...base, kind, lengthM: 2.4, diameterMm: 16, soilOhmM: 100 } as PlanNode;
     case 'bucket':
       return { ...base, kind, insulatedBoom: true } as PlanNode;
+    case 'supply-end':
+      // Feeds every phase of the plan until the crew lead narrows it down.
+      return { ...base, kind, phases: doc.nodes.filter((n) => n.kind === 'phase').map((n) => n.id) } as PlanNode;
     case 'worker': {
       const target = standsOn ?? pickStanding(doc);
       return { ...base, kind, standsOn: target ?? 'E' } as PlanNode;

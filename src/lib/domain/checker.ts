@@ -1,6 +1,6 @@
 /**
  * The checker: zones, calculations and rules composed into one check report
- * (shared/design/plan-format.md, "Check report"). Pure: same plan, same report.
+ * (docs/plan-format.md, "Check report"). Pure: same plan, same report.
  */
 import type { PlanDocument } from '../schemas/plan';
 import { calc as defaultCalc } from './calc/index';
@@ -27,12 +27,12 @@ export const CALC_FAILED = 'calc-failed';
 /** A figure as the report carries it: null instead of NaN or an infinity. */
 const figure = (value: number | null | undefined): Figure => (typeof value === 'number' && Number.isFinite(value) ? value : null);
 
-const EMPTY_NETWORK: NetworkFigures = { contacts: [], jumpers: [], rods: [], assumptions: [], unsolvedPhases: [] };
+const EMPTY_NETWORK: NetworkFigures = { contacts: [], jumpers: [], rods: [], bonds: [], assumptions: [], unsolvedPhases: [] };
 
 /** The fault figures the schema's bounds guarantee even when the calculation fails. */
 function fallbackFault(plan: PlanDocument): FaultFigures {
   const durationS = plan.system.clearingCycles / plan.system.frequencyHz;
-  return { symmetricalKa: plan.system.faultKa, durationS, decrementFactor: NaN, asymmetricalKa: NaN, peakFactor: NaN, peakKa: NaN, peakForceNPerM: null };
+  return { symmetricalKa: plan.system.faultKa, durationS, decrementFactor: NaN, asymmetricalKa: NaN, peakFactor: NaN, peakKa: NaN, peakForceNPerM: null, injectedKa: NaN, lineToNeutralVolts: null };
 }
 
 function calcFailed(error: unknown): Finding {
@@ -72,6 +72,7 @@ function toReportContact(contact: NetworkFigures['contacts'][number]): ReportCon
     limitAmps: figure(contact.limitAmps),
     worstPhase: contact.worstPhase,
     status: contact.status,
+    ...(contact.systemVoltageLimited ? { systemVoltageLimited: true } : {}),
   };
 }
 
@@ -148,6 +149,8 @@ export function checkPlan(drawn: PlanDocument, calc: CalcEntryPoints = defaultCa
       peakFactor: figure(fault.peakFactor),
       peakKa: figure(fault.peakKa),
       peakForceNPerM: figure(fault.peakForceNPerM),
+      injectedKa: figure(fault.injectedKa),
+      lineToNeutralVolts: figure(fault.lineToNeutralVolts),
     },
     tolerableBodyAmps: figure(tolerableBodyAmps),
     zones: zones.zones.map((zone) => ({
@@ -159,6 +162,7 @@ export function checkPlan(drawn: PlanDocument, calc: CalcEntryPoints = defaultCa
     contacts: network.contacts.map(toReportContact),
     jumpers: network.jumpers.map(toReportJumper),
     rods: network.rods.map(toReportRod),
+    bonds: network.bonds.map((bond) => ({ link: bond.link, currentKa: figure(bond.currentKa), ohmsGiven: bond.ohmsGiven })),
     assumptions: network.assumptions.map((a) => ({ ...a, value: figure(a.value) })),
     ...(sets ? { sets: reportSets(sets) } : {}),
     caution: CAUTION,

@@ -30,8 +30,10 @@ export function explainPlan(plan: PlanDocument, report: CheckReport | null): Exp
       for (const c of report?.contacts.filter((c) => c.worker === node.id) ?? []) {
         lines.push(`Touching ${label(c.surface)}: ${fmt(c.touchVolts, 1)} V across the body, ${fmt(c.bodyAmps, 4)} A through it, against a limit of ${fmt(c.limitAmps, 3)} A.`);
       }
+    } else if (node.kind === 'supply-end') {
+      lines.push(`Marks a source that can feed the work through ${node.phases.map(label).join(', ')}; grounds belong between it and the workers, or at the work location.`);
     } else if (z === undefined) {
-      lines.push('Not a conductor: wood and fiberglass do not bond anything, so clamps on it join nothing.');
+      lines.push('Not a bonding path: wood, fiberglass and concrete join nothing a clamp is put on.');
     } else {
       const zone = zones[z];
       lines.push(`In zone ${z + 1} with ${zone.nodes.length - 1} other element${zone.nodes.length === 2 ? '' : 's'}; that zone is ${zone.grounded ? 'grounded' : 'NOT grounded'}.`);

@@ -1,5 +1,5 @@
 /**
- * The check report, version 1 (shared/design/plan-format.md, "Check report"): what
+ * The check report, version 1 (docs/plan-format.md, "Check report"): what
  * `POST /api/check` returns and `npm run check` prints. Fields beyond the contract are optional
  * additions; a figure that could not be computed is null and a `figure-invalid` blocker names it,
  * so the JSON never carries NaN or Infinity.
@@ -41,6 +41,10 @@ export interface ReportFault {
   peakKa: Figure;
   /** Null also when the plan gives no phase spacing. */
   peakForceNPerM: Figure;
+  /** Extra: current injected for contacts and rods, Df × symmetricalKa (IEEE Std 80). */
+  injectedKa?: Figure;
+  /** Extra: line-to-neutral voltage that caps contact voltages; null without nominalKv. */
+  lineToNeutralVolts?: Figure;
 }
 
 export interface ReportZone {
@@ -63,6 +67,15 @@ export interface ReportContact {
   worstPhase?: string | null;
   /** Extra: 'solved' or 'floating' (calc/contract.ts). */
   status?: 'solved' | 'floating';
+  /** Extra: present (true) when the open-circuit voltage was capped at the line-to-neutral voltage. */
+  systemVoltageLimited?: boolean;
+}
+
+/** Extra: a bond (not a span) the solve put more than 1 A through. */
+export interface ReportBond {
+  link: string;
+  currentKa: Figure;
+  ohmsGiven: boolean;
 }
 
 export interface ReportJumper {
@@ -112,6 +125,8 @@ export type CheckReport = {
   contacts: ReportContact[];
   jumpers: ReportJumper[];
   rods: ReportRod[];
+  /** Extra: bonds (not spans) that carry fault current in the solve. */
+  bonds?: ReportBond[];
   /** Extra: values the calculation assumed because the plan left them out. */
   assumptions?: ReportAssumption[];
   /** Extra: the grounding sets the plan names, with status and due date (only when checked against an inventory). */

@@ -4,9 +4,11 @@
  *
  * Decisions (see the rules for how each is reported):
  * - A zone is a connected component over `jumper` and `bond` links among conductive nodes. A link
- *   with a wood or fiberglass end joins nothing: a clamp on a wood pole makes no electrical
+ *   with a wood, fiberglass or concrete end joins nothing: a clamp there makes no electrical
  *   connection. Workers are never part of a zone; they stand on one.
- * - Every `earth` node is the same remote earth, so all earth nodes share one zone.
+ * - Every `earth` node is the same remote earth, so all earth nodes share one zone. Nothing can
+ *   be clamped to remote earth: a link to an `earth` node joins nothing (earth-link reports it).
+ * - A bucket on a boom that is not insulated is joined to its truck (plan-model boomPaths).
  * - A pole ground conducts, so it joins a zone, but it is never relied on: a node is solidly
  *   grounded only when it reaches a ground source without passing through a pole ground.
  * - Only the nodes that matter for the crew are held to that: phases, the nodes workers stand on
@@ -14,7 +16,7 @@
  *   does not make the zone ungrounded unless someone can touch it.
  */
 import type { PlanDocument } from '../schemas/plan';
-import { buildPlanModel, compareIds, isBondingLink, isConductive, isGroundSource, isPoleGround, type PlanModel } from './plan-model';
+import { boomPaths, buildPlanModel, compareIds, isBondingLink, isConductive, isGroundSource, isPoleGround, type PlanModel } from './plan-model';
 
 export interface Zone {
   /** Node ids, sorted by code unit. */
@@ -62,7 +64,7 @@ class DisjointSets {
 function crewRelevantNodes(model: PlanModel): Set<string> {
   const relevant = new Set<string>(model.nodesOf('phase').map((n) => n.id));
   for (const worker of model.nodesOf('worker')) relevant.add(worker.standsOn);
-  for (const reach of model.linksOf('reach')) relevant.add(reach.to);
+  for (const reach of model.linksOf('reach')) relevant.add(model.reachTarget(reach));
   return relevant;
 }
 
@@ -79,14 +81,15 @@ export function mapZones(model: PlanModel): ZoneMap {
     all.union(earthIndexes[0], i);
     core.union(earthIndexes[0], i);
   }
-  for (const link of model.plan.links) {
-    if (!isBondingLink(link)) continue;
-    const a = index.get(link.from);
-    const b = index.get(link.to);
-    if (a === undefined || b === undefined || !conductive[a] || !conductive[b]) continue;
+  const join = (from: string, to: string) => {
+    const a = index.get(from);
+    const b = index.get(to);
+    if (a === undefined || b === undefined || !conductive[a] || !conductive[b]) return;
     all.union(a, b);
     if (!isPoleGround(nodes[a]) && !isPoleGround(nodes[b])) core.union(a, b);
-  }
+  };
+  for (const link of model.plan.links) if (isBondingLink(link) && !model.isEarthLink(link)) join(link.from, link.to);
+  for (const boom of boomPaths(model.plan)) join(boom.bucket, boom.truck);
 
   const coreSourced = new Set<number>();
   nodes.forEach((node, i) => {

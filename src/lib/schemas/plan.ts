@@ -1,10 +1,13 @@
 /**
- * The plan document, version 1 (shared/design/plan-format.md): the one zod schema that the
+ * The plan document, version 1 (docs/plan-format.md): the one zod schema that the
  * editor, the endpoints, the checker and the command line all parse with.
  * Quantities are stored in fixed SI-ish units whose names carry the unit.
  */
 import { z } from 'zod';
 import { findDepthIssue } from './depth';
+import { findReferenceIssues } from './plan-references';
+
+export { findReferenceIssues, type RawIssue } from './plan-references';
 
 export const PLAN_FORMAT = 'bondmap-plan' as const;
 export const PLAN_VERSION = 1 as const;
@@ -24,6 +27,7 @@ export const NODE_KINDS = [
   'mat',
   'pole-ground',
   'worker',
+  'supply-end',
 ] as const;
 export type NodeKind = (typeof NODE_KINDS)[number];
 
@@ -36,6 +40,14 @@ export type CableSize = (typeof CABLE_SIZES)[number];
 
 export const MATERIALS = ['wood', 'steel', 'concrete', 'fiberglass'] as const;
 export type Material = (typeof MATERIALS)[number];
+
+/** How the rods of a group stand (docs/plan-format.md); absent: the most compact of the three is assumed. */
+export const ROD_ARRANGEMENTS = ['line', 'ring', 'grid'] as const;
+export type RodArrangement = (typeof ROD_ARRANGEMENTS)[number];
+
+/** What a jumper's clamps are made for, and how its cable is terminated in them (docs/plan-format.md). */
+export const CLAMP_KINDS = ['grounding', 'live-line'] as const;
+export const CONNECTIONS = ['ferrule', 'bare-strands'] as const;
 
 const finite = () => z.number({ invalid_type_error: 'must be a number', required_error: 'is required' }).finite('must be a finite number');
 const positive = () => finite().positive('must be greater than 0');
@@ -93,7 +105,7 @@ export const nodeSchema = z.discriminatedUnion(
       .object({ ...nodeBase, kind: z.literal('structure'), material, groundOhms: groundOhms() })
       .passthrough(),
     z.object({ ...nodeBase, kind: z.literal('crossarm'), material }).passthrough(),
-    z.object({ ...nodeBase, kind: z.literal('hardware') }).passthrough(),
+    z.object({ ...nodeBase, kind: z.literal('hardware'), groundOhms: groundOhms() }).passthrough(),
     z.object({ ...nodeBase, kind: z.literal('cluster-bar') }).passthrough(),
     z
       .object({
@@ -105,6 +117,7 @@ export const nodeSchema = z.discriminatedUnion(
         count: z.number({ invalid_type_error: 'must be a number' }).int('must be a whole number').min(1, 'must be at least 1').max(100, 'must be at most 100').optional(),
         spacingM: positive().max(1000, 'must be at most 1000 m').optional(),
         workDistanceM: finite().min(0, 'must be 0 or more').max(10000, 'must be at most 10000 m').optional(),
+        arrangement: z.enum(ROD_ARRANGEMENTS, { errorMap: () => ({ message: `must be one of ${ROD_ARRANGEMENTS.join(', ')}` }) }).optional(),
       })
       .passthrough(),
     z.object({ ...nodeBase, kind: z.literal('earth') }).passthrough(),
@@ -113,12 +126,20 @@ export const nodeSchema = z.discriminatedUnion(
         ...nodeBase,
         kind: z.literal('bucket'),
         insulatedBoom: z.boolean({ invalid_type_error: 'must be true or false' }).optional(),
+        onTruck: id().optional(),
       })
       .passthrough(),
     z.object({ ...nodeBase, kind: z.literal('truck'), groundOhms: groundOhms() }).passthrough(),
     z.object({ ...nodeBase, kind: z.literal('mat') }).passthrough(),
     z.object({ ...nodeBase, kind: z.literal('pole-ground') }).passthrough(),
     z.object({ ...nodeBase, kind: z.literal('worker'), standsOn: id() }).passthrough(),
+    z
+      .object({
+        ...nodeBase,
+        kind: z.literal('supply-end'),
+        phases: z.array(id(), { invalid_type_error: 'must be a list', required_error: 'is required' }).min(1, 'must name at least one phase').max(12, 'must name at most 12 phases'),
+      })
+      .passthrough(),
   ],
   {
     errorMap: (issue, ctx) =>
@@ -151,11 +172,13 @@ export const linkSchema = z.discriminatedUnion(
         clampCycles: positive().max(300, 'must be at most 300 cycles').optional(),
         ohms: ohms(),
         equipmentId: id().optional(),
-        clampKind: z.enum(['grounding', 'live-line']).optional(),
-        connection: z.enum(['ferrule', 'bare-strands']).optional(),
+        clampKind: z.enum(CLAMP_KINDS, { errorMap: () => ({ message: `must be one of ${CLAMP_KINDS.join(', ')}` }) }).optional(),
+        connection: z.enum(CONNECTIONS, { errorMap: () => ({ message: `must be one of ${CONNECTIONS.join(', ')}` }) }).optional(),
       })
       .passthrough(),
-    z.object({ ...linkBase, kind: z.literal('bond'), ohms: ohms() }).passthrough(),
+    z
+      .object({ ...linkBase, kind: z.literal('bond'), ohms: ohms(), span: z.boolean({ invalid_type_error: 'must be true or false' }).optional() })
+      .passthrough(),
     z.object({ ...linkBase, kind: z.literal('reach') }).passthrough(),
   ],
   {
@@ -169,68 +192,6 @@ export const linkSchema = z.discriminatedUnion(
 );
 export type PlanLink = z.infer<typeof linkSchema>;
 export type LinkOf<K extends LinkKind> = Extract<PlanLink, { kind: K }>;
-
-/** An issue with its path as zod keeps it (keys and indexes). */
-export interface RawIssue {
-  path: (string | number)[];
-  message: string;
-}
-
-type LooseNode = { id?: unknown; kind?: unknown; standsOn?: unknown; count?: unknown; spacingM?: unknown };
-type LooseLink = { id?: unknown; kind?: unknown; from?: unknown; to?: unknown };
-const asList = (value: unknown): Record<string, unknown>[] =>
-  Array.isArray(value) ? value.map((item) => (item && typeof item === 'object' ? (item as Record<string, unknown>) : {})) : [];
-
-/**
- * Cross-field rules that a per-field schema cannot state: unique ids, references, rod groups,
- * reach links. Works on the raw input, so a document with a wrong type in one field still gets
- * its broken references reported in the same answer.
- */
-export function findReferenceIssues(input: unknown): RawIssue[] {
-  const issues: RawIssue[] = [];
-  const doc = input && typeof input === 'object' ? (input as Record<string, unknown>) : {};
-  const nodes = asList(doc.nodes) as LooseNode[];
-  const links = asList(doc.links) as LooseLink[];
-  const nodesReadable = Array.isArray(doc.nodes);
-  const nodeById = new Map<string, LooseNode>();
-  nodes.forEach((node, i) => {
-    if (typeof node.id !== 'string') return;
-    if (nodeById.has(node.id)) issues.push({ path: ['nodes', i, 'id'], message: `duplicate id "${node.id}"` });
-    else nodeById.set(node.id, node);
-  });
-  nodes.forEach((node, i) => {
-    if (node.kind === 'worker' && typeof node.standsOn === 'string') {
-      const target = nodeById.get(node.standsOn);
-      if (!target) issues.push({ path: ['nodes', i, 'standsOn'], message: `no node with id "${node.standsOn}"` });
-      else if (target.kind === 'worker') issues.push({ path: ['nodes', i, 'standsOn'], message: 'a worker cannot stand on a worker' });
-    }
-    if (node.kind === 'ground-rod' && typeof node.count === 'number' && node.count > 1 && node.spacingM === undefined) {
-      issues.push({ path: ['nodes', i, 'spacingM'], message: 'is required when count is more than 1' });
-    }
-  });
-  const linkIds = new Set<string>();
-  links.forEach((link, i) => {
-    if (typeof link.id === 'string') {
-      if (nodeById.has(link.id) || linkIds.has(link.id)) issues.push({ path: ['links', i, 'id'], message: `duplicate id "${link.id}"` });
-      linkIds.add(link.id);
-    }
-    // With no readable node list, every reference would be "missing": report the list once instead.
-    for (const end of nodesReadable ? (['from', 'to'] as const) : []) {
-      const ref = link[end];
-      if (typeof ref === 'string' && !nodeById.has(ref)) issues.push({ path: ['links', i, end], message: `no node with id "${ref}"` });
-    }
-    if (typeof link.from === 'string' && link.from === link.to) issues.push({ path: ['links', i, 'to'], message: 'must differ from "from"' });
-    const fromKind = typeof link.from === 'string' ? nodeById.get(link.from)?.kind : undefined;
-    const toKind = typeof link.to === 'string' ? nodeById.get(link.to)?.kind : undefined;
-    if (link.kind === 'reach' && fromKind !== undefined && fromKind !== 'worker') {
-      issues.push({ path: ['links', i, 'from'], message: 'a reach link starts at a worker' });
-    }
-    if ((link.kind === 'jumper' || link.kind === 'bond') && (fromKind === 'worker' || toKind === 'worker')) {
-      issues.push({ path: ['links', i, 'kind'], message: 'a worker is joined to surfaces by reach links only; a worker is never a bonding path' });
-    }
-  });
-  return issues;
-}
 
 export const MAX_NODES = 20000;
 export const MAX_LINKS = 40000;

@@ -5,18 +5,24 @@ import { checkEntries, loadReference } from './reference';
 
 const FOOT_M = 0.3048;
 
-/** A fault on phase A returning to earth through one resistive path; a worker on earth touches A. */
+/**
+ * A fault on phase A returning to earth through one resistive path; a worker on earth touches A.
+ * The path ends on hardware with a 1 nΩ resistance to earth (nothing is clamped to remote earth
+ * itself), and X/R 0 makes the decrement factor 1, so the worked examples' symmetrical current is
+ * what the solve injects.
+ */
 function dividerPlan(pathOhms: number[], faultKa: number, bodyOhms: number): PlanDocument {
-  const nodeIds = ['A', ...pathOhms.slice(1).map((_, i) => `M${i}`), 'E'];
+  const nodeIds = ['A', ...pathOhms.slice(1).map((_, i) => `M${i}`), 'G'];
   const input = {
     format: 'bondmap-plan',
     version: 1,
     title: 'current divider',
-    system: { frequencyHz: 60, faultKa, clearingCycles: 15, xOverR: 10 },
+    system: { frequencyHz: 60, faultKa, clearingCycles: 15, xOverR: 0 },
     criteria: { bodyKg: 50, bodyOhms },
     nodes: [
       { id: 'A', kind: 'phase', phase: 'A' },
       ...nodeIds.slice(1, -1).map((id) => ({ id, kind: 'hardware' })),
+      { id: 'G', kind: 'hardware', groundOhms: 1e-9 },
       { id: 'E', kind: 'earth' },
       { id: 'W', kind: 'worker', standsOn: 'E' },
     ],

@@ -19,8 +19,8 @@ describe('fault shape against fixtures/reference/fault-shape.json', () => {
 });
 
 describe('computeFault', () => {
-  it('reproduces the report example of plan-format.md (10 kA, 15 cycles at 60 Hz, X/R 10, 0.9 m)', () => {
-    // plan-format.md: durationS 0.25, Df 1.052, 10.52 kA, κ 1.746, 24.69 kA, 135.5 N/m (computed from its formulas).
+  it('reproduces the report example of docs/plan-format.md (10 kA, 15 cycles at 60 Hz, X/R 10, 0.9 m)', () => {
+    // docs/plan-format.md: durationS 0.25, Df 1.052, 10.52 kA, κ 1.746, 24.69 kA, 135.5 N/m (computed from its formulas).
     const fault = computeFault({ ...system, phaseSpacingM: 0.9 });
     expect(fault.durationS).toBe(0.25);
     expect(fault.decrementFactor).toBeCloseTo(1.052, 3);

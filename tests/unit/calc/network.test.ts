@@ -1,8 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import {
   analyseNetwork,
+  BARE_STRANDS_OHMS,
   BOND_DEFAULT_OHMS,
   buildNetwork,
+  decrementFactor,
   DEFAULT_GROUND_OHMS,
   jumperImpedance,
   REFERENCE,
@@ -12,7 +14,7 @@ import {
 import { radiusFromDiameterMm } from '../../../src/lib/domain/calc/units';
 import { tinyPlan } from './plans';
 
-const phaseToEarth = (extraNodes: Record<string, unknown>[] = [], extraLinks: Record<string, unknown>[] = []) =>
+const phaseToEarth = (extraNodes: Record<string, unknown>[] = [], extraLinks: Record<string, unknown>[] = [], system: Record<string, unknown> = {}) =>
   tinyPlan(
     [{ id: 'A', kind: 'phase' }, { id: 'CB', kind: 'cluster-bar' }, { id: 'N', kind: 'neutral', groundOhms: 5 }, ...extraNodes],
     [
@@ -20,6 +22,7 @@ const phaseToEarth = (extraNodes: Record<string, unknown>[] = [], extraLinks: Re
       { id: 'jN', kind: 'jumper', from: 'CB', to: 'N', cable: '2/0', lengthM: 2 },
       ...extraLinks,
     ],
+    system,
   );
 
 const noNaN = (value: unknown) => expect(JSON.stringify(value)).not.toMatch(/NaN|Infinity/);
@@ -48,8 +51,9 @@ describe('buildNetwork', () => {
         { id: 'N', kind: 'neutral' },
         { id: 'S', kind: 'shield-wire' },
         { id: 'T1', kind: 'structure', material: 'steel' },
-        { id: 'T2', kind: 'structure', material: 'concrete' },
+        { id: 'T2', kind: 'structure', material: 'concrete', groundOhms: 50 },
         { id: 'T3', kind: 'structure', material: 'steel', groundOhms: 7 },
+        { id: 'H', kind: 'hardware', groundOhms: 12 },
       ],
       [],
     );
@@ -58,8 +62,41 @@ describe('buildNetwork', () => {
       ['N', 'groundOhms', DEFAULT_GROUND_OHMS.neutral.value],
       ['S', 'groundOhms', DEFAULT_GROUND_OHMS['shield-wire'].value],
       ['T1', 'groundOhms', DEFAULT_GROUND_OHMS.steel.value],
-      ['T2', 'groundOhms', DEFAULT_GROUND_OHMS.concrete.value],
     ]);
+  });
+
+  it('takes no footing for concrete, and a brought-out ground wire (hardware) at its given resistance (docs/plan-format.md)', () => {
+    const network = buildNetwork(tinyPlan([{ id: 'T2', kind: 'structure', material: 'concrete', groundOhms: 50 }, { id: 'H', kind: 'hardware', groundOhms: 12 }], []));
+    expect(network.indexOf.has('T2')).toBe(false);
+    expect(network.branchElement).toEqual(['H']);
+    expect(network.branchRe[0]).toBe(12);
+  });
+
+  it('refuses a link to an earth node: nothing can be clamped to remote earth (issue: earth is the reference)', () => {
+    const plan = tinyPlan([{ id: 'A', kind: 'phase' }, { id: 'E', kind: 'earth' }], [{ id: 'jE', kind: 'jumper', from: 'A', to: 'E', cable: '2/0', lengthM: 2 }]);
+    const network = buildNetwork(plan);
+    expect(network.branchElement).not.toContain('jE');
+    expect(network.floating.has('A')).toBe(true);
+  });
+
+  it('joins a bucket on a boom that is not insulated to its truck', () => {
+    const plan = phaseToEarth([{ id: 'BK', kind: 'bucket', insulatedBoom: false }, { id: 'T', kind: 'truck' }], [{ id: 'jB', kind: 'jumper', from: 'BK', to: 'CB', cable: '2/0', lengthM: 2 }]);
+    const network = buildNetwork(plan);
+    expect(network.floating.has('T')).toBe(false);
+    expect(network.branchKind[network.branchElement.indexOf('BK')]).toBe('boom');
+    const insulated = buildNetwork(phaseToEarth([{ id: 'BK', kind: 'bucket', insulatedBoom: true }, { id: 'T', kind: 'truck' }], [{ id: 'jB', kind: 'jumper', from: 'BK', to: 'CB', cable: '2/0', lengthM: 2 }]));
+    expect(insulated.floating.has('T')).toBe(true);
+  });
+
+  it('adds BARE_STRANDS_OHMS to a jumper with bare strands, and nothing to a measured one', () => {
+    const plan = phaseToEarth([{ id: 'H', kind: 'hardware' }], [
+      { id: 'jb', kind: 'jumper', from: 'H', to: 'CB', cable: '2/0', lengthM: 2, connection: 'bare-strands' },
+      { id: 'jm', kind: 'jumper', from: 'H', to: 'N', cable: '2/0', lengthM: 2, connection: 'bare-strands', ohms: 0.003 },
+    ]);
+    const network = buildNetwork(plan);
+    const re = (id: string) => network.branchRe[network.branchElement.indexOf(id)];
+    expect(re('jb') - re('jA')).toBeCloseTo(BARE_STRANDS_OHMS, 15);
+    expect(re('jm')).toBe(0.003);
   });
 
   it('does not ground a truck without groundOhms (its tyres insulate) nor through a pole ground', () => {
@@ -73,7 +110,7 @@ describe('buildNetwork', () => {
     expect(network.branchRe[0]).toBe(80);
   });
 
-  it('uses `ohms` as a pure resistance and 0.0001 Ω for a bond without it (plan-format.md)', () => {
+  it('uses `ohms` as a pure resistance and 0.0001 Ω for a bond without it (docs/plan-format.md)', () => {
     const plan = phaseToEarth([{ id: 'H', kind: 'hardware' }], [
       { id: 'b1', kind: 'bond', from: 'H', to: 'CB' },
       { id: 'j9', kind: 'jumper', from: 'H', to: 'N', cable: '4/0', lengthM: 3, ohms: 0.002 },
@@ -104,11 +141,13 @@ describe('analyseNetwork', () => {
       { faultKa: 4 },
     );
     const figures = analyseNetwork(plan);
-    expect(figures.jumpers.map((j) => j.currentKa)).toEqual([expect.closeTo(4, 9), expect.closeTo(4, 9)]);
+    // The solve injects Df × If (IEEE Std 80: effective asymmetrical rms over the shock duration).
+    const df = decrementFactor(10, 0.25, 60);
+    expect(figures.jumpers.map((j) => j.currentKa)).toEqual([expect.closeTo(4 * df, 9), expect.closeTo(4 * df, 9)]);
     const rodOhms = rodGroupOhms({ soilOhmM: 100, lengthM: 2.4, radius: radiusFromDiameterMm(16), count: 1 }).ohms;
     expect(figures.rods[0].ohms).toBeCloseTo(rodOhms, 12);
-    expect(figures.rods[0].currentKa).toBeCloseTo(4, 9);
-    expect(figures.rods[0].potentialRiseVolts).toBeCloseTo(4000 * rodOhms, 6);
+    expect(figures.rods[0].currentKa).toBeCloseTo(4 * df, 9);
+    expect(figures.rods[0].potentialRiseVolts).toBeCloseTo(4000 * df * rodOhms, 6);
   });
 
   it('marks contacts on wood as floating and lists phases with no path to earth, without NaN', () => {
@@ -168,21 +207,48 @@ describe('analyseNetwork', () => {
   it('takes a worker standing on earth at remote-earth potential', () => {
     const plan = phaseToEarth([{ id: 'E', kind: 'earth' }, { id: 'W', kind: 'worker', standsOn: 'E' }], [{ id: 'r', kind: 'reach', from: 'W', to: 'N' }]);
     const contact = analyseNetwork(plan).contacts[0];
-    // Fault 10 kA through the 5 Ω neutral ground: the neutral rises 50 kV above remote earth.
-    expect(contact.touchVolts).toBeCloseTo(50_000, 3);
-    expect(contact.bodyAmps).toBeCloseTo(50_000 / (1000 + 5), 0);
+    // Fault 10 kA × Df through the 5 Ω neutral ground: the neutral rises 50 kV × Df above remote earth.
+    const df = decrementFactor(10, 0.25, 60);
+    expect(contact.touchVolts).toBeCloseTo(50_000 * df, 3);
+    expect(contact.bodyAmps).toBeCloseTo((50_000 * df) / (1000 + 5), 0);
+    expect(contact.systemVoltageLimited).toBe(false);
+  });
+
+  it('caps the open-circuit voltage at the line-to-neutral voltage when nominalKv is given', () => {
+    const nodes = [{ id: 'E', kind: 'earth' }, { id: 'W', kind: 'worker', standsOn: 'E' }];
+    const plan = tinyPlan(
+      [{ id: 'A', kind: 'phase' }, { id: 'CB', kind: 'cluster-bar' }, { id: 'N', kind: 'neutral', groundOhms: 5 }, ...nodes],
+      [{ id: 'jA', kind: 'jumper', from: 'A', to: 'CB', cable: '2/0', lengthM: 2 }, { id: 'jN', kind: 'jumper', from: 'CB', to: 'N', cable: '2/0', lengthM: 2 }, { id: 'r', kind: 'reach', from: 'W', to: 'N' }],
+      { nominalKv: 12.47 },
+    );
+    const contact = analyseNetwork(plan).contacts[0];
+    // 12.47 kV phase-to-phase → 12470/√3 = 7199.6 V line-to-neutral [calc].
+    expect(contact.touchVolts).toBeCloseTo(7199.6, 1);
+    expect(contact.bodyAmps).toBeCloseTo(7199.6 / 1005, 3);
+    expect(contact.systemVoltageLimited).toBe(true);
+  });
+
+  it('checks a reach to another worker against that worker’s standing node', () => {
+    const plan = phaseToEarth(
+      [{ id: 'E', kind: 'earth' }, { id: 'W1', kind: 'worker', standsOn: 'E' }, { id: 'W2', kind: 'worker', standsOn: 'CB' }],
+      [{ id: 'r', kind: 'reach', from: 'W1', to: 'W2' }],
+      { xOverR: 0 },
+    );
+    const contact = analyseNetwork(plan).contacts[0];
+    expect(contact.status).toBe('solved');
+    expect(contact.touchVolts).toBeGreaterThan(49_000); // the cluster bar rises with the neutral, ~50 kV
   });
 
   it('uses the plan’s body weight and resistance', () => {
     const plan = tinyPlan(
-      [{ id: 'A', kind: 'phase' }, { id: 'E', kind: 'earth' }, { id: 'W', kind: 'worker', standsOn: 'E' }],
-      [{ id: 'b', kind: 'bond', from: 'A', to: 'E', ohms: 0.01 }, { id: 'r', kind: 'reach', from: 'W', to: 'A' }],
-      { clearingCycles: 30 },
+      [{ id: 'A', kind: 'phase' }, { id: 'G', kind: 'hardware', groundOhms: 1e-9 }, { id: 'E', kind: 'earth' }, { id: 'W', kind: 'worker', standsOn: 'E' }],
+      [{ id: 'b', kind: 'bond', from: 'A', to: 'G', ohms: 0.01 }, { id: 'r', kind: 'reach', from: 'W', to: 'A' }],
+      { clearingCycles: 30, xOverR: 0 },
       { bodyKg: 70, bodyOhms: 500 },
     );
     const contact = analyseNetwork(plan).contacts[0];
     expect(contact.limitAmps).toBe(tolerableBodyAmps(0.5, 70));
-    expect(contact.bodyAmps).toBeCloseTo(100 / 500.01, 9);
+    expect(contact.bodyAmps).toBeCloseTo(100 / 500.01, 6); // the 1 nΩ ground adds 1e-7 V
   });
 });
 

@@ -91,7 +91,14 @@ describe('cableRating between and beyond the tabulated durations', () => {
 describe('clampRatingAt', () => {
   it('converts by constant I²t to a longer clearing time', () => {
     expect(clampRatingAt(20, 15, 0.5, 60)).toBeCloseTo(20 * Math.sqrt(0.25 / 0.5), 12);
-    expect(clampRatingAt(20, 30, 1, 50)).toBeCloseTo(20 * Math.sqrt(0.6 / 1), 12);
+    // clampCycles count 60 Hz cycles at either system frequency: 30 cycles = 0.5 s.
+    expect(clampRatingAt(20, 30, 1, 50)).toBeCloseTo(20 * Math.sqrt(0.5 / 1), 12);
+  });
+
+  it('reads a rating in 60 Hz cycles on a 50 Hz system: converted by time, not cycle count (issue 11 item 11)', () => {
+    // 15 cycles at 50 Hz clearing = 0.3 s; a 20 kA / 15-cycle (0.25 s) clamp gives 20·√(0.25/0.3) = 18.26 kA [calc].
+    expect(clampRatingAt(20, 15, 15 / 50, 50)).toBeCloseTo(18.257, 3);
+    expect(clampRatingAt(20, 15, 15 / 50, 50)).toBeLessThan(20); // the old cycle-count reading gave 20 kA
   });
 
   it('credits a 30-cycle rating up to 15 cycles, as the grade table does (√2)', () => {

@@ -38,7 +38,8 @@ describe('npm run check', () => {
   it('exits 1 when the plan has a blocker, still printing the report', async () => {
     const { code, stdout } = await run(['--', 'p.json'], { 'p.json': fixture('climber-on-wood-pole.json') });
     expect(code).toBe(1);
-    expect(JSON.parse(stdout).findings.map((f: { rule: string }) => f.rule)).toEqual(['stand-not-conductive']);
+    const findings = JSON.parse(stdout).findings as { rule: string; severity: string }[];
+    expect(findings.filter((f) => f.severity === 'blocker').map((f) => f.rule)).toEqual(['stand-not-conductive']);
   });
 
   it('prints a readable table with --text', async () => {
@@ -48,6 +49,12 @@ describe('npm run check', () => {
       expect(stdout).toContain(part);
     }
     expect(stdout).toMatch(/W2\s+T1\s+\d/);
+  });
+
+  it('shows the injected current and a contact capped at the line-to-neutral voltage in --text', async () => {
+    const { stdout } = await run(['--text', 'p.json'], { 'p.json': fixture('rod-only-voltage-cap.json') });
+    expect(stdout).toContain('injected for contacts and rods (Df x If) 1.58 kA; contact voltages capped at 7200 V line-to-neutral');
+    expect(stdout).toMatch(/W2\s+T1\s+7199\.6 \(capped\)/);
   });
 
   it('shows help and exits 0', async () => {
@@ -97,7 +104,7 @@ describe.each([
   ['negative X/R', () => plan({ system: { xOverR: -1 } }), ['system.xOverR: must be 0 or more']],
   ['bad body weight', () => plan({ criteria: { bodyKg: 60 } }), ['criteria.bodyKg: must be 50 or 70']],
   ['nodes not a list', () => ({ ...plan(), nodes: {} }), ['nodes: must be a list']],
-  ['unknown node kind', () => withNode({ id: 'Q', kind: 'gizmo' }), [`nodes[${NODE}].kind: must be one of phase, neutral, shield-wire, structure, crossarm, hardware, cluster-bar, ground-rod, earth, bucket, truck, mat, pole-ground, worker`]],
+  ['unknown node kind', () => withNode({ id: 'Q', kind: 'gizmo' }), [`nodes[${NODE}].kind: must be one of phase, neutral, shield-wire, structure, crossarm, hardware, cluster-bar, ground-rod, earth, bucket, truck, mat, pole-ground, worker, supply-end`]],
   ['node that is not an object', () => withNode('A' as unknown as Record<string, unknown>), [`nodes[${NODE}]: must be an object`]],
   ['duplicate node id', () => withNode(node.phase('A')), [`nodes[${NODE}].id: duplicate id "A"`]],
   ['link id equal to a node id', () => withLink(link.bond('CB', 'A', 'B')), [`links[${LINK}].id: duplicate id "CB"`]],

@@ -19,11 +19,12 @@ function renameReport(report: CheckReport, back: (id: string) => string, text: (
     contacts: report.contacts.map((c) => ({ ...c, worker: back(c.worker), surface: back(c.surface), worstPhase: c.worstPhase ? back(c.worstPhase) : c.worstPhase })),
     jumpers: report.jumpers.map((j) => ({ ...j, link: back(j.link) })),
     rods: report.rods.map((r) => ({ ...r, node: back(r.node) })),
+    bonds: report.bonds?.map((b) => ({ ...b, link: back(b.link) })),
     assumptions: report.assumptions?.map((a) => ({ ...a, element: back(a.element) })),
   };
 }
 
-const TOPOLOGY_RULES = new Set(['stand-not-conductive', 'surface-outside-zone', 'phase-ungrounded', 'zone-ungrounded', 'pole-ground-relied', 'contact-unsolved', 'link-on-insulator', 'reach-insulating', 'no-worker']);
+const TOPOLOGY_RULES = new Set(['stand-not-conductive', 'surface-outside-zone', 'phase-ungrounded', 'zone-ungrounded', 'pole-ground-relied', 'contact-unsolved', 'link-on-insulator', 'reach-insulating', 'plan-incomplete']);
 const keyOf = (f: { rule: string; elements: string[] }) => `${f.rule}|${f.elements.join(',')}`;
 
 describe('checkPlan on random valid plans', () => {

@@ -24,16 +24,17 @@ describe('checkPlan report', () => {
   it('is ok with no blocker even when warnings and notes remain', () => {
     const report = checkPlan(makePlan({ nodes: bucketNodes(), links: bucketLinks().map((l) => (l.id === 'jA' ? { ...l, lengthM: 6, spanM: 1 } : l)) }));
     expect(report.ok).toBe(true);
-    expect(report.summary).toMatchObject({ blockers: 0, warnings: 1 });
+    // lead-slack and lead-whip (135 N/m at 0.9 m, above the 100 N/m threshold) on jA.
+    expect(report.summary).toMatchObject({ blockers: 0, warnings: 2 });
   });
 
-  it('computes the contract figures for the plan-format.md example system', () => {
+  it('computes the contract figures for the docs/plan-format.md example system', () => {
     const report = checkPlan(bucketPlan());
-    // plan-format.md: durationS = clearingCycles / frequencyHz = 15 / 60.
+    // docs/plan-format.md: durationS = clearingCycles / frequencyHz = 15 / 60.
     expect(report.fault.durationS).toBeCloseTo(0.25, 12);
-    // IEEE Std 80 (Dalziel, 50 kg): 0.116 / √0.25 = 0.232 A, engineering.md §2 table.
+    // IEEE Std 80 (Dalziel, 50 kg): 0.116 / √0.25 = 0.232 A, docs/engineering.md §2 table.
     expect(report.tolerableBodyAmps).toBeCloseTo(0.232, 4);
-    // engineering.md §3 [calc]: X/R 10, 0.25 s → Df 1.052; IEC 60909-0 κ(X/R 10) = 1.7460.
+    // docs/engineering.md §3 [calc]: X/R 10, 0.25 s → Df 1.052; IEC 60909-0 κ(X/R 10) = 1.7460.
     expect(report.fault.decrementFactor).toBeCloseTo(1.052, 3);
     expect(report.fault.peakFactor).toBeCloseTo(1.746, 3);
     expect(report.zones).toEqual([{ nodes: ['A', 'B', 'BK', 'C', 'CB', 'N'], grounded: true }]);
@@ -41,13 +42,14 @@ describe('checkPlan report', () => {
     expect(report.jumpers.map((j) => j.link)).toEqual(['jA', 'jB', 'jC', 'jN', 'jBK']);
   });
 
-  it('finds 0.490 A through a worker beyond the grounds (engineering.md §2 [calc], ±0.001 A)', () => {
+  it('finds 0.490 A through a worker beyond the grounds (docs/engineering.md §2 [calc], ±0.001 A)', () => {
     const plan = makePlan({
+      system: { xOverR: 0 }, // Df = 1: the worked example's symmetrical current is what is injected
       nodes: [node.phase('AG'), node.phase('AW'), node.cluster('CBG'), node.neutral('NW'), node.bucket(), node.worker('W1', 'BK')],
       links: [
         link.jumper('jAG', 'AG', 'CBG', { ohms: 0.001 }),
         link.bond('line', 'AG', 'AW', { ohms: 0.024 }),
-        link.bond('neutral', 'CBG', 'NW', { ohms: 0.024 }),
+        link.bond('neutral', 'CBG', 'NW', { ohms: 0.024, span: true }),
         link.bond('bBK', 'BK', 'NW', { ohms: 0 }),
         link.reach('rAW', 'W1', 'AW'),
       ],
@@ -58,6 +60,10 @@ describe('checkPlan report', () => {
     const finding = report.findings.find((f) => f.rule === 'body-current-exceeds');
     expect(finding?.message).toContain('0.490 A');
     expect(finding?.message).toContain('0.232 A');
+    // At X/R 10 the contact sees Df × If = 1.052 × 10 kA (IEEE Std 80 decrement factor, 15 cycles).
+    const asymmetric = checkPlan({ ...plan, system: { ...plan.system, xOverR: 10 } });
+    expect(asymmetric.contacts[0].bodyAmps).toBeCloseTo(0.49 * (asymmetric.fault.decrementFactor ?? NaN), 3);
+    expect(asymmetric.findings.find((f) => f.rule === 'body-current-exceeds')?.message).toContain('10.5 kA (decrement factor 1.052)');
   });
 
   it('sorts findings by severity, then rule id, then elements', () => {
@@ -74,6 +80,8 @@ describe('checkPlan report', () => {
       'blocker:surface-outside-zone:W1+H1',
       'blocker:surface-outside-zone:W1+H2',
       'warning:lead-slack:jC',
+      'warning:lead-whip:jC',
+      'note:lead-whip:CB+jA+jB+jC',
       'note:rod-barricade:R1',
     ]);
   });

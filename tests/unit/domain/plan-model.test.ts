@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { buildPlanModel, compareIds, isConductive, isGroundSource, isInsulating, isPoleGround } from '../../../src/lib/domain/plan-model';
+import { buildPlanModel, compareIds, isConductive, isGroundSource, isNonBonding, isPoleGround } from '../../../src/lib/domain/plan-model';
 import { makePlan, node } from '../../helpers/plan-factory';
 
 const kinds = makePlan({
@@ -25,7 +25,7 @@ const kinds = makePlan({
   ],
 }).nodes;
 
-// Expected character of each kind, from plan-format.md ("Wood and fiberglass are not bonding
+// Expected character of each kind, from docs/plan-format.md ("Wood and fiberglass are not bonding
 // paths", pole ground "conducts but is never relied on") and the brief's list of ground sources.
 describe.each([
   ['A', true, false, false],
@@ -34,7 +34,7 @@ describe.each([
   ['Pw', false, false, false],
   ['Pf', false, false, false],
   ['Ps', true, true, false],
-  ['Pc', true, true, false],
+  ['Pc', false, false, false],
   ['Xw', false, false, false],
   ['Xs', true, false, false],
   ['H', true, false, false],
@@ -54,7 +54,7 @@ describe.each([
     expect(isConductive(n)).toBe(conductive);
     expect(isGroundSource(n)).toBe(source);
     expect(isPoleGround(n)).toBe(poleGround);
-    expect(isInsulating(n)).toBe(['Pw', 'Pf', 'Xw'].includes(id));
+    expect(isNonBonding(n)).toBe(['Pw', 'Pf', 'Pc', 'Xw'].includes(id));
   });
 });
 

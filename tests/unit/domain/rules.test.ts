@@ -4,15 +4,15 @@
  */
 import { describe, expect, it } from 'vitest';
 import { checkPlan } from '../../../src/lib/domain/checker';
-import type { PlanDocument } from '../../../src/lib/schemas/plan';
 import { bucketLinks, bucketNodes, bucketPlan, link, makePlan, node, patchElement } from '../../helpers/plan-factory';
+import { describeRuleCases, type RuleCase } from '../../helpers/rule-cases';
 
 const climberNodes = () => [node.structure('P1', 'wood'), node.phase('A'), node.phase('B'), node.neutral(), node.cluster(), node.worker('W1', 'CB')];
 const climberLinks = () => [link.jumper('jA', 'A', 'CB'), link.jumper('jB', 'B', 'CB'), link.jumper('jN', 'CB', 'N'), link.reach('rA', 'W1', 'A'), link.reach('rB', 'W1', 'B')];
 const climber = (extra: { nodes?: Record<string, unknown>[]; links?: Record<string, unknown>[] } = {}) =>
   makePlan({ nodes: [...climberNodes(), ...(extra.nodes ?? [])], links: [...climberLinks(), ...(extra.links ?? [])] });
 
-/** One span beyond the grounds (engineering.md §2): the worker bridges line + neutral + jumper. */
+/** One span beyond the grounds (docs/engineering.md §2): the worker bridges line + neutral + jumper. */
 function farSide(lineOhms: number, neutralOhms: number, criteria: Record<string, unknown> = {}, system: Record<string, unknown> = {}) {
   return makePlan({
     criteria,
@@ -21,7 +21,7 @@ function farSide(lineOhms: number, neutralOhms: number, criteria: Record<string,
     links: [
       link.jumper('jAG', 'AG', 'CBG', { ohms: 0.001 }),
       link.bond('line', 'AG', 'AW', { ohms: lineOhms }),
-      link.bond('neutral', 'CBG', 'NW', { ohms: neutralOhms }),
+      link.bond('neutral', 'CBG', 'NW', { ohms: neutralOhms, span: true }),
       link.bond('bBK', 'BK', 'NW', { ohms: 0 }),
       link.reach('rAW', 'W1', 'AW'),
     ],
@@ -33,15 +33,7 @@ const patchedJumper = (patch: Record<string, unknown>, system: Record<string, un
   makePlan({ system, nodes: bucketNodes(), links: patchElement(bucketLinks(others), 'jA', patch) });
 const heavy = { cable: '4/0' };
 
-interface Case {
-  rule: string;
-  severity: 'blocker' | 'warning' | 'note';
-  fires: () => PlanDocument;
-  elements: string[][];
-  clean: () => PlanDocument;
-}
-
-const cases: Case[] = [
+const cases: RuleCase[] = [
   {
     rule: 'stand-not-conductive',
     severity: 'blocker',
@@ -82,7 +74,7 @@ const cases: Case[] = [
     elements: [['jA']],
     clean: () => patchedJumper({ clampKa: 30, clampCycles: 15 }, { faultKa: 20 }),
   },
-  // engineering.md §2 [calc]: 10 kA through 0.049 Ω bridged by 1000 Ω gives 0.490 A > 0.232 A; 0.0011 Ω gives 0.011 A.
+  // docs/engineering.md §2 [calc]: 10 kA through 0.049 Ω bridged by 1000 Ω gives 0.490 A > 0.232 A; 0.0011 Ω gives 0.011 A.
   { rule: 'body-current-exceeds', severity: 'blocker', fires: () => farSide(0.024, 0.024), elements: [['W1', 'AW']], clean: () => farSide(0.00005, 0.00005) },
   { rule: 'lead-slack', severity: 'warning', fires: () => patchedJumper({ lengthM: 6, spanM: 1.5 }), elements: [['jA']], clean: () => patchedJumper({ lengthM: 1.8, spanM: 1.5 }) },
   {
@@ -99,7 +91,7 @@ const cases: Case[] = [
     elements: [['N']],
     clean: () => bucketPlan(),
   },
-  { rule: 'no-worker', severity: 'note', fires: () => makePlan({ nodes: [node.phase('A')] }), elements: [[]], clean: () => bucketPlan() },
+  { rule: 'plan-incomplete', severity: 'blocker', fires: () => makePlan({ nodes: [node.phase('A')] }), elements: [[]], clean: () => bucketPlan() },
   {
     rule: 'link-on-insulator',
     severity: 'warning',
@@ -118,20 +110,7 @@ const cases: Case[] = [
   },
 ];
 
-describe.each(cases)('rule $rule', ({ rule, severity, fires, elements, clean }) => {
-  it(`fires as a ${severity} with exactly ${JSON.stringify(elements)}`, () => {
-    const found = checkPlan(fires()).findings.filter((f) => f.rule === rule);
-    expect(found.map((f) => f.elements)).toEqual(elements);
-    expect(found.map((f) => f.severity)).toEqual(elements.map(() => severity));
-    for (const f of found) {
-      expect(f.message).toMatch(/\.$/);
-      expect(f.basis.length).toBeGreaterThan(5);
-    }
-  });
-  it('stays quiet on the corrected plan', () => {
-    expect(checkPlan(clean()).findings.filter((f) => f.rule === rule)).toEqual([]);
-  });
-});
+describeRuleCases(cases);
 
 describe('rule details', () => {
   it('rod-barricade turns into a warning when the work position is inside the radius', () => {

@@ -62,12 +62,24 @@ describe('findZones', () => {
     expect(findZones(plan)[0]).toMatchObject({ grounded: true, groundedOnlyViaPoleGround: false, poleGroundDependent: [] });
   });
 
-  it('makes every earth node the same remote earth', () => {
+  it('makes every earth node the same remote earth, and joins nothing through a link to it', () => {
     const plan = makePlan({
       nodes: [node.earth('E1'), node.earth('E2'), node.mat('M1'), node.truck('T1')],
       links: [link.bond('b1', 'M1', 'E1'), link.bond('b2', 'T1', 'E2')],
     });
-    expect(summary(plan)).toEqual([{ nodes: ['E1', 'E2', 'M1', 'T1'], grounded: true, viaPoleGround: false }]);
+    expect(summary(plan)).toEqual([
+      { nodes: ['E1', 'E2'], grounded: true, viaPoleGround: false },
+      { nodes: ['M1'], grounded: false, viaPoleGround: false },
+      { nodes: ['T1'], grounded: false, viaPoleGround: false },
+    ]);
+  });
+
+  it('puts a truck in its bucket’s zone when the boom is not insulated', () => {
+    const bucket = (insulatedBoom: boolean) => ({ id: 'BK', kind: 'bucket', insulatedBoom });
+    const plan = (insulatedBoom: boolean) =>
+      makePlan({ nodes: [node.cluster('CB'), bucket(insulatedBoom), node.truck('T1')] as never[], links: [link.jumper('j1', 'BK', 'CB')] });
+    expect(findZones(plan(false)).map((z) => z.nodes)).toEqual([['BK', 'CB', 'T1']]);
+    expect(findZones(plan(true)).map((z) => z.nodes)).toEqual([['BK', 'CB'], ['T1']]);
   });
 
   it('sorts nodes within a zone and zones by their first node, by code unit', () => {

@@ -55,6 +55,7 @@ export const Glyph = memo(function Glyph({ kind, material, phase, size = 40 }: G
     case 'mat': body = (<><rect x="6" y="10" width="28" height="20" {...s} fill="white" /><path d="M6 20h28M15.3 10v20M24.6 10v20" {...s} strokeWidth={1.4} /></>); break;
     case 'bucket': body = <path d="M8 10h24l-3 22H11z M8 10h24" {...s} fill="white" />; break;
     case 'truck': body = (<><path d="M3 12h22v14H3zM25 17h7l5 5v4H25z" {...s} fill="white" /><circle cx="10" cy="30" r="3.5" {...s} fill="white" /><circle cx="30" cy="30" r="3.5" {...s} fill="white" /></>); break;
+    case 'supply-end': body = <path d="M4 20h24M20 12l8 8-8 8M32 8v24" {...s} strokeWidth={2.5} />; break;
     case 'worker': body = (<><circle cx="20" cy="8" r="4.5" {...s} fill="white" /><path d="M20 13v13M11 18l9-2 9 2M20 26l-6 10M20 26l6 10" {...s} /></>); break;
   }
   return (

@@ -9,7 +9,7 @@ import { KIND_LABELS, LINK_LABELS } from '../plan-ops';
 import { useEditor } from '../selectors';
 
 export const PALETTE_GROUPS: { name: string; kinds: NodeKind[] }[] = [
-  { name: 'Conductors', kinds: ['phase', 'neutral', 'shield-wire'] },
+  { name: 'Conductors', kinds: ['phase', 'neutral', 'shield-wire', 'supply-end'] },
   { name: 'Structure', kinds: ['structure', 'crossarm', 'hardware'] },
   { name: 'Grounding', kinds: ['cluster-bar', 'ground-rod', 'earth', 'pole-ground', 'mat'] },
   { name: 'People and equipment', kinds: ['worker', 'bucket', 'truck'] },

@@ -31,9 +31,9 @@ export const NODE_FIELDS: Record<NodeKind, FieldSpec[]> = {
   phase: [label, { key: 'phase', label: 'Phase', type: 'text', optional: true }],
   neutral: [label, groundOhms],
   'shield-wire': [label, groundOhms],
-  structure: [label, material, { ...groundOhms, label: 'Footing resistance', hint: 'Steel or concrete footings only.' }],
+  structure: [label, material, { ...groundOhms, label: 'Footing resistance', hint: 'Steel footings only; for concrete, enter it on the brought-out ground wire (hardware).' }],
   crossarm: [label, material],
-  hardware: [label],
+  hardware: [label, { ...groundOhms, hint: 'Only for a ground wire brought out of a concrete structure: its resistance to earth.' }],
   'cluster-bar': [label],
   'ground-rod': [
     label,
@@ -49,7 +49,8 @@ export const NODE_FIELDS: Record<NodeKind, FieldSpec[]> = {
   truck: [label, groundOhms],
   mat: [label],
   'pole-ground': [label],
-  worker: [label, { key: 'standsOn', label: 'Stands on', type: 'node', nodeFilter: (k) => k !== 'worker' }],
+  worker: [label, { key: 'standsOn', label: 'Stands on', type: 'node', nodeFilter: (k) => k !== 'worker' && k !== 'supply-end' }],
+  'supply-end': [label],
 };
 
 export const LINK_FIELDS: Record<LinkKind, FieldSpec[]> = {

@@ -7,7 +7,8 @@ import { solveInjections, type Injection } from './batch';
 import { tolerableBodyAmps } from './body';
 import type { ContactFigures, NetworkFigures } from './contract';
 import { computeFault } from './fault';
-import { jumperFigures, rodFigures, type WorstCurrents } from './figures';
+import { bondFigures, jumperFigures, rodFigures, type WorstCurrents } from './figures';
+import { isSpan } from '../plan-model';
 import { assembleAdmittance, buildNetwork, REFERENCE, type Network } from './network';
 import { factorSymmetric, type LdlFactor } from './sparse';
 
@@ -21,10 +22,12 @@ export function factorNetwork(network: Network): LdlFactor | null {
 
 /**
  * Solves a plan's network — IEEE Std 80's body-current model on a nodal solve: fault current
- * faultKa·1000 A symmetrical rms (Dalziel's limit is an rms limit) into each phase node in turn,
- * returning through remote earth; for each reach contact I_body = |V_open/(Z_th + R_body)|, A,
- * with Z_th from a unit current between the standing node and the surface. Parts with no path to
- * earth are reported as floating, never as numbers.
+ * Df·If (the effective asymmetrical rms over the shock duration, IEEE Std 80) into each phase node
+ * in turn, returning through remote earth; for each reach contact I_body = |V_open/(Z_th + R_body)|,
+ * A, with Z_th from a unit current between the standing node and the surface (for a reach to
+ * another worker, that worker's standing node, one body resistance: the conservative case). Where
+ * nominalKv is given, |V_open| is capped at the line-to-neutral voltage, which the source cannot
+ * exceed. Parts with no path to earth are reported as floating, never as numbers.
  */
 export function analyseNetwork(plan: PlanDocument): NetworkFigures {
   const network = buildNetwork(plan);
@@ -43,9 +46,10 @@ export function analyseNetwork(plan: PlanDocument): NetworkFigures {
     if (link.kind !== 'reach') continue;
     const worker = nodeById.get(link.from);
     const stand = worker?.kind === 'worker' ? network.indexOf.get(worker.standsOn) : undefined;
-    const surface = network.indexOf.get(link.to);
+    const target = nodeById.get(link.to);
+    const surface = network.indexOf.get(target?.kind === 'worker' ? target.standsOn : link.to);
     const floating = stand === undefined || surface === undefined;
-    const figures: ContactFigures = { worker: link.from, surface: link.to, touchVolts: 0, bodyAmps: 0, limitAmps, worstPhase: null, status: floating ? 'floating' : 'solved' };
+    const figures: ContactFigures = { worker: link.from, surface: link.to, touchVolts: 0, bodyAmps: 0, limitAmps, worstPhase: null, status: floating ? 'floating' : 'solved', systemVoltageLimited: false };
     contacts.push(figures);
     if (!floating) measured.push({ figures, stand, surface, loopOhms: bodyOhms });
   }
@@ -74,22 +78,30 @@ export function analyseNetwork(plan: PlanDocument): NetworkFigures {
   const contactBestV = new Float64Array(measured.length);
   const contactBestPhase = new Int32Array(measured.length).fill(-1);
   const { jumperFrom, jumperTo, jumperAdmittance, jumperA, rodNode, rodOhms, rodA, rodV } = worst;
+  const capVolts = fault.lineToNeutralVolts ?? Infinity;
+  const contactCapped = new Uint8Array(measured.length);
   if (factor) {
     const injections = phases.map((phase): Injection => ({ into: phase.index, outOf: REFERENCE }));
-    solveInjections(factor, injections, plan.system.faultKa * 1000, (k, column) => {
+    solveInjections(factor, injections, fault.injectedKa * 1000, (k, column) => {
       for (let c = 0; c < contactStand.length; c++) {
-        const touchVolts = column.magnitudeBetween(contactStand[c], contactSurface[c]);
+        const openVolts = column.magnitudeBetween(contactStand[c], contactSurface[c]);
+        const touchVolts = Math.min(openVolts, capVolts);
         const bodyAmps = touchVolts / contactLoop[c];
         if (bodyAmps > contactBestA[c]) {
           contactBestA[c] = bodyAmps;
           contactBestV[c] = touchVolts;
           contactBestPhase[c] = k;
+          contactCapped[c] = openVolts > capVolts ? 1 : 0;
         }
       }
       for (let j = 0; j < jumperFrom.length; j++) {
         if (jumperAdmittance[j] === 0) continue;
         const amps = column.magnitudeBetween(jumperFrom[j], jumperTo[j]) * jumperAdmittance[j];
         if (amps > jumperA[j]) jumperA[j] = amps;
+      }
+      for (let j = 0; j < worst.bondFrom.length; j++) {
+        const amps = column.magnitudeBetween(worst.bondFrom[j], worst.bondTo[j]) * worst.bondAdmittance[j];
+        if (amps > worst.bondA[j]) worst.bondA[j] = amps;
       }
       for (let r = 0; r < rodNode.length; r++) {
         const riseV = column.magnitudeBetween(rodNode[r], REFERENCE);
@@ -102,7 +114,7 @@ export function analyseNetwork(plan: PlanDocument): NetworkFigures {
   }
   measured.forEach((m, c) => {
     if (contactBestPhase[c] < 0) return;
-    Object.assign(m.figures, { touchVolts: contactBestV[c], bodyAmps: contactBestA[c], worstPhase: phases[contactBestPhase[c]].id });
+    Object.assign(m.figures, { touchVolts: contactBestV[c], bodyAmps: contactBestA[c], worstPhase: phases[contactBestPhase[c]].id, systemVoltageLimited: contactCapped[c] === 1 });
   });
 
   const assumptions = [...network.assumptions];
@@ -110,6 +122,7 @@ export function analyseNetwork(plan: PlanDocument): NetworkFigures {
     contacts,
     jumpers: jumperFigures(plan, network, fault, worst, assumptions),
     rods: rodFigures(plan, network, fault, bodyKg, worst),
+    bonds: bondFigures(worst),
     assumptions,
     unsolvedPhases,
   };
@@ -132,6 +145,12 @@ function emptyWorst(plan: PlanDocument, network: Network): WorstCurrents {
     jumperTo[j] = network.branchTo[b];
     jumperAdmittance[j] = 1 / Math.hypot(network.branchRe[b], network.branchIm[b]);
   });
+  // Bonds that are not spans (spans are line conductor, rated by the line): followed for bond rules.
+  const nodeById = new Map(plan.nodes.map((node) => [node.id, node]));
+  const bondLinks = plan.links.flatMap((link) =>
+    link.kind === 'bond' && branchOfLink.has(link.id) && !isSpan(link, nodeById.get(link.from), nodeById.get(link.to)) ? [link] : [],
+  );
+  const bondBranch = bondLinks.map((link) => branchOfLink.get(link.id) as number);
   const rodIds = [...network.rods.keys()];
   const rodBranch = rodIds.map((id) => network.rods.get(id)?.branch as number);
   return {
@@ -145,5 +164,10 @@ function emptyWorst(plan: PlanDocument, network: Network): WorstCurrents {
     rodOhms: Float64Array.from(rodBranch, (b) => network.branchRe[b]),
     rodA: new Float64Array(rodIds.length).fill(-1),
     rodV: new Float64Array(rodIds.length),
+    bonds: bondLinks.map((link) => ({ link: link.id, ohmsGiven: link.ohms !== undefined })),
+    bondFrom: Int32Array.from(bondBranch, (b) => network.branchFrom[b]),
+    bondTo: Int32Array.from(bondBranch, (b) => network.branchTo[b]),
+    bondAdmittance: Float64Array.from(bondBranch, (b) => 1 / Math.hypot(network.branchRe[b], network.branchIm[b])),
+    bondA: new Float64Array(bondLinks.length).fill(-1),
   };
 }

@@ -40,7 +40,7 @@ export function r20OhmPerM(cable: CableSize): number {
 
 /**
  * Radius to use in the inductance formula: half the stranded conductor's overall diameter
- * (NEC Table 8). This is what reproduces engineering.md §2 (r 6.71 mm for 4/0, 3.71 mm for #2);
+ * (NEC Table 8). This is what reproduces docs/engineering.md §2 (r 6.71 mm for 4/0, 3.71 mm for #2);
  * the radius of a solid rod of the same area (5.84 mm for 4/0) would give about 2 % more L.
  */
 export function conductorRadiusM(cable: CableSize): RadiusM {
@@ -62,6 +62,14 @@ export function straightWireInductanceH(lengthM: number, radius: RadiusM): numbe
  * it the voltage across a worker in parallel, the conservative direction.
  */
 export const CLAMP_CONTACT_OHMS = 50e-6;
+
+/**
+ * Resistance added to a jumper whose cable is stripped and put under an eye bolt or clamp without
+ * a compression ferrule (`connection: "bare-strands"`), Ω: 1 mΩ, twenty clamp contacts. Our own
+ * assumption (common practice holds that bare strands corrode, break and add resistance; no
+ * figure is published that we know of); erring high raises the voltage across a worker in parallel.
+ */
+export const BARE_STRANDS_OHMS = 1e-3;
 
 export interface SeriesImpedance {
   resistanceOhms: number;

@@ -15,6 +15,13 @@ export interface FaultFigures {
   peakKa: number;
   /** Force between adjacent phase leads at the first peak; null when the plan gives no phase spacing. */
   peakForceNPerM: number | null;
+  /**
+   * Current injected for contacts and rods, kA: Df × If, the effective asymmetrical rms over the
+   * shock duration that IEEE Std 80 compares with Dalziel's limit.
+   */
+  injectedKa: number;
+  /** Line-to-neutral voltage nominalKv/√3, V, that caps every contact's open-circuit voltage; null without nominalKv. */
+  lineToNeutralVolts: number | null;
 }
 
 /** One reach contact of one worker, worst case over the phase injections (report field `contacts`). */
@@ -31,6 +38,17 @@ export interface ContactFigures {
    * has no path to remote earth, so no figure can be trusted (rules turn this into a blocker).
    */
   status: 'solved' | 'floating';
+  /** True when the open-circuit voltage was capped at the line-to-neutral voltage (fault.lineToNeutralVolts). */
+  systemVoltageLimited: boolean;
+}
+
+/** A bond (not a span) the solve puts current through (report field `bonds`). */
+export interface BondFigures {
+  link: string;
+  /** Largest current the solve put through the bond, kA, worst phase. */
+  currentKa: number;
+  /** True when the plan gives the bond's resistance; otherwise BOND_DEFAULT_OHMS was used. */
+  ohmsGiven: boolean;
 }
 
 export interface JumperFigures {
@@ -76,6 +94,8 @@ export interface NetworkFigures {
   contacts: ContactFigures[];
   jumpers: JumperFigures[];
   rods: RodFigures[];
+  /** Bonds (not spans: those are line conductor) the solve put more than 1 A through, in plan order. */
+  bonds: BondFigures[];
   assumptions: Assumption[];
   /** Phase ids whose injection could not be solved because the phase has no path to earth. */
   unsolvedPhases: string[];

@@ -39,8 +39,17 @@ export function parallelForceNPerM(currentA: number, spacingM: number): number {
 }
 
 /**
- * Fault figures for the report (plan-format.md): symmetrical rms kA, duration s, Df (IEEE Std 80),
- * asymmetrical rms kA, κ (IEC 60909-0), first peak kA and the first-peak force N/m on phase leads.
+ * Line-to-neutral voltage, V, of a system of nominalKv (phase-to-phase, as the trade states a
+ * system's nominal voltage): V = 1000·kV/√3.
+ */
+export function lineToNeutralVolts(nominalKv: number): number {
+  return (nominalKv * 1000) / Math.sqrt(3);
+}
+
+/**
+ * Fault figures for the report (docs/plan-format.md): symmetrical rms kA, duration s, Df (IEEE Std 80),
+ * asymmetrical rms kA, κ (IEC 60909-0), first peak kA, the first-peak force N/m on phase leads, the
+ * current injected for contacts and rods (Df·If, IEEE Std 80) and the line-to-neutral voltage.
  */
 export function computeFault(system: PlanDocument['system']): FaultFigures {
   const durationS = faultDurationS(system.clearingCycles, system.frequencyHz);
@@ -55,5 +64,7 @@ export function computeFault(system: PlanDocument['system']): FaultFigures {
     peakFactor: kappa,
     peakKa,
     peakForceNPerM: system.phaseSpacingM === undefined ? null : parallelForceNPerM(toAmps(peakKa), system.phaseSpacingM),
+    injectedKa: df * system.faultKa,
+    lineToNeutralVolts: system.nominalKv === undefined ? null : lineToNeutralVolts(system.nominalKv),
   };
 }

@@ -2,9 +2,9 @@
  * Jumper and rod figures for the report, from the worst currents the phase solves found.
  */
 import type { PlanDocument } from '../../schemas/plan';
-import type { Assumption, FaultFigures, JumperFigures, RodFigures } from './contract';
+import type { Assumption, BondFigures, FaultFigures, JumperFigures, RodFigures } from './contract';
 import type { Network } from './network';
-import { cableRating, clampRatingAt, TABLE_SHORT_S } from './ratings';
+import { cableRating, clampRatingAt, RATING_TABLE_HZ, TABLE_SHORT_S } from './ratings';
 import { BARRICADE_METHOD, barricadeRadius } from './rods';
 
 /** Running worst cases over the phase injections; a current of −1 means no phase was solved. */
@@ -20,6 +20,17 @@ export interface WorstCurrents {
   rodOhms: Float64Array;
   rodA: Float64Array;
   rodV: Float64Array;
+  /** Per bond in the network (plan order): what it is, its ends, 1/|Z| in S and its worst current, A. */
+  bonds: Omit<BondFigures, 'currentKa'>[];
+  bondFrom: Int32Array;
+  bondTo: Int32Array;
+  bondAdmittance: Float64Array;
+  bondA: Float64Array;
+}
+
+/** Bonds the solve put current through (more than 1 A), with the worst current, kA. */
+export function bondFigures(worst: WorstCurrents): BondFigures[] {
+  return worst.bonds.flatMap((bond, j) => (worst.bondA[j] > 1 ? [{ ...bond, currentKa: worst.bondA[j] / 1000 }] : []));
 }
 
 /**
@@ -38,8 +49,9 @@ export function jumperFigures(plan: PlanDocument, network: Network, fault: Fault
     let clampRatingKa: number | null = null;
     if (link.clampKa !== undefined) {
       // A clamp rating without its duration is taken as for 15 cycles at 60 Hz (0.25 s), the
-      // shortest F855 withstand duration: I²t conversion then credits the least.
-      const clampCycles = link.clampCycles ?? TABLE_SHORT_S * frequencyHz;
+      // shortest F855 withstand duration: I²t conversion then credits the least. clampCycles are
+      // always cycles of 60 Hz, the rating table's own basis, whatever the system frequency.
+      const clampCycles = link.clampCycles ?? TABLE_SHORT_S * RATING_TABLE_HZ;
       if (link.clampCycles === undefined) {
         assumptions.push({ element: link.id, field: 'clampCycles', value: clampCycles, unit: 'cycles', basis: 'clamp rating taken as for 0.25 s, the shortest ASTM F855 withstand duration, which credits the least' });
       }
@@ -61,8 +73,8 @@ export function jumperFigures(plan: PlanDocument, network: Network, fault: Fault
 
 /**
  * Rod figures: resistance and method (rods.ts), the worst solved current and potential rise, and
- * the barricade radius. Without any solved fault the whole symmetrical fault current is taken
- * through the rod, the most it could carry.
+ * the barricade radius. Without any solved fault the whole injected fault current (Df·If) is
+ * taken through the rod, the most it could carry.
  */
 export function rodFigures(plan: PlanDocument, network: Network, fault: FaultFigures, bodyKg: 50 | 70, worst: WorstCurrents): RodFigures[] {
   const nodeById = new Map(plan.nodes.map((node) => [node.id, node]));
@@ -70,7 +82,7 @@ export function rodFigures(plan: PlanDocument, network: Network, fault: FaultFig
     const node = nodeById.get(id);
     const rod = network.rods.get(id);
     const solved = worst.rodA[r] >= 0;
-    const currentA = solved ? worst.rodA[r] : fault.symmetricalKa * 1000;
+    const currentA = solved ? worst.rodA[r] : fault.injectedKa * 1000;
     const barricade = barricadeRadius({
       soilOhmM: node?.kind === 'ground-rod' ? node.soilOhmM : 0,
       currentA,

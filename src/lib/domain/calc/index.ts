@@ -11,7 +11,7 @@ import { analyseNetwork } from './analyse';
 export type * from './contract';
 export { computeFault, decrementFactor, faultDurationS, parallelForceNPerM, peakFactor } from './fault';
 export { tolerableBodyAmps, dalzielK, stepTouchCriteria, surfaceLayerFactor, DALZIEL_MIN_S, DALZIEL_MAX_S } from './body';
-export { CABLES, CLAMP_CONTACT_OHMS, conductorRadiusM, jumperImpedance, r20OhmPerM, straightWireInductanceH } from './cable';
+export { BARE_STRANDS_OHMS, CABLES, CLAMP_CONTACT_OHMS, conductorRadiusM, jumperImpedance, r20OhmPerM, straightWireInductanceH } from './cable';
 export { cableRating, clampRatingAt, fusingKa, GRADES, gradeWithstandKa, onderdonkAmps } from './ratings';
 export { barricadeRadius, BARRICADE_METHOD, hemisphereVolts, rodGroupOhms, rodSurfaceVolts, singleRodOhms, twoRodsCloseOhms, twoRodsWideOhms } from './rods';
 export { analyseNetwork, DEFAULT_BODY_OHMS, factorNetwork } from './analyse';

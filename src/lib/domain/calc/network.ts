@@ -3,16 +3,19 @@
  * branches join them, and the admittance matrix to factorise. Remote earth is the reference.
  */
 import type { PlanDocument, PlanLink, PlanNode } from '../../schemas/plan';
-import { jumperImpedance } from './cable';
+import { boomPaths, isConductive } from '../plan-model';
+import { BARE_STRANDS_OHMS, jumperImpedance } from './cable';
 import type { Assumption } from './contract';
-import { rodGroupOhms, type RodResistance } from './rods';
+import { rodGroupOhms, rodInRange, type RodResistance } from './rods';
 import type { SymmetricEntries } from './sparse';
 import { radiusFromDiameterMm } from './units';
 
 /** Index standing for remote earth in branch ends: the reference, not an unknown. */
 export const REFERENCE = -1;
 
-/** Resistance of a `bond` without `ohms`, Ω (plan-format.md). */
+export { isConductive };
+
+/** Resistance of a `bond` without `ohms`, Ω (docs/plan-format.md); also a boom that is not insulated. */
 export const BOND_DEFAULT_OHMS = 1e-4;
 /**
  * Floor for a link given as 0 Ω, Ω. A 1 µΩ branch keeps the matrix finite and the current through
@@ -25,10 +28,9 @@ export const DEFAULT_GROUND_OHMS = {
   neutral: { value: 5, basis: 'assumed for a multigrounded neutral at the work location (common practice, no source)' },
   'shield-wire': { value: 10, basis: 'assumed for a shield wire grounded at adjacent structures (common practice, no source)' },
   steel: { value: 25, basis: 'assumed for a steel structure footing (common practice, no source)' },
-  concrete: { value: 50, basis: 'assumed for a concrete structure footing (common practice, no source)' },
 } as const;
 
-export type BranchKind = 'jumper' | 'bond' | 'ground';
+export type BranchKind = 'jumper' | 'bond' | 'ground' | 'boom';
 
 export interface Network {
   /** Number of unknown node voltages. */
@@ -48,16 +50,6 @@ export interface Network {
   /** Rod and rod-group resistances by node id. */
   rods: Map<string, RodResistance & { branch: number }>;
   assumptions: Assumption[];
-}
-
-/**
- * Whether a plan node conducts. Wood and fiberglass are not bonding paths (plan-format.md); a
- * worker is a body resistor between two nodes, never a node of the network.
- */
-export function isConductive(node: PlanNode): boolean {
-  if (node.kind === 'worker') return false;
-  if (node.kind === 'structure' || node.kind === 'crossarm') return node.material === 'steel' || node.material === 'concrete';
-  return true;
 }
 
 interface RawBranch {
@@ -85,17 +77,22 @@ function groundResistance(node: PlanNode, assumptions: Assumption[]): { ohms: nu
     case 'shield-wire':
       return node.groundOhms !== undefined ? { ohms: node.groundOhms } : assume(DEFAULT_GROUND_OHMS[node.kind].value, DEFAULT_GROUND_OHMS[node.kind].basis);
     case 'structure':
-      if (node.material !== 'steel' && node.material !== 'concrete') return null;
-      return node.groundOhms !== undefined ? { ohms: node.groundOhms } : assume(DEFAULT_GROUND_OHMS[node.material].value, DEFAULT_GROUND_OHMS[node.material].basis);
+      // Concrete is no bonding path (isConductive): its footing is a `hardware` node with groundOhms.
+      if (node.material !== 'steel') return null;
+      return node.groundOhms !== undefined ? { ohms: node.groundOhms } : assume(DEFAULT_GROUND_OHMS.steel.value, DEFAULT_GROUND_OHMS.steel.basis);
     case 'truck':
+    case 'hardware':
       return node.groundOhms !== undefined ? { ohms: node.groundOhms } : null;
     case 'ground-rod': {
+      // Outside the range of Dwight's formula the rod is refused (rod-out-of-range): no ground.
+      if (!rodInRange(node.lengthM, node.diameterMm)) return null;
       const rod = rodGroupOhms({
         soilOhmM: node.soilOhmM,
         lengthM: node.lengthM,
         radius: radiusFromDiameterMm(node.diameterMm),
         count: node.count ?? 1,
         spacingM: node.spacingM,
+        arrangement: node.arrangement,
       });
       return { ohms: rod.ohms, rod };
     }
@@ -104,18 +101,23 @@ function groundResistance(node: PlanNode, assumptions: Assumption[]): { ohms: nu
   }
 }
 
-/** Series impedance of a jumper or bond, Ω; a given `ohms` is exactly that pure resistance. */
+/**
+ * Series impedance of a jumper or bond, Ω; a given `ohms` is exactly that pure resistance. A
+ * jumper with bare strands under its clamps carries BARE_STRANDS_OHMS more (docs/engineering.md §4).
+ */
 export function linkImpedance(link: PlanLink, frequencyHz: number): { re: number; im: number } | null {
   if (link.kind === 'reach') return null;
   if (link.ohms !== undefined) return { re: Math.max(link.ohms, ZERO_OHMS_FLOOR), im: 0 };
   if (link.kind === 'bond') return { re: BOND_DEFAULT_OHMS, im: 0 };
   const z = jumperImpedance(link.cable, link.lengthM, frequencyHz);
-  return { re: z.resistanceOhms, im: z.reactanceOhms };
+  return { re: z.resistanceOhms + (link.connection === 'bare-strands' ? BARE_STRANDS_OHMS : 0), im: z.reactanceOhms };
 }
 
 /**
  * Builds the network of a plan: conductive nodes with a path to remote earth become unknowns
- * (`earth` nodes are the reference); jumpers, bonds and ground resistances become branches.
+ * (`earth` nodes are the reference); jumpers, bonds, booms that are not insulated and ground
+ * resistances become branches. A link to an `earth` node is refused (nothing can be clamped to
+ * remote earth) and left out.
  */
 export function buildNetwork(plan: PlanDocument): Network {
   const nodeById = new Map<string, PlanNode>(plan.nodes.map((node) => [node.id, node]));
@@ -133,13 +135,11 @@ export function buildNetwork(plan: PlanDocument): Network {
     const z = linkImpedance(link, plan.system.frequencyHz);
     const a = nodeById.get(link.from);
     const b = nodeById.get(link.to);
-    if (!z || !a || !b || !isConductive(a) || !isConductive(b)) continue;
-    const kind = link.kind as BranchKind;
-    raw.push({ from: link.from, to: b.kind === 'earth' ? null : link.to, re: z.re, im: z.im, element: link.id, kind });
+    if (!z || !a || !b || !isConductive(a) || !isConductive(b) || a.kind === 'earth' || b.kind === 'earth') continue;
+    raw.push({ from: link.from, to: link.to, re: z.re, im: z.im, element: link.id, kind: link.kind as BranchKind });
   }
-  // A branch from an earth node is a branch to the reference; normalise so `to` carries it.
-  for (const branch of raw) {
-    if (nodeById.get(branch.from)?.kind === 'earth') [branch.from, branch.to] = [branch.to ?? branch.from, null];
+  for (const boom of boomPaths(plan)) {
+    raw.push({ from: boom.bucket, to: boom.truck, re: BOND_DEFAULT_OHMS, im: 0, element: boom.bucket, kind: 'boom' });
   }
   const grounded = findGrounded(raw, nodeById);
 

@@ -10,7 +10,7 @@ export const COPPER_MELT_C = 1083;
 export const AMBIENT_C = 40;
 /**
  * Fraction of nominal area taken for fusing: 98 %, which reproduces the grade table's ultimate
- * column (20 of 21 cells) and engineering.md's worked example (#2, 0.25 s → 18,696 A).
+ * column (20 of 21 cells) and docs/engineering.md's worked example (#2, 0.25 s → 18,696 A).
  */
 export const FUSING_AREA_FRACTION = 0.98;
 
@@ -52,6 +52,12 @@ export const GRADES: Partial<Record<CableSize, GradeRow>> = {
   '350': { grade: 7, withstand15Ka: 74, withstand30Ka: 54, ultimate15Ka: 98, ultimate30Ka: 69, ultimate60Ka: 48 },
 };
 
+/**
+ * The frequency whose cycles the grade table and clamp ratings count, Hz: ratings are stated in
+ * 60 Hz cycles (15 cycles = 0.25 s), so a duration is converted by time, never by cycle count.
+ */
+export const RATING_TABLE_HZ = 60;
+
 /** The grade table's withstand durations, s (15 and 30 cycles at 60 Hz). */
 export const TABLE_SHORT_S = 0.25;
 export const TABLE_LONG_S = 0.5;
@@ -84,13 +90,14 @@ export function cableRating(
   frequencyHz: 50 | 60,
 ): { ratingKa: number; fusingKa: number; basis: string } {
   const fuseKa = fusingKa(cable, durationS);
-  const cycles = Math.round(durationS * frequencyHz * 10) / 10;
+  const cycles = Math.round(durationS * RATING_TABLE_HZ * 10) / 10;
+  void frequencyHz; // the table counts 60 Hz cycles: converted by time, never by cycle count
   const row = GRADES[cable];
   if (row) {
     return {
       ratingKa: Math.min(gradeWithstandKa(row, durationS), fuseKa),
       fusingKa: fuseKa,
-      basis: `ASTM F855 grade ${row.grade} withstand (secondhand copy, verify) converted by I²t to ${cycles} cycles, capped at Onderdonk fusing`,
+      basis: `ASTM F855 grade ${row.grade} withstand (secondhand copy, verify) converted by I²t to ${cycles} cycles of 60 Hz, capped at Onderdonk fusing`,
     };
   }
   const grade1 = GRADES['2'] as GradeRow;
@@ -98,17 +105,20 @@ export function cableRating(
   return {
     ratingKa: Math.min(gradeWithstandKa(grade1, durationS) * areaRatio, fuseKa),
     fusingKa: fuseKa,
-    basis: `no ASTM F855 grade for this size: grade 1 withstand scaled by area, ${cycles} cycles, capped at Onderdonk fusing`,
+    basis: `no ASTM F855 grade for this size: grade 1 withstand scaled by area, ${cycles} cycles of 60 Hz, capped at Onderdonk fusing`,
   };
 }
 
 /**
- * Clamp rating, kA, at durationS from its rating clampKa for clampCycles (cycles of frequencyHz),
- * by constant I²t: I_t = clampKa·√(t_clamp/t). A clearing faster than both the clamp's own
+ * Clamp rating, kA, at durationS from its rating clampKa for clampCycles, by constant I²t:
+ * I_t = clampKa·√(t_clamp/t). clampCycles are cycles of 60 Hz (RATING_TABLE_HZ), the basis the
+ * ratings are published on, at either system frequency: the system's frequency only sets how
+ * long its own clearing cycles last (durationS). A clearing faster than both the clamp's own
  * rating time and 15 cycles (0.25 s) earns no further credit, for the first-peak reason above.
  */
 export function clampRatingAt(clampKa: number, clampCycles: number, durationS: number, frequencyHz: 50 | 60): number {
-  const clampS = clampCycles / frequencyHz;
+  void frequencyHz; // kept in the signature (calc/contract.ts): durations arrive in seconds already
+  const clampS = clampCycles / RATING_TABLE_HZ;
   const effectiveS = Math.max(durationS, Math.min(clampS, TABLE_SHORT_S));
   return clampKa * Math.sqrt(clampS / effectiveS);
 }

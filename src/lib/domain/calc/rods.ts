@@ -36,13 +36,29 @@ export function twoRodsCloseOhms(soilOhmM: number, lengthM: number, radius: Radi
 
 /**
  * Multiplying factor F for N rods at one rod length apart, in a line or hollow square:
- * R_N = F·R1/N — IEEE Std 142 table [from memory].
+ * R_N = F·R1/N — IEEE Std 142 table [from memory]. Kept only as a cross-check in tests: groups
+ * are computed from their geometry (rodGroupOhms).
  */
 export const IEEE142_MULTIPLIERS: ReadonlyArray<readonly [count: number, factor: number]> = [
   [2, 1.16], [3, 1.29], [4, 1.36], [8, 1.68], [12, 1.8], [16, 1.92], [20, 2.0], [24, 2.16],
 ];
-/** 5 × 5 square array at one rod length apart: R = 2.8·R1/N — MIL-HDBK-419A. */
+/** 5 × 5 square array at one rod length apart: R = 2.8·R1/N — MIL-HDBK-419A; a cross-check in tests. */
 export const MIL419A_SQUARE_25_FACTOR = 2.8;
+
+/**
+ * Smallest ratio of driven length to radius for which Dwight's formula is used: L ≥ 20·a (ten
+ * diameters). Dwight's formula is derived for a long thin rod (L ≫ a); at L/a = 20 the log term
+ * ln(4L/a) = 4.4 still outweighs the constant 1 four to one. Our own limit, chosen to stay well
+ * inside the formula's assumption (docs/engineering.md §5); no published bound is known to us.
+ */
+export const ROD_MIN_LENGTH_TO_RADIUS = 20;
+
+/** True when Dwight's formula may be used for a rod of lengthM and diameterMm (L ≥ 20·a). */
+export function rodInRange(lengthM: number, diameterMm: number): boolean {
+  return lengthM / (diameterMm / 2000) >= ROD_MIN_LENGTH_TO_RADIUS;
+}
+
+export type RodArrangement = 'line' | 'ring' | 'grid';
 
 export interface RodGroup {
   soilOhmM: number;
@@ -51,6 +67,8 @@ export interface RodGroup {
   count: number;
   /** Centre-to-centre spacing, m; needed when count > 1. */
   spacingM?: number;
+  /** How the rods stand; absent: the most compact (highest-resistance) of the three. */
+  arrangement?: RodArrangement;
 }
 
 export interface RodResistance {
@@ -59,45 +77,81 @@ export interface RodResistance {
 }
 
 /**
- * Resistance of a rod or group of rods to remote earth, Ω, with the method named. Every fallback
- * errs high, because adding a rod at equal potential can only lower the group's resistance:
- * - two rods: Dwight's formulas; below s = L, never below the wide formula's value at s = L;
- * - three or more at s ≥ L: IEEE Std 142 multiplier of the largest tabulated count not above N,
- *   spacing taken as L (wider spacing only helps), never below MIL-HDBK-419A's 5 × 5 square
- *   (2.8·R1/25), which also serves for 25 rods and more;
- * - three or more at s < L: no better than two rods at that spacing.
+ * Mutual resistance of two rods of lengthM at distanceM, Ω — the mutual term of Dwight's two-rod
+ * formulas (IEEE Std 142 [from memory]): a two-rod group is (R1 + Rm)/2, so
+ * - d ≥ L: Rm = ρ/(2πd)(1 − L²/(3d²) + 2L⁴/(5d⁴));
+ * - d < L: Rm = ρ/(2πL)(ln(4L/d) − 1 + d/(2L) − d²/(16L²) + d⁴/(512L⁴)), never below the wide
+ *   formula's value at d = L (the two forms disagree near d = L; the higher mutual errs high).
+ * The distance is taken as at least minimumM (two rods cannot stand closer than touching).
+ */
+export function mutualRodOhms(soilOhmM: number, lengthM: number, distanceM: number, minimumM = 0): number {
+  const d = Math.max(distanceM, minimumM);
+  const wide = (x: number) => {
+    const q = (lengthM / x) ** 2;
+    return (soilOhmM / (2 * Math.PI * x)) * (1 - q / 3 + (2 * q * q) / 5);
+  };
+  if (d >= lengthM) return wide(d);
+  const u = d / lengthM;
+  return Math.max(wide(lengthM), (soilOhmM / (2 * Math.PI * lengthM)) * (Math.log(4 / u) - 1 + u / 2 - (u * u) / 16 + u ** 4 / 512));
+}
+
+/** Rod positions, m, for count rods spacingM apart: in a line, on a ring (regular polygon of side s) or a filled square grid. */
+export function rodPositions(count: number, spacingM: number, arrangement: RodArrangement): [number, number][] {
+  if (arrangement === 'line' || count <= 2) return Array.from({ length: count }, (_, i) => [i * spacingM, 0]);
+  if (arrangement === 'ring') {
+    const r = spacingM / (2 * Math.sin(Math.PI / count));
+    return Array.from({ length: count }, (_, i) => [r * Math.cos((2 * Math.PI * i) / count), r * Math.sin((2 * Math.PI * i) / count)]);
+  }
+  const side = Math.ceil(Math.sqrt(count));
+  return Array.from({ length: count }, (_, i) => [(i % side) * spacingM, Math.floor(i / side) * spacingM]);
+}
+
+/**
+ * Resistance of rods at equal potential, Ω, from the resistance matrix R (R_ii = R1 by Dwight,
+ * R_ij the mutual resistance at their distance): with V = R·I and one potential on all rods, the
+ * group's resistance is 1/(1ᵀR⁻¹1). Solved by Gaussian elimination (the matrix is small and
+ * symmetric positive definite for physical layouts).
+ */
+export function matrixGroupOhms(single: number, positions: [number, number][], mutual: (d: number) => number): number {
+  const n = positions.length;
+  const a = positions.map(([xi, yi], i) => positions.map(([xj, yj], j) => (i === j ? single : mutual(Math.hypot(xi - xj, yi - yj)))));
+  const b = new Array<number>(n).fill(1);
+  for (let k = 0; k < n; k++) {
+    for (let i = k + 1; i < n; i++) {
+      const f = a[i][k] / a[k][k];
+      for (let j = k; j < n; j++) a[i][j] -= f * a[k][j];
+      b[i] -= f * b[k];
+    }
+  }
+  const x = new Array<number>(n).fill(0);
+  for (let i = n - 1; i >= 0; i--) {
+    let sum = b[i];
+    for (let j = i + 1; j < n; j++) sum -= a[i][j] * x[j];
+    x[i] = sum / a[i][i];
+  }
+  return 1 / x.reduce((total, current) => total + current, 0);
+}
+
+export const GROUP_METHOD = 'mutual resistance of each pair at its distance (Dwight, IEEE Std 142), solved as a resistance matrix';
+
+/**
+ * Resistance of a rod or group of rods to remote earth, Ω, with the method named: one rod by
+ * Dwight; a group from its geometry (matrixGroupOhms). Without an arrangement the line, ring and
+ * grid are all computed and the highest taken, the layout being unknown.
  */
 export function rodGroupOhms(group: RodGroup): RodResistance {
   const single = singleRodOhms(group.soilOhmM, group.lengthM, group.radius);
   if (group.count <= 1 || group.spacingM === undefined) {
     return { ohms: single, method: 'single rod, Dwight (IEEE Std 142)' };
   }
-  const { soilOhmM, lengthM, radius, spacingM } = group;
-  const twoRods = (): number =>
-    spacingM >= lengthM
-      ? twoRodsWideOhms(soilOhmM, lengthM, radius, spacingM)
-      : Math.min(single, Math.max(twoRodsCloseOhms(soilOhmM, lengthM, radius, spacingM), twoRodsWideOhms(soilOhmM, lengthM, radius, lengthM)));
-  if (group.count === 2) {
-    return { ohms: twoRods(), method: `two rods, Dwight (IEEE Std 142), spacing ${spacingM >= lengthM ? '≥' : '<'} rod length` };
+  const { soilOhmM, lengthM, spacingM, count } = group;
+  const mutual = (d: number) => mutualRodOhms(soilOhmM, lengthM, d, 2 * group.radius);
+  const of = (arrangement: RodArrangement) => matrixGroupOhms(single, rodPositions(count, spacingM, arrangement), mutual);
+  if (group.arrangement) {
+    return { ohms: of(group.arrangement), method: `${count} rods in a ${group.arrangement}, ${GROUP_METHOD}` };
   }
-  if (spacingM < lengthM) {
-    return { ohms: twoRods(), method: `${group.count} rods closer than one rod length: credited as two rods, Dwight (IEEE Std 142)` };
-  }
-  // The multiplier table is for lines and hollow squares; a filled square is worse. The layout is
-  // not in the plan, so the credit never goes below MIL-HDBK-419A's 5 × 5 filled square.
-  const filledSquare = (MIL419A_SQUARE_25_FACTOR * single) / 25;
-  const [count, factor] = [...IEEE142_MULTIPLIERS].reverse().find(([n]) => n <= group.count) as readonly [number, number];
-  const tabulated = (factor * single) / count;
-  if (group.count >= 25 || filledSquare >= tabulated) {
-    return {
-      ohms: filledSquare,
-      method: `${group.count} rods: credited no better than a 5 × 5 square at one rod length, MIL-HDBK-419A (2.8·R1/25)`,
-    };
-  }
-  return {
-    ohms: tabulated,
-    method: `${group.count} rods: IEEE Std 142 multiplier F = ${factor} for ${count} rods at one rod length (R = F·R1/N)`,
-  };
+  const [worst, ohms] = (['line', 'ring', 'grid'] as const).map((a) => [a, of(a)] as const).reduce((x, y) => (y[1] > x[1] ? y : x));
+  return { ohms, method: `${count} rods, arrangement not given: the most compact layout (${worst}) taken, ${GROUP_METHOD}` };
 }
 
 /**

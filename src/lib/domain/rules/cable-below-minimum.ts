@@ -9,7 +9,7 @@ export const BELOW_MINIMUM_CABLES: ReadonlySet<string> = new Set(['4']);
 
 /**
  * Blocker for a jumper smaller than No. 2 AWG copper (OSHA 29 CFR 1910.269(n)(4)(ii), from memory
- * with high confidence; engineering.md §1). Elements: the jumper.
+ * with high confidence; docs/engineering.md §1). Elements: the jumper.
  */
 export function checkCableBelowMinimum(ctx: RuleContext): Finding[] {
   return ctx.model

@@ -15,7 +15,8 @@ export function checkContactUnsolved(ctx: RuleContext): Finding[] {
     if (contact.status !== 'floating') return [];
     const worker = model.node(contact.worker);
     const footing = worker?.kind === 'worker' ? model.node(worker.standsOn) : undefined;
-    const surface = model.node(contact.surface);
+    const target = model.node(contact.surface);
+    const surface = target?.kind === 'worker' ? model.node(target.standsOn) : target;
     if (!footing || !surface || !isConductive(footing) || !isConductive(surface)) return [];
     if (!zones.sameZone(footing.id, surface.id)) return [];
     const zoneIndex = zones.zoneIndexOf(footing.id);

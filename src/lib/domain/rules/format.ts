@@ -35,3 +35,18 @@ export function listOf(names: string[]): string {
   if (names.length <= 1) return names.join('');
   return `${names.slice(0, -1).join(', ')} and ${names[names.length - 1]}`;
 }
+
+/** Force per length in N/m, whole newtons: "463 N/m". */
+export const newtonsPerMetre = (value: number) => `${fixed(value, 0)} N/m`;
+
+/** Resistance in milliohms to two significant figures, for small added resistances: "1 mΩ". */
+export const milliohms = (valueOhms: number) => (Number.isFinite(valueOhms) ? `${Number((valueOhms * 1000).toPrecision(2))} mΩ` : 'an unknown resistance');
+
+/** A length that may be short: millimetres below 1 m ("20 mm"), else metres to one decimal. */
+export const shortLength = (valueM: number) => (Number.isFinite(valueM) && Math.abs(valueM) < 1 ? `${Number((valueM * 1000).toPrecision(3))} mm` : metres(valueM));
+
+/** A dimensionless factor to three decimals: "1.052". */
+export const factor = (value: number) => (Number.isFinite(value) ? value.toFixed(3) : 'an unknown factor');
+
+/** A diameter in millimetres as entered: "15.875 mm". */
+export const millimetres = (valueMm: number) => `${Number.isFinite(valueMm) ? Number(valueMm.toPrecision(4)) : 'an unknown'} mm`;

@@ -5,6 +5,18 @@
 import { compareIds } from '../plan-model';
 import { SEVERITIES } from '../report';
 import { checkBodyCurrentExceeds } from './body-current-exceeds';
+import { checkBondFaultCurrent } from './bond-fault-current';
+import { checkBondNotRated } from './bond-not-rated';
+import { checkBoomUninsulated } from './boom-uninsulated';
+import { checkClampLiveLine } from './clamp-live-line';
+import { checkConcreteGroundIgnored } from './concrete-ground-ignored';
+import { checkEarthLink } from './earth-link';
+import { checkLeadBareStrands } from './lead-bare-strands';
+import { checkLeadWhip } from './lead-whip';
+import { checkPlanIncomplete } from './plan-incomplete';
+import { checkRodOutOfRange } from './rod-out-of-range';
+import { checkSupplySideSinglePoint, checkSupplySideUngrounded } from './supply-side';
+import { checkWorkerNoReach } from './worker-no-reach';
 import { checkCableBelowMinimum } from './cable-below-minimum';
 import { checkCableUnderrated } from './cable-underrated';
 import { checkClampUnderrated } from './clamp-underrated';
@@ -14,7 +26,6 @@ import { checkDefaultAssumed } from './default-assumed';
 import { checkFigureInvalid } from './figure-invalid';
 import { checkLeadSlack } from './lead-slack';
 import { checkLinkOnInsulator } from './link-on-insulator';
-import { checkNoWorker } from './no-worker';
 import { checkPhaseUngrounded } from './phase-ungrounded';
 import { checkPoleGroundRelied } from './pole-ground-relied';
 import { checkReachInsulating } from './reach-insulating';
@@ -46,7 +57,6 @@ export const RULES: Readonly<Record<string, Rule>> = {
   'rod-barricade': checkRodBarricade,
   'default-assumed': checkDefaultAssumed,
   'contact-unsolved': checkContactUnsolved,
-  'no-worker': checkNoWorker,
   'link-on-insulator': checkLinkOnInsulator,
   'reach-insulating': checkReachInsulating,
   'clearing-outside-range': checkClearingOutsideRange,
@@ -56,7 +66,28 @@ export const RULES: Readonly<Record<string, Rule>> = {
   'set-test-overdue': checkSetTestOverdue,
   'set-differs': checkSetDiffers,
   'set-used-twice': checkSetUsedTwice,
+  'earth-link': checkEarthLink,
+  'bond-not-rated': checkBondNotRated,
+  'bond-fault-current': checkBondFaultCurrent,
+  'plan-incomplete': checkPlanIncomplete,
+  'worker-no-reach': checkWorkerNoReach,
+  'boom-uninsulated': checkBoomUninsulated,
+  'concrete-ground-ignored': checkConcreteGroundIgnored,
+  'rod-out-of-range': checkRodOutOfRange,
+  'lead-whip': checkLeadWhip,
+  'clamp-live-line': checkClampLiveLine,
+  'lead-bare-strands': checkLeadBareStrands,
+  'supply-side-ungrounded': checkSupplySideUngrounded,
+  'supply-side-single-point': checkSupplySideSinglePoint,
 };
+
+/**
+ * Every rule id a finding can carry: the registered rules and the checker's own `calc-failed`;
+ * docs/rules.md lists exactly these (tests/unit/domain/rules-doc.test.ts).
+ */
+export const RULE_IDS: readonly string[] = [...Object.keys(RULES), 'calc-failed'];
+/** Ids that earlier reports carried and the checker no longer emits; kept so stored reports still read. */
+export const RETIRED_RULE_IDS: readonly string[] = ['no-worker'];
 
 function compareElements(a: string[], b: string[]): number {
   for (let i = 0; i < Math.min(a.length, b.length); i += 1) {

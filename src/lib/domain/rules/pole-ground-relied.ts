@@ -7,7 +7,7 @@ export const POLE_GROUND_RELIED = 'pole-ground-relied';
 /**
  * Blocker for each zone whose phases, standing nodes or reached surfaces reach ground only through
  * a pole's existing ground wire, which may be broken, undersized or disconnected (common practice:
- * never rely on it; plan-format.md). Elements: the zone's pole-ground nodes.
+ * never rely on it; docs/plan-format.md). Elements: the zone's pole-ground nodes.
  */
 export function checkPoleGroundRelied(ctx: RuleContext): Finding[] {
   const { model } = ctx;

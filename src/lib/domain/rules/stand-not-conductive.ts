@@ -1,16 +1,17 @@
-import { capitalise, isInsulating } from '../plan-model';
+import { capitalise, isNonBonding } from '../plan-model';
 import type { Finding, RuleContext } from './types';
 
 export const STAND_NOT_CONDUCTIVE = 'stand-not-conductive';
 
 /**
- * Blocker when a worker stands on wood or fiberglass: that is no bonding path, so the worker's feet
- * are at no defined potential (OSHA 29 CFR 1910.269(n)(3); plan-format.md). Elements: worker, footing.
+ * Blocker when a worker stands on wood, fiberglass or concrete: that is no bonding path, so the
+ * worker's feet are at no defined potential (OSHA 29 CFR 1910.269(n)(3); docs/plan-format.md).
+ * Elements: worker, footing.
  */
 export function checkStandNotConductive(ctx: RuleContext): Finding[] {
   return ctx.model.nodesOf('worker').flatMap((worker) => {
     const footing = ctx.model.node(worker.standsOn);
-    if (!footing || !isInsulating(footing)) return [];
+    if (!footing || !isNonBonding(footing)) return [];
     const material = 'material' in footing ? footing.material : '';
     return [
       {

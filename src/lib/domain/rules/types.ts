@@ -27,7 +27,7 @@ export interface RuleContext {
 
 export type Rule = (ctx: RuleContext) => Finding[];
 
-/** The body weight the plan's criteria select (plan-format.md: default 50 kg). */
+/** The body weight the plan's criteria select (docs/plan-format.md: default 50 kg). */
 export function bodyKgOf(plan: PlanDocument): 50 | 70 {
   return plan.criteria?.bodyKg ?? 50;
 }
