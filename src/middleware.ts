@@ -8,10 +8,13 @@ import { readSession } from './lib/server/auth';
 import { AppError, isDbUnavailable } from './lib/server/errors';
 import { json } from './lib/server/http';
 import { startMailWorker } from './lib/server/mail';
+import { objectStoreSettings } from './lib/server/object-store';
 import { unavailablePage } from './lib/server/pages';
 
 // Each app process drains the mail outbox in the background (see src/lib/server/mail.ts).
 startMailWorker();
+// A half-set object store configuration stops the app here, naming the variable.
+objectStoreSettings();
 
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 const PUBLIC_PAGES = [/^\/login\/?$/, /^\/forgot-password\/?$/, /^\/set-password\/[^/]+\/?$/, /^\/favicon/, /^\/_astro\//, /^\/fonts\//];

@@ -1,6 +1,7 @@
 /** All Sequelize models and their associations; tables themselves come from db/migrations. */
 import type { Sequelize } from 'sequelize';
 import { initAuditEvent } from './audit-event';
+import { initFieldRecords } from './field-record';
 import { initLoginAttempt } from './login-attempt';
 import { initMail } from './mail';
 import { initOrganization } from './organization';
@@ -25,6 +26,7 @@ export function defineModels(sequelize: Sequelize) {
     PlanDecision: initPlanDecision(sequelize),
     PlanComment: initPlanComment(sequelize),
     ...initMail(sequelize),
+    ...initFieldRecords(sequelize),
   };
   const { User, Session, Plan, PlanRevision, Organization } = models;
   User.belongsTo(Organization, { foreignKey: 'organizationId', as: 'organization' });
@@ -37,6 +39,7 @@ export function defineModels(sequelize: Sequelize) {
 
 export type Models = ReturnType<typeof defineModels>;
 export type { AuditEvent } from './audit-event';
+export type { FieldRecord, FieldRecordEntry, FieldRecordPhoto } from './field-record';
 export type { Organization } from './organization';
 export type { Plan } from './plan';
 export type { PlanRevision } from './plan-revision';

@@ -3,7 +3,7 @@ import type { OutgoingMail } from './mail';
 
 const escapeHtml = (text: string) => text.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
 
-function compose(input: { to: string; subject: string; kind: string; organizationId: number | null; lines: string[]; link: { href: string; label: string } }): OutgoingMail {
+export function compose(input: { to: string; subject: string; kind: string; organizationId: number | null; lines: string[]; link: { href: string; label: string } }): OutgoingMail {
   const footer = 'Bondmap is a planning aid; it does not replace your employer\'s procedures, local codes or a qualified person.';
   const text = [...input.lines, '', `${input.link.label}: ${input.link.href}`, '', footer].join('\n');
   const html = `<!doctype html><html><body style="font-family:'Source Sans 3',system-ui,sans-serif;color:#1b2330;background:#f7f7f4;padding:16px">
