@@ -14,7 +14,7 @@ export class Client {
 
   constructor(readonly baseUrl = BASE_URL) {}
 
-  async request<T = any>(method: string, path: string, options: { json?: unknown; body?: string; headers?: Record<string, string> } = {}): Promise<ApiResponse<T>> {
+  async request<T = any>(method: string, path: string, options: { json?: unknown; body?: string | Uint8Array<ArrayBuffer>; headers?: Record<string, string> } = {}): Promise<ApiResponse<T>> {
     const headers: Record<string, string> = { ...options.headers };
     if (this.cookies.size) headers.cookie = [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ');
     let body = options.body;
@@ -52,6 +52,12 @@ export class Client {
   }
   patch<T = any>(path: string, json: unknown) {
     return this.request<T>('PATCH', path, { json });
+  }
+
+  /** A GET whose body is not JSON (photos, PDFs): the raw response, with this client's cookies. */
+  getRaw(path: string): Promise<Response> {
+    const cookie = [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ');
+    return fetch(this.baseUrl + path, { headers: cookie ? { cookie } : {} });
   }
 
   async signIn(email: string, password: string): Promise<this> {
