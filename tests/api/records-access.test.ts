@@ -21,7 +21,7 @@ async function photoUpload(c: Client, id: number) {
   const form = new FormData();
   form.set('photo', new Blob([new Uint8Array(png)], { type: 'image/png' }), 'p.png');
   const request = new Request('http://x/', { method: 'POST', body: form });
-  return c.request('POST', `/api/records/${id}/photos`, { body: new Uint8Array(await request.arrayBuffer()), headers: Object.fromEntries(request.headers.entries()) });
+  return c.request('POST', `/api/records/${id}/photos`, { body: new Uint8Array(await request.arrayBuffer()), headers: { ...Object.fromEntries(request.headers.entries()), origin: c.baseUrl } });
 }
 
 beforeAll(async () => {
