@@ -5,7 +5,7 @@
  * (record, clientId) key makes a repeated entry answer with the stored one.
  */
 import { Op, QueryTypes, Transaction, UniqueConstraintError, type WhereOptions } from 'sequelize';
-import type { EntryBody, FieldEntry, Flag, Refusal } from '../../src/lib/domain/field-record';
+import type { EntryBody, FieldEntry, Flag, Refusal, StoreVerdict } from '../../src/lib/domain/field-record';
 import type { RecordStatus } from '../../src/lib/schemas/field-record';
 import type { PlanDocument } from '../../src/lib/schemas/plan';
 import type { Db } from '../connection';
@@ -150,7 +150,7 @@ export async function getRecord(db: Db, organizationId: number, id: number): Pro
 }
 
 /** What the rules say about a write, given the entries so far; called inside the record lock. */
-export type Judge = (document: PlanDocument, entries: FieldEntry[], closed: boolean) => { ok: true; flags: Flag[]; setsOn: number } | { ok: false; refusal: Refusal };
+export type Judge = (document: PlanDocument, entries: FieldEntry[], closed: boolean) => StoreVerdict;
 
 export type AddEntryOutcome =
   | { kind: 'created' | 'repeat'; entry: StoredEntry }

@@ -12,6 +12,7 @@ import { decidePlan, submitPlan } from '../repositories/review';
 import { addComment } from '../repositories/revisions';
 import type { Role } from '../../src/lib/domain/roles';
 import { DEMO_PLANS, OTHER_ORG_PLAN, type DemoPlan } from './demo-plans';
+import { seedDemoRecords } from './demo-records';
 
 export const DEMO_PASSWORD = 'bondmap-demo';
 
@@ -80,5 +81,7 @@ export async function seedDemo(db: Db): Promise<{ people: number; plans: number 
   const plans =
     (await seedPlans(db, orgIds.demo, ids['lead@demo.test'], ids['reviewer@demo.test'], DEMO_PLANS)) +
     (await seedPlans(db, orgIds.other, ids['lead@other.test'], null, [OTHER_ORG_PLAN]));
+  const approved = await db.models.Plan.findOne({ where: { organizationId: orgIds.demo, status: 'approved' }, order: [['id', 'ASC']] });
+  if (approved) await seedDemoRecords(db, orgIds.demo, approved.id, ids['lead@demo.test'], ids['apprentice@demo.test']);
   return { people, plans };
 }

@@ -20,9 +20,9 @@ export function useBrowser() {
     await browser?.close();
   });
   return {
-    /** Signs a demo person in through the sign-in form and returns their page. */
-    async signIn(email: string): Promise<{ context: BrowserContext; page: Page }> {
-      const context = await browser.newContext({ viewport: { width: 1366, height: 900 }, acceptDownloads: true });
+    /** Signs a demo person in through the sign-in form (on a desktop unless a device is given) and returns their page. */
+    async signIn(email: string, device: { viewport: { width: number; height: number }; isMobile?: boolean; hasTouch?: boolean } = { viewport: { width: 1366, height: 900 } }): Promise<{ context: BrowserContext; page: Page }> {
+      const context = await browser.newContext({ ...device, acceptDownloads: true });
       contexts.push(context);
       const page = await context.newPage();
       await page.goto(`${BASE_URL}/login`);

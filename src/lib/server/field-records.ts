@@ -4,7 +4,7 @@
  */
 import { getDb } from '../../../db/connection';
 import { addEntry, approvingReviewer, closeRecord, createRecord, getRecord, type Judge, type RecordDetail, type StoredEntry } from '../../../db/repositories/field-records';
-import { applyEntry, freeTextSetStatus, judgeClose, judgeEntry, nextStep, recordPlanFrom, replay, type FieldEntry, type Refusal, type SetStatusLookup } from '../domain/field-record';
+import { freeTextSetStatus, judgeAppend, judgeCloseOut, nextStep, recordPlanFrom, replay, type FieldEntry, type Refusal, type SetStatusLookup } from '../domain/field-record';
 import type { Person } from '../domain/people';
 import type { EntryInput } from '../schemas/field-record';
 import { AppError } from './errors';
@@ -68,13 +68,7 @@ export async function recordEntry(person: Person, recordId: number, input: Entry
   await checkPeople(person, input);
   const sets = await setStatusLookupFor(person.organizationId);
   const entry = { ...input, actorId: person.id } as FieldEntry;
-  const judge: Judge = (document, entries, closed) => {
-    const plan = recordPlanFrom(document);
-    const before = replay(plan, entries.slice(0, -1), closed);
-    const verdict = judgeEntry(plan, before, entry, sets);
-    if (!verdict.ok) return verdict;
-    return { ok: true, flags: verdict.flags, setsOn: applyEntry(plan, before, entry, verdict.flags).on.length };
-  };
+  const judge: Judge = (document, entries, closed) => judgeAppend(document, entries, closed, sets);
   const outcome = await addEntry(db, person.organizationId, recordId, entry, judge);
   switch (outcome.kind) {
     case 'not-found':
@@ -99,11 +93,7 @@ export async function recordEntry(person: Person, recordId: number, input: Entry
 /** Closes out: refused (listing the sets still on) until every set that went on has come off. */
 export async function closeOut(person: Person, recordId: number, requestUrl?: URL): Promise<RecordDetail> {
   const db = getDb();
-  const judge: Judge = (document, entries, closed) => {
-    const verdict = judgeClose(replay(recordPlanFrom(document), entries, closed));
-    return verdict.ok ? { ok: true, flags: [], setsOn: 0 } : verdict;
-  };
-  const outcome = await closeRecord(db, person.organizationId, recordId, person.id, judge);
+  const outcome = await closeRecord(db, person.organizationId, recordId, person.id, judgeCloseOut);
   if (outcome.kind === 'not-found') throw new AppError('NOT_FOUND');
   if (outcome.kind === 'refused') throw refusalError(outcome.refusal);
   const record = (await getRecord(db, person.organizationId, recordId))!;

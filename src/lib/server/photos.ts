@@ -65,8 +65,20 @@ export async function readPhotoForm(ctx: APIContext): Promise<{ bytes: Buffer; c
 }
 
 
-/** Stores a photo and its two sizes, then its row; on any failure removes what it stored. */
-export async function storePhoto(person: Person, recordId: number, bytes: Buffer, caption: string): Promise<PhotoRow> {
+export interface PhotoObjects {
+  base: string;
+  keys: string[];
+  mime: string;
+  bytes: number;
+  width: number;
+  height: number;
+}
+
+/**
+ * Checks the content type, then stores the original and the two sizes under a random key below
+ * `records/<recordId>/`. Whatever was stored is removed again if a later step fails.
+ */
+export async function putPhotoObjects(recordId: number, bytes: Buffer, keepLocation: boolean): Promise<PhotoObjects> {
   const found = await fileTypeFromBuffer(bytes);
   if (!found || !TYPES[found.mime]) throw new AppError('PHOTO_TYPE', { extra: { found: found?.mime ?? null } });
   let meta: sharp.Metadata;
@@ -75,8 +87,6 @@ export async function storePhoto(person: Person, recordId: number, bytes: Buffer
   } catch {
     throw new AppError('PHOTO_UNREADABLE');
   }
-  const db = getDb();
-  const keepLocation = await keepsPhotoLocation(db, person.organizationId);
   const base = `records/${recordId}/${randomBytes(16).toString('hex')}`;
   const stored: string[] = [];
   const put = async (size: PhotoSize, body: Buffer, mime: string) => {
@@ -85,7 +95,8 @@ export async function storePhoto(person: Person, recordId: number, bytes: Buffer
   };
   try {
     // The original first: as sent when location may be kept, else re-encoded without metadata.
-    const original = keepLocation ? bytes : await sharp(bytes).rotate().toFormat(TYPES[found.mime] === 'jpg' ? 'jpeg' : (TYPES[found.mime] as 'png' | 'webp'), { quality: 95 }).toBuffer();
+    const format = TYPES[found.mime] === 'jpg' ? 'jpeg' : (TYPES[found.mime] as 'png' | 'webp');
+    const original = keepLocation ? bytes : await sharp(bytes).rotate().toFormat(format, { quality: 95 }).toBuffer();
     await put('original', original, found.mime);
     for (const size of ['display', 'thumb'] as const) {
       const edge = PHOTO_SIZES[size];
@@ -93,23 +104,35 @@ export async function storePhoto(person: Person, recordId: number, bytes: Buffer
       await put(size, derived, 'image/jpeg');
     }
     const rotated = (meta.orientation ?? 1) >= 5;
-    const outcome = await addPhoto(db, person.organizationId, recordId, {
-      objectKey: base,
-      mime: found.mime,
-      bytes: original.length,
-      width: (rotated ? meta.height : meta.width) ?? 0,
-      height: (rotated ? meta.width : meta.height) ?? 0,
-      caption,
-      createdBy: person.id,
-    });
+    return { base, keys: stored, mime: found.mime, bytes: original.length, width: (rotated ? meta.height : meta.width) ?? 0, height: (rotated ? meta.width : meta.height) ?? 0 };
+  } catch (error) {
+    await removeObjects(stored);
+    throw storeError(error);
+  }
+}
+
+async function removeObjects(keys: string[]): Promise<void> {
+  await deleteObjects(keys).catch((e) => console.error('[bondmap] could not remove a half-stored photo', keys, e));
+}
+
+function storeError(error: unknown): unknown {
+  if (error instanceof AppError) return error;
+  if (error instanceof ObjectStoreUnavailable || isStoreDown(error)) return new AppError('PHOTO_STORE_DOWN');
+  if (isImageError(error)) return new AppError('PHOTO_UNREADABLE');
+  return error;
+}
+
+/** Stores a photo and its two sizes, then its row; if the row cannot be added, the objects go. */
+export async function storePhoto(person: Person, recordId: number, bytes: Buffer, caption: string): Promise<PhotoRow> {
+  const db = getDb();
+  const objects = await putPhotoObjects(recordId, bytes, await keepsPhotoLocation(db, person.organizationId));
+  try {
+    const outcome = await addPhoto(db, person.organizationId, recordId, { objectKey: objects.base, mime: objects.mime, bytes: objects.bytes, width: objects.width, height: objects.height, caption, createdBy: person.id });
     if (outcome.kind === 'not-found') throw new AppError('NOT_FOUND');
     if (outcome.kind === 'closed') throw new AppError('RECORD_CLOSED');
     return outcome.photo;
   } catch (error) {
-    await deleteObjects(stored).catch((e) => console.error('[bondmap] could not remove a half-stored photo', stored, e));
-    if (error instanceof AppError) throw error;
-    if (error instanceof ObjectStoreUnavailable || isStoreDown(error)) throw new AppError('PHOTO_STORE_DOWN');
-    if (isImageError(error)) throw new AppError('PHOTO_UNREADABLE');
+    await removeObjects(objects.keys);
     throw error;
   }
 }

@@ -3,3 +3,4 @@ export * from './types';
 export * from './refusals';
 export * from './set-status';
 export * from './rules';
+export * from './judges';
