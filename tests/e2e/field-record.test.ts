@@ -55,7 +55,7 @@ describe('the field record on a phone', () => {
     expect(on).toBe(5);
 
     const jpeg = await sharp({ create: { width: 800, height: 600, channels: 3, background: '#7a8f99' } }).jpeg().toBuffer();
-    await page.getByText('Photo', { exact: true }).click();
+    await page.getByText('Add a photo', { exact: true }).click();
     await page.getByLabel('Photo', { exact: true }).setInputFiles({ name: 'sets-on.jpg', mimeType: 'image/jpeg', buffer: jpeg });
     await page.getByLabel('Caption').fill('Every set on');
     await page.getByRole('button', { name: 'Upload photo' }).click();

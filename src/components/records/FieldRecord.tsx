@@ -76,7 +76,7 @@ export default function FieldRecord({ initial, people, me, canWrite }: FieldReco
 
       {open && (
         <details className="rounded-xl border-2 border-line bg-white p-4" data-testid="photo-panel">
-          <summary className="min-h-[56px] cursor-pointer text-lg font-semibold leading-[56px]">Photo</summary>
+          <summary className="min-h-[56px] cursor-pointer text-lg font-semibold leading-[56px]">Add a photo</summary>
           <label className="block text-lg">Photo<input type="file" accept="image/jpeg,image/png,image/webp" capture="environment" className="mt-1 block min-h-[56px] w-full" onChange={(e) => setFile(e.target.files?.[0] ?? null)} /></label>
           <label className="block text-lg">Caption<input className="mt-1 min-h-[56px] w-full rounded-lg border-2 border-line px-3" value={caption} onChange={(e) => setCaption(e.target.value)} /></label>
           <button type="button" className={`${PRIMARY} mt-3`} disabled={busy || !file} onClick={() => file && void act(() => uploadPhoto(record.id, file, caption)).then((ok) => ok && (setFile(null), setCaption('')))}>Upload photo</button>
