@@ -15,7 +15,7 @@ import { addEntry, addPhoto, closeRecord, createRecord } from '../repositories/f
 function scene(hue: number, leads: number): string {
   const wires = [90, 200, 310].map((x) => `<line x1="${x}" y1="150" x2="${x}" y2="${215}" stroke="#2d2d2d" stroke-width="5"/>`).join('');
   const jumpers = [90, 200, 310].slice(0, leads).map((x) => `<path d="M${x} 215 Q ${(x + 200) / 2} 300 200 330" fill="none" stroke="#3a3a3a" stroke-width="6"/>`).join('');
-  return `<svg xmlns="http://www.w3.org/2000/svg" width="800" height="600" viewBox="0 0 400 600">
+  return `<svg xmlns="http://www.w3.org/2000/svg" width="600" height="900" viewBox="0 0 400 600">
     <defs><linearGradient id="sky" x1="0" y1="0" x2="0" y2="1"><stop offset="0" stop-color="hsl(${hue},55%,72%)"/><stop offset="1" stop-color="hsl(${hue},40%,90%)"/></linearGradient></defs>
     <rect width="400" height="600" fill="url(#sky)"/>
     <rect y="520" width="400" height="80" fill="#6b7d4a"/>

@@ -80,3 +80,28 @@ describe('the field record on a phone', () => {
     for (const part of ['Pole 14 on Wren Hollow Road', 'Invented detector 7', 'ON jA with set LV-jA', 'OFF jA', 'Photos', 'Every set on', 'Closed by Casimir Abernethy', 'approved detector']) expect(flat).toContain(part);
   });
 });
+
+describe('the demo records', () => {
+  it('lists the open demo record with sets on first and shows its drawing on a tablet; the closed one has a drawn photo', async () => {
+    const { page } = await browser.signIn('reviewer@demo.test', { viewport: { width: 820, height: 1180 }, hasTouch: true });
+    const list = (await (await page.request.get(`${BASE_URL}/api/records?pageSize=100`)).json()).items as { id: number; status: string; setsOn: number; clearanceRef: string }[];
+    const demoOpen = list.find((r) => r.clearanceRef === 'HOLD-DEMO-0123')!;
+    const demoClosed = list.find((r) => r.clearanceRef === 'HOLD-DEMO-0117')!;
+    expect(demoOpen).toMatchObject({ status: 'open', setsOn: 3 });
+    expect(demoClosed).toMatchObject({ status: 'closed', setsOn: 0 });
+    const rank = (r: { status: string; setsOn: number }) => (r.status === 'open' ? (r.setsOn > 0 ? 0 : 1) : 2);
+    expect(list.map(rank)).toEqual(list.map(rank).sort());
+    await page.goto(`${BASE_URL}/records`);
+    await expect.poll(() => page.getByTestId('record-table').locator('tbody tr').first().textContent()).toContain('Pole 14');
+    await page.goto(`${BASE_URL}/records/${demoOpen.id}`);
+    await expect.poll(() => page.getByTestId('count-on').textContent()).toBe('3');
+    await expect.poll(() => page.getByTestId('field-drawing').getAttribute('data-on')).toBe('jN,jA,jB');
+    await expect.poll(() => page.getByTestId('field-drawing').locator('[data-testid^="link-"]').count()).toBeGreaterThan(4);
+    await page.screenshot({ path: 'artifacts/test-results/field-record-tablet.png', fullPage: true });
+    const closed = (await (await page.request.get(`${BASE_URL}/api/records/${demoClosed.id}`)).json()).record;
+    expect(closed.photos).toHaveLength(1);
+    const thumb = await page.request.get(`${BASE_URL}${closed.photos[0].url}?size=thumb`);
+    expect(thumb.headers()['content-type']).toBe('image/jpeg');
+    expect(closed.entries.flatMap((e: { flags: { code: string }[] }) => e.flags.map((f) => f.code))).toContain('removed-out-of-order');
+  });
+});
