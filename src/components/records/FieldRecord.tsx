@@ -60,9 +60,10 @@ export default function FieldRecord({ initial, people, me, canWrite }: FieldReco
 
       {canWrite || record.status === 'closed' ? <StepPanel record={record} people={people} me={me} busy={busy} submit={submit} onClose={onClose} /> : <p className="text-note">Read only: your role may view this record.</p>}
 
-      {open && record.setsOn.length > 0 && record.next.kind !== 'install' && (
+      {/* A crew must always be able to take grounds off, whatever the next expected step is. */}
+      {open && record.setsOn.some((s) => !('link' in record.next) || s.link !== record.next.link) && (
         <section className="space-y-2" aria-label="Other sets on">
-          <h2 className="text-lg font-semibold">Take off another set</h2>
+          <h2 className="text-lg font-semibold">Take off a set</h2>
           {record.setsOn.filter((s) => !('link' in record.next) || s.link !== record.next.link).map((s) => (
             <button key={s.link} type="button" className={SECONDARY} disabled={busy} onClick={() => submit({ type: 'remove', link: s.link })}>Set off {s.link} ({s.setTag})</button>
           ))}
