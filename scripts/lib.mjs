@@ -117,35 +117,31 @@ export function portOpen(port) {
   });
 }
 
-const catcherPidFile = (profile) => join(ROOT, '.data', profile, 'mail-catcher.pid');
+const helperPidFile = (profile, name) => join(ROOT, '.data', profile, `${name}.pid`);
 
-/** Starts (or reuses) the local SMTP catcher for a profile; resolves once it accepts connections. */
-export async function startMailCatcher({ profile, port, env }) {
-  const { openSync, readFileSync: read, writeFileSync, mkdirSync } = await import('node:fs');
-  const pidFile = catcherPidFile(profile);
-  if (existsSync(pidFile) && pidAlive(Number(read(pidFile, 'utf8'))) && (await portOpen(port))) return;
+/** Starts a detached helper process with a pid file and a log under .data/<profile>/. */
+async function spawnHelper({ profile, name, args, env }) {
+  const { openSync, writeFileSync, mkdirSync } = await import('node:fs');
   mkdirSync(join(ROOT, '.data', profile), { recursive: true });
-  const out = openSync(join(ROOT, '.data', profile, 'mail-catcher.log'), 'a');
-  const child = spawn(process.execPath, ['--import', 'tsx', join(ROOT, 'scripts', 'mail-catcher.ts')], {
-    cwd: ROOT,
-    env: { ...process.env, ...env, BONDMAP_SMTP_PORT: String(port) },
-    detached: true,
-    stdio: ['ignore', out, out],
-  });
+  const out = openSync(join(ROOT, '.data', profile, `${name}.log`), 'a');
+  const child = spawn(process.execPath, args, { cwd: ROOT, env: { ...process.env, ...env }, detached: true, stdio: ['ignore', out, out] });
   child.unref();
-  writeFileSync(pidFile, String(child.pid));
-  const deadline = Date.now() + 30_000;
-  while (Date.now() < deadline) {
-    if (await portOpen(port)) return;
-    await new Promise((r) => setTimeout(r, 150));
-  }
-  throw new Error(`the local mail catcher did not start on port ${port}; see .data/${profile}/mail-catcher.log`);
+  writeFileSync(helperPidFile(profile, name), String(child.pid));
 }
 
-/** Stops the catcher this project started for the profile, by its pid file. */
-export async function stopMailCatcher(profile) {
+async function waitFor(check, what) {
+  const deadline = Date.now() + 30_000;
+  while (Date.now() < deadline) {
+    if (await check()) return;
+    await new Promise((r) => setTimeout(r, 150));
+  }
+  throw new Error(what);
+}
+
+/** Stops a helper this project started, by its pid file; false when none of ours was running. */
+async function stopHelper(profile, name) {
   const { readFileSync: read, rmSync } = await import('node:fs');
-  const pidFile = catcherPidFile(profile);
+  const pidFile = helperPidFile(profile, name);
   if (!existsSync(pidFile)) return false;
   const pid = Number(read(pidFile, 'utf8'));
   rmSync(pidFile, { force: true });
@@ -155,6 +151,74 @@ export async function stopMailCatcher(profile) {
   while (pidAlive(pid) && Date.now() < deadline) await new Promise((r) => setTimeout(r, 100));
   if (pidAlive(pid)) process.kill(pid, 'SIGKILL');
   return true;
+}
+
+/** Starts (or reuses) the local SMTP catcher for a profile; resolves once it accepts connections. */
+export async function startMailCatcher({ profile, port, env }) {
+  if (pidFileAlive(helperPidFile(profile, 'mail-catcher')) && (await portOpen(port))) return;
+  await spawnHelper({ profile, name: 'mail-catcher', args: ['--import', 'tsx', join(ROOT, 'scripts', 'mail-catcher.ts')], env: { ...env, BONDMAP_SMTP_PORT: String(port) } });
+  await waitFor(() => portOpen(port), `the local mail catcher did not start on port ${port}; see .data/${profile}/mail-catcher.log`);
+}
+
+/** Stops the catcher this project started for the profile, by its pid file. */
+export function stopMailCatcher(profile) {
+  return stopHelper(profile, 'mail-catcher');
+}
+
+const FAKE_KEYS = { BONDMAP_S3_ACCESS_KEY_ID: 'S3RVER', BONDMAP_S3_SECRET_ACCESS_KEY: 'S3RVER', BONDMAP_S3_REGION: 'us-east-1' };
+
+/**
+ * True when the store on the port lists the handshake bucket named from our token. Plain
+ * node:http, not fetch: fetch refuses some ports outright (5061, for one).
+ */
+async function objectStoreAnswers(port, token) {
+  const { get } = await import('node:http');
+  return new Promise((done) => {
+    const request = get({ host: '127.0.0.1', port, path: '/', timeout: 2000 }, (response) => {
+      let body = '';
+      response.setEncoding('utf8');
+      response.on('data', (chunk) => (body += chunk));
+      response.on('end', () => done(response.statusCode === 200 && body.includes(`<Name>bondmap-handshake-${token}</Name>`)));
+    });
+    request.on('timeout', () => request.destroy());
+    request.on('error', () => done(false));
+  });
+}
+
+/**
+ * Starts (or reuses) the local S3-compatible store (s3rver) for a profile and returns the app's
+ * settings for it. A process on the port that does not answer our handshake is refused.
+ */
+export async function startObjectStore({ profile, port, bucket = 'bondmap-photos', fresh = false }) {
+  const { readFileSync: read, writeFileSync, rmSync, mkdirSync } = await import('node:fs');
+  const { randomBytes } = await import('node:crypto');
+  const env = { ...FAKE_KEYS, BONDMAP_S3_ENDPOINT: `http://127.0.0.1:${port}`, BONDMAP_S3_BUCKET: bucket };
+  const tokenFile = join(ROOT, '.data', profile, 'object-store.token');
+  const running = pidFileAlive(helperPidFile(profile, 'object-store'));
+  if (running && existsSync(tokenFile) && (await objectStoreAnswers(port, read(tokenFile, 'utf8').trim()))) {
+    if (!fresh) return env;
+    await stopHelper(profile, 'object-store');
+  } else if (running) {
+    await stopHelper(profile, 'object-store');
+  }
+  if (await portOpen(port)) throw new Error(`port ${port} is taken by something that is not this project's object store; stop it or set another port`);
+  const directory = join(ROOT, '.data', profile, 'objects');
+  if (fresh) rmSync(directory, { recursive: true, force: true });
+  mkdirSync(directory, { recursive: true });
+  const token = randomBytes(8).toString('hex');
+  writeFileSync(tokenFile, token);
+  await spawnHelper({
+    profile,
+    name: 'object-store',
+    args: [join(ROOT, 'scripts', 'object-store-fake.mjs')],
+    env: { BONDMAP_S3_FAKE_PORT: String(port), BONDMAP_S3_FAKE_DIR: directory, BONDMAP_S3_BUCKET: bucket, BONDMAP_S3_FAKE_TOKEN: token },
+  });
+  await waitFor(() => objectStoreAnswers(port, token), `the local object store did not start on port ${port}; see .data/${profile}/object-store.log`);
+  return env;
+}
+
+export function stopObjectStore(profile) {
+  return stopHelper(profile, 'object-store');
 }
 
 /** True when the pid file names a live process (a stale file after a reboot does not count). */

@@ -5,10 +5,11 @@
 import { spawn } from 'node:child_process';
 import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
-import { ensureBuild, ensureDebianPackages, ensureDependencies, pidFileAlive, ROOT, run, say, startMailCatcher, startServer, stopMailCatcher } from './lib.mjs';
+import { ensureBuild, ensureDebianPackages, ensureDependencies, pidFileAlive, ROOT, run, say, startMailCatcher, startObjectStore, startServer, stopMailCatcher, stopObjectStore } from './lib.mjs';
 
 const port = Number(process.env.BONDMAP_TEST_PORT ?? 4391);
 const smtpPort = Number(process.env.BONDMAP_TEST_SMTP_PORT ?? 2526);
+const s3Port = Number(process.env.BONDMAP_TEST_S3_PORT ?? 4569);
 const results = join(ROOT, 'artifacts', 'test-results');
 let server = null;
 let startedDb = false;
@@ -52,8 +53,10 @@ async function main() {
 
   startedDb = !pidFileAlive(join(ROOT, '.data', 'test', 'mariadbd.pid'));
   const envFile = join(ROOT, '.data', 'test-app-env.json');
+  // The project's own object store, emptied, before the seed (the demo stores drawn photos in it).
+  const s3Env = await startObjectStore({ profile: 'test', port: s3Port, fresh: true });
   // A fresh schema every run, with the invented demo seeded (the browser tests sign in as its people).
-  run('npx', ['tsx', 'db/cli.ts', 'reset', '--profile', 'test', '--env-out', envFile]);
+  run('npx', ['tsx', 'db/cli.ts', 'reset', '--profile', 'test', '--env-out', envFile], { env: s3Env });
   const dbEnv = JSON.parse(readFileSync(envFile, 'utf8'));
 
   // Static checks first: the domain fence and the types (astro check covers .astro and .ts alike).
@@ -67,8 +70,8 @@ async function main() {
   ensureBuild();
   await startMailCatcher({ profile: 'test', port: smtpPort, env: dbEnv });
   const mailEnv = { BONDMAP_SMTP_URL: `smtp://127.0.0.1:${smtpPort}`, BONDMAP_MAIL_CATCHER: '1', BONDMAP_MAIL_POLL_MS: '300' };
-  ({ child: server } = await startServer({ port, env: { ...dbEnv, ...mailEnv, BONDMAP_PUBLIC_URL: `http://127.0.0.1:${port}` }, stdio: ['ignore', 'ignore', 'inherit'] }));
-  const serverEnv = { ...dbEnv, BONDMAP_TEST_URL: `http://127.0.0.1:${port}`, BONDMAP_TEST_PROFILE: 'test', BONDMAP_TEST_SMTP_PORT: String(smtpPort) };
+  ({ child: server } = await startServer({ port, env: { ...dbEnv, ...mailEnv, ...s3Env, BONDMAP_PUBLIC_URL: `http://127.0.0.1:${port}` }, stdio: ['ignore', 'ignore', 'inherit'] }));
+  const serverEnv = { ...dbEnv, ...s3Env, BONDMAP_TEST_URL: `http://127.0.0.1:${port}`, BONDMAP_TEST_PROFILE: 'test', BONDMAP_TEST_SMTP_PORT: String(smtpPort) };
   const apiCode = await vitest(['api', 'e2e'], serverEnv, join(results, 'server.json'));
 
   const { passed, failed, skipped } = tally([join(results, 'unit.json'), join(results, 'server.json')]);
@@ -79,6 +82,7 @@ async function main() {
 async function cleanUp() {
   if (server && server.exitCode === null) server.kill('SIGTERM');
   await stopMailCatcher('test').catch((error) => say(`could not stop the mail catcher: ${error.message}`));
+  await stopObjectStore('test').catch((error) => say(`could not stop the object store: ${error.message}`));
   if (startedDb) {
     try {
       run('npx', ['tsx', 'db/cli.ts', 'stop', '--profile', 'test']);

@@ -9,12 +9,15 @@ import { AppError, isDbUnavailable } from './lib/server/errors';
 import { json } from './lib/server/http';
 import { startMailWorker } from './lib/server/mail';
 import { startDueSetsMailJob } from './lib/server/due-sets-mail';
+import { objectStoreSettings } from './lib/server/object-store';
 import { unavailablePage } from './lib/server/pages';
 
 // Each app process drains the mail outbox in the background (see src/lib/server/mail.ts).
 startMailWorker();
 // And runs the daily due-sets message; a claim row per organisation per day keeps it to one (due-sets-mail.ts).
 startDueSetsMailJob();
+// A half-set object store configuration stops the app here, naming the variable.
+objectStoreSettings();
 
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 const PUBLIC_PAGES = [/^\/login\/?$/, /^\/forgot-password\/?$/, /^\/set-password\/[^/]+\/?$/, /^\/favicon/, /^\/_astro\//, /^\/fonts\//];

@@ -2,6 +2,7 @@
 import type { Sequelize } from 'sequelize';
 import { initAuditEvent } from './audit-event';
 import { initEquipment } from './equipment';
+import { initFieldRecords } from './field-record';
 import { initLoginAttempt } from './login-attempt';
 import { initMail } from './mail';
 import { initOrganization } from './organization';
@@ -29,6 +30,7 @@ export function defineModels(sequelize: Sequelize) {
     ...initMail(sequelize),
     ...initPractice(sequelize),
     ...initEquipment(sequelize),
+    ...initFieldRecords(sequelize),
   };
   const { User, Session, Plan, PlanRevision, Organization } = models;
   User.belongsTo(Organization, { foreignKey: 'organizationId', as: 'organization' });
@@ -41,6 +43,7 @@ export function defineModels(sequelize: Sequelize) {
 
 export type Models = ReturnType<typeof defineModels>;
 export type { AuditEvent } from './audit-event';
+export type { FieldRecord, FieldRecordEntry, FieldRecordPhoto } from './field-record';
 export type { Organization } from './organization';
 export type { Plan } from './plan';
 export type { PlanRevision } from './plan-revision';

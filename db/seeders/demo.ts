@@ -14,6 +14,7 @@ import type { Role } from '../../src/lib/domain/roles';
 import { DEMO_PLANS, OTHER_ORG_PLAN, type DemoPlan } from './demo-plans';
 import { seedPractice } from './demo-practice';
 import { seedDemoEquipment } from './demo-equipment';
+import { seedDemoRecords } from './demo-records';
 
 export const DEMO_PASSWORD = 'bondmap-demo';
 
@@ -84,5 +85,7 @@ export async function seedDemo(db: Db): Promise<{ people: number; plans: number 
     (await seedPlans(db, orgIds.other, ids['lead@other.test'], null, [OTHER_ORG_PLAN])) +
     (await seedPractice(db, orgIds.demo, { lead: ids['lead@demo.test'], reviewer: ids['reviewer@demo.test'], apprentice: ids['apprentice@demo.test'] }));
   await seedDemoEquipment(db, orgIds.demo, ids['admin@demo.test'], ids['lead@demo.test']);
+  const approved = await db.models.Plan.findOne({ where: { organizationId: orgIds.demo, status: 'approved' }, order: [['id', 'ASC']] });
+  if (approved) await seedDemoRecords(db, orgIds.demo, approved.id, ids['lead@demo.test'], ids['apprentice@demo.test']);
   return { people, plans };
 }

@@ -14,7 +14,7 @@ export class Client {
 
   constructor(readonly baseUrl = BASE_URL) {}
 
-  async request<T = any>(method: string, path: string, options: { json?: unknown; body?: string; headers?: Record<string, string> } = {}): Promise<ApiResponse<T>> {
+  async request<T = any>(method: string, path: string, options: { json?: unknown; body?: string | Uint8Array<ArrayBuffer>; headers?: Record<string, string> } = {}): Promise<ApiResponse<T>> {
     const headers: Record<string, string> = { ...options.headers };
     if (this.cookies.size) headers.cookie = [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ');
     let body = options.body;
@@ -57,6 +57,12 @@ export class Client {
   /** Posts an HTML form (urlencoded) from the app's own origin, as a browser on its page would. */
   form<T = any>(path: string, fields: Record<string, string>) {
     return this.request<T>('POST', path, { body: new URLSearchParams(fields).toString(), headers: { origin: new URL(this.baseUrl).origin, 'content-type': 'application/x-www-form-urlencoded' } });
+  }
+
+  /** A GET whose body is not JSON (photos, PDFs): the raw response, with this client's cookies. */
+  getRaw(path: string): Promise<Response> {
+    const cookie = [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ');
+    return fetch(this.baseUrl + path, { headers: cookie ? { cookie } : {} });
   }
 
   async signIn(email: string, password: string): Promise<this> {

@@ -2,6 +2,7 @@
  * The one catalogue of errors the app answers with. Codes are permanent (clients and tests key on
  * them); each message says what happened, why, and what to do.
  */
+import { REFUSALS } from '../domain/field-record/refusals';
 export const ERRORS = {
   AUTH_REQUIRED: { status: 401, message: 'You are not signed in. Sign in and try again.' },
   AUTH_INVALID: { status: 401, message: 'That e-mail and password do not match an active account. Check both and try again.' },
@@ -27,6 +28,24 @@ export const ERRORS = {
   RELATED_REVIEWER: { status: 403, message: 'You were invited by (or through) the author or an editor of this plan, or share a mailbox with one, so someone else must approve it.' },
   SET_TAG_TAKEN: { status: 409, message: 'The organisation already has a grounding set with this tag; nothing was saved. Use another tag, or edit that set.' },
   SET_NEEDS_TEST: { status: 409, message: 'This set is out of service until it passes an in-service test; record a passing test to put it back in service.' },
+  // Field records: the rules' refusals keep the domain's codes and words (src/lib/domain/field-record).
+  RECORD_PLAN_NOT_APPROVED: { status: 409, message: 'A field record can only be opened on an approved plan. Get this plan approved first.' },
+  RECORD_CLOSED: { status: 409, message: REFUSALS.RECORD_CLOSED },
+  VOLTAGE_TEST_REQUIRED: { status: 409, message: REFUSALS.VOLTAGE_TEST_REQUIRED },
+  VOLTAGE_PRESENT: { status: 409, message: REFUSALS.VOLTAGE_PRESENT },
+  LINK_NOT_IN_PLAN: { status: 409, message: REFUSALS.LINK_NOT_IN_PLAN },
+  SET_ALREADY_ON: { status: 409, message: REFUSALS.SET_ALREADY_ON },
+  SET_TAG_IN_USE: { status: 409, message: REFUSALS.SET_TAG_IN_USE },
+  SET_NOT_USABLE: { status: 409, message: REFUSALS.SET_NOT_USABLE },
+  SET_NOT_ON: { status: 409, message: REFUSALS.SET_NOT_ON },
+  PHASE_NOT_IN_PLAN: { status: 409, message: REFUSALS.PHASE_NOT_IN_PLAN },
+  NOT_SIGNED_ON: { status: 409, message: REFUSALS.NOT_SIGNED_ON },
+  SETS_STILL_ON: { status: 409, message: REFUSALS.SETS_STILL_ON },
+  CLIENT_ID_REUSED: { status: 409, message: 'This clientId was already used for a different entry; nothing was recorded. Make a new UUID for each entry.' },
+  PHOTO_TYPE: { status: 415, message: 'That file is not a JPEG, PNG or WebP photo (judged by its content, not its name); nothing was stored.' },
+  PHOTO_TOO_LARGE: { status: 413, message: 'That photo is larger than 15 MB; nothing was stored. Send a smaller one.' },
+  PHOTO_UNREADABLE: { status: 400, message: 'That photo could not be read as an image; nothing was stored.' },
+  PHOTO_STORE_DOWN: { status: 503, message: 'The photo store cannot be reached just now; nothing was stored. Try again in a moment.' },
   DB_DOWN: { status: 503, message: 'The database cannot be reached just now; nothing was changed. Try again in a moment.' },
   INTERNAL: { status: 500, message: 'Something went wrong on our side; nothing was changed. Try again, and tell your admin if it keeps happening.' },
   EXERCISE_NO_GAP: { status: 409, message: 'The modified plan has no blocker the approved one lacks, so there is nothing to find: an exercise must have a gap. Remove or change another link.' },

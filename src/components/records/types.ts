@@ -1,0 +1,36 @@
+/** The record as GET /api/records/:id answers it (the parts the field screen reads). */
+import type { BriefingItem, Flag, NextStep, RecordPlan, SetOn, FieldEntry } from '../../lib/domain/field-record';
+import type { PlanDocument } from '../../lib/schemas/plan';
+
+export type EntryView = FieldEntry & { id: number; actorName: string; flags: Flag[]; recordedAt: string };
+
+export interface RecordView {
+  id: number;
+  planId: number;
+  planTitle: string;
+  revision: number;
+  status: 'open' | 'closed';
+  workDate: string;
+  structure: string;
+  location: string;
+  clearanceRef: string;
+  detector: string;
+  lead: { id: string; name: string };
+  closedAt: string | null;
+  closedBy: { id: string; name: string } | null;
+  counts: { on: number; installed: number; removed: number };
+  setsOn: SetOn[];
+  voltageFound: boolean;
+  testPassed: boolean;
+  briefing: Partial<Record<BriefingItem, { by: string; at: string }>>;
+  next: NextStep;
+  plan: RecordPlan;
+  document: PlanDocument;
+  entries: EntryView[];
+  photos: { id: number; caption: string; width: number; height: number; url: string }[];
+}
+
+export interface CrewPerson {
+  id: string;
+  name: string;
+}

@@ -1,0 +1,183 @@
+/**
+ * The field record's rules, pure: given the approved plan and the entries so far (in the order
+ * they were recorded), what the record says now, whether a new entry is allowed and why not,
+ * and which step comes next. No server code, no clock: the same module will run on the device.
+ */
+import type { PlanDocument } from '../../schemas/plan';
+import { refuse, type Refusal } from './refusals';
+import type { SetStatusLookup } from './set-status';
+import { BRIEFING_ITEMS, type BriefingItem, type EntryBody, type FieldEntry, type Flag, type RecordPlan } from './types';
+
+/** The phases and jumpers of a plan document, as the record uses them. */
+export function recordPlanFrom(doc: PlanDocument): RecordPlan {
+  const phases = doc.nodes.filter((n) => n.kind === 'phase').map((n) => ('phase' in n && typeof n.phase === 'string' && n.phase ? n.phase : n.id));
+  const labels = new Map(doc.nodes.map((n) => [n.id, n.label ?? n.id]));
+  const jumpers = doc.links.filter((l) => l.kind === 'jumper').map((l) => ({ id: l.id, label: `${labels.get(l.from) ?? l.from} – ${labels.get(l.to) ?? l.to}` }));
+  return { phases: [...new Set(phases)], jumpers };
+}
+
+export interface SetOn {
+  link: string;
+  setTag: string;
+  at: string;
+  by: string;
+}
+
+export interface RecordState {
+  closed: boolean;
+  people: string[];
+  visitors: string[];
+  briefing: Partial<Record<BriefingItem, { by: string; at: string }>>;
+  /** Whether the latest test passed for every phase, and whether any test ever found voltage. */
+  testPassed: boolean;
+  voltageFound: boolean;
+  /** Sets on now, in the order they went on. */
+  on: SetOn[];
+  /** How many sets went on in all, and how many came off. */
+  installed: number;
+  removed: number;
+  /** Flags raised by each entry, by its position in the list. */
+  flags: Flag[][];
+}
+
+function emptyState(closed: boolean): RecordState {
+  return { closed, people: [], visitors: [], briefing: {}, testPassed: false, voltageFound: false, on: [], installed: 0, removed: 0, flags: [] };
+}
+
+/** Whether a voltage test passes: every plan phase absent, detector proved before and after. */
+export function testMissing(plan: RecordPlan, body: Extract<EntryBody, { type: 'voltage-test' }>): string[] {
+  return plan.phases.filter((p) => body.phases[p] !== 'absent');
+}
+
+function testPasses(plan: RecordPlan, body: Extract<EntryBody, { type: 'voltage-test' }>): boolean {
+  return body.detectorCheckedBefore && body.detectorCheckedAfter && testMissing(plan, body).length === 0 && !Object.values(body.phases).includes('present');
+}
+
+/** The flags an allowed entry raises against the state before it. */
+function flagsFor(state: RecordState, entry: EntryBody): Flag[] {
+  const flags: Flag[] = [];
+  if (entry.type === 'remove') {
+    const last = state.on[state.on.length - 1];
+    if (last && last.link !== entry.link) {
+      flags.push({ code: 'removed-out-of-order', message: `Taken off out of order: ${last.link} went on last and was expected off first.` });
+    }
+  }
+  if (entry.type === 'install' && BRIEFING_ITEMS.some((item) => !state.briefing[item])) {
+    flags.push({ code: 'installed-before-briefing', message: 'Put on before every briefing item was ticked.' });
+  }
+  return flags;
+}
+
+export type Verdict = { ok: true; flags: Flag[] } | { ok: false; refusal: Refusal };
+
+/** May this entry be recorded now? Refusals carry a stable code; allowed entries may carry flags. */
+export function judgeEntry(plan: RecordPlan, state: RecordState, entry: EntryBody, sets: SetStatusLookup): Verdict {
+  const no = (refusal: Refusal): Verdict => ({ ok: false, refusal });
+  if (state.closed) return no(refuse('RECORD_CLOSED'));
+  switch (entry.type) {
+    case 'briefing': {
+      const signedOn = state.people.includes(entry.by) || state.visitors.includes(entry.by);
+      if (!signedOn) return no(refuse('NOT_SIGNED_ON'));
+      break;
+    }
+    case 'voltage-test': {
+      const unknown = Object.keys(entry.phases).filter((p) => !plan.phases.includes(p));
+      if (unknown.length) return no(refuse('PHASE_NOT_IN_PLAN', unknown));
+      break;
+    }
+    case 'install': {
+      if (!plan.jumpers.some((j) => j.id === entry.link)) return no(refuse('LINK_NOT_IN_PLAN', [entry.link]));
+      if (state.voltageFound) return no(refuse('VOLTAGE_PRESENT'));
+      if (!state.testPassed) return no(refuse('VOLTAGE_TEST_REQUIRED'));
+      if (state.on.some((s) => s.link === entry.link)) return no(refuse('SET_ALREADY_ON', [entry.link]));
+      const elsewhere = state.on.find((s) => s.setTag.toLowerCase() === entry.setTag.toLowerCase());
+      if (elsewhere) return no(refuse('SET_TAG_IN_USE', [elsewhere.link]));
+      const status = sets.statusOf(entry.setTag);
+      if (!status.usable) return no({ ...refuse('SET_NOT_USABLE', [entry.setTag]), ...(status.detail ? { message: `${refuse('SET_NOT_USABLE').message} (${status.detail})` } : {}) });
+      break;
+    }
+    case 'remove':
+      // Never refused for order: a crew must always be able to take grounds off.
+      if (!state.on.some((s) => s.link === entry.link)) return no(refuse('SET_NOT_ON', [entry.link]));
+      break;
+    default:
+      break;
+  }
+  return { ok: true, flags: flagsFor(state, entry) };
+}
+
+/** Applies one allowed entry to the state (a new state; the old one is left alone). */
+export function applyEntry(plan: RecordPlan, state: RecordState, entry: FieldEntry, flags: Flag[]): RecordState {
+  const next: RecordState = { ...state, briefing: { ...state.briefing }, on: [...state.on], flags: [...state.flags, flags] };
+  switch (entry.type) {
+    case 'sign-on':
+      next.people = [...new Set([...state.people, ...entry.people])];
+      next.visitors = [...new Set([...state.visitors, ...entry.visitors])];
+      break;
+    case 'briefing':
+      next.briefing[entry.item] = { by: entry.by, at: entry.at };
+      break;
+    case 'voltage-test':
+      next.testPassed = testPasses(plan, entry);
+      next.voltageFound = state.voltageFound || Object.values(entry.phases).includes('present');
+      break;
+    case 'install':
+      next.on.push({ link: entry.link, setTag: entry.setTag, at: entry.at, by: entry.actorId });
+      next.installed += 1;
+      break;
+    case 'remove':
+      next.on = next.on.filter((s) => s.link !== entry.link);
+      next.removed += 1;
+      break;
+    default:
+      break;
+  }
+  return next;
+}
+
+/** The state after the recorded entries, each judged as it was recorded (flags recomputed). */
+export function replay(plan: RecordPlan, entries: readonly FieldEntry[], closed = false): RecordState {
+  let state = emptyState(false);
+  for (const entry of entries) {
+    state = applyEntry(plan, state, entry, flagsFor(state, entry));
+  }
+  return { ...state, closed };
+}
+
+/** Close-out is allowed only when every set that went on has come off. */
+export function judgeClose(state: RecordState): { ok: true } | { ok: false; refusal: Refusal } {
+  if (state.closed) return { ok: false, refusal: refuse('RECORD_CLOSED') };
+  if (state.on.length) return { ok: false, refusal: refuse('SETS_STILL_ON', state.on.map((s) => s.link)) };
+  return { ok: true };
+}
+
+export type NextStep =
+  | { kind: 'sign-on' }
+  | { kind: 'briefing'; item: BriefingItem }
+  | { kind: 'voltage-test' }
+  | { kind: 'install'; link: string }
+  | { kind: 'remove'; link: string }
+  | { kind: 'close' }
+  | { kind: 'stop' }
+  | { kind: 'closed' };
+
+/**
+ * The step the crew is expected to take next: sign on, the briefing in order, the test, the sets
+ * in plan order, then off in reverse order, then close-out. After voltage is found: stop (or take
+ * off anything already on).
+ */
+export function nextStep(plan: RecordPlan, state: RecordState): NextStep {
+  if (state.closed) return { kind: 'closed' };
+  const last = state.on[state.on.length - 1];
+  if (state.voltageFound) return last ? { kind: 'remove', link: last.link } : { kind: 'stop' };
+  if (state.people.length + state.visitors.length === 0) return { kind: 'sign-on' };
+  const item = BRIEFING_ITEMS.find((i) => !state.briefing[i]);
+  if (item) return { kind: 'briefing', item };
+  if (!state.testPassed && state.installed === 0) return { kind: 'voltage-test' };
+  if (state.testPassed && state.removed === 0) {
+    const pending = plan.jumpers.find((j) => !state.on.some((s) => s.link === j.id));
+    if (pending) return { kind: 'install', link: pending.id };
+  }
+  if (last) return { kind: 'remove', link: last.link };
+  return { kind: 'close' };
+}

@@ -1,0 +1,59 @@
+/** Bodies and queries of the field-record API; the field screen sends the same shapes. */
+import { z } from 'zod';
+import { BRIEFING_ITEMS } from '../domain/field-record/types';
+
+const str = (max: number) => z.string({ required_error: 'is required', invalid_type_error: 'must be a string' }).trim().max(max, `must be at most ${max} characters`);
+const nonEmpty = (max: number) => str(max).pipe(z.string().min(1, 'must not be empty'));
+
+const common = {
+  clientId: z.string({ required_error: 'is required', invalid_type_error: 'must be a string' }).uuid('must be a UUID made on the device'),
+  at: z.string({ required_error: 'is required', invalid_type_error: 'must be a string' }).datetime({ offset: true, message: 'must be an ISO time such as 2026-05-04T07:30:00Z' }),
+};
+
+export const entryBody = z.discriminatedUnion(
+  'type',
+  [
+    z.object({ ...common, type: z.literal('sign-on'), people: z.array(nonEmpty(32), { invalid_type_error: 'must be a list' }).max(50, 'at most 50 people').default([]), visitors: z.array(nonEmpty(200), { invalid_type_error: 'must be a list' }).max(50, 'at most 50 visitors').default([]) })
+,
+    z.object({ ...common, type: z.literal('briefing'), item: z.enum(BRIEFING_ITEMS, { errorMap: () => ({ message: `must be one of ${BRIEFING_ITEMS.join(', ')}` }) }), by: nonEmpty(200) }),
+    z.object({
+      ...common,
+      type: z.literal('voltage-test'),
+      detector: nonEmpty(200),
+      detectorCheckedBefore: z.boolean({ required_error: 'is required', invalid_type_error: 'must be true or false' }),
+      detectorCheckedAfter: z.boolean({ required_error: 'is required', invalid_type_error: 'must be true or false' }),
+      phases: z.record(nonEmpty(40), z.enum(['absent', 'present'], { errorMap: () => ({ message: 'must be absent or present' }) })).refine((p) => Object.keys(p).length > 0, 'name at least one phase'),
+    }),
+    z.object({ ...common, type: z.literal('install'), link: nonEmpty(64), setTag: nonEmpty(80), groundEndFirst: z.literal(true, { errorMap: () => ({ message: 'must be true: the ground end goes on first' }) }) }),
+    z.object({ ...common, type: z.literal('remove'), link: nonEmpty(64) }),
+    z.object({ ...common, type: z.literal('deviation'), text: nonEmpty(4000) }),
+    z.object({ ...common, type: z.literal('note'), text: nonEmpty(4000) }),
+  ],
+  { errorMap: (issue, ctx) => ({ message: issue.code === 'invalid_union_discriminator' ? 'must be one of sign-on, briefing, voltage-test, install, remove, deviation, note' : ctx.defaultError }) },
+).superRefine((v, ctx) => {
+  if (v.type === 'sign-on' && v.people.length + v.visitors.length === 0) ctx.addIssue({ code: 'custom', path: ['people'], message: 'name at least one person or visitor' });
+});
+export type EntryInput = z.infer<typeof entryBody>;
+
+export const RECORD_STATUSES = ['open', 'closed'] as const;
+export type RecordStatus = (typeof RECORD_STATUSES)[number];
+
+export const createRecordBody = z.object({
+  workDate: z.string({ invalid_type_error: 'must be a string' }).regex(/^\d{4}-\d{2}-\d{2}$/, 'must be a date such as 2026-05-04').optional(),
+  location: str(200).optional(),
+  clearanceRef: str(120).optional(),
+  detector: str(200).optional(),
+});
+
+export const listRecordsQuery = z.object({
+  status: z.enum(RECORD_STATUSES, { errorMap: () => ({ message: 'must be open or closed' }) }).optional(),
+  page: z.coerce.number({ invalid_type_error: 'must be a number' }).int('must be a whole number').min(1, 'must be at least 1').max(100000, 'is too large').default(1),
+  pageSize: z.coerce.number({ invalid_type_error: 'must be a number' }).int('must be a whole number').min(1, 'must be at least 1').max(100, 'must be at most 100').default(20),
+});
+
+export const photoSizeQuery = z.object({
+  size: z.enum(['thumb', 'display', 'original'], { errorMap: () => ({ message: 'must be thumb, display or original' }) }).default('display'),
+});
+
+export const photoCaption = str(300).optional();
+

@@ -1,0 +1,140 @@
+/**
+ * The field record as the endpoints use it: access by role, the rules judged inside the record's
+ * lock (src/lib/domain/field-record), and the mail that goes with a deviation or a close-out.
+ */
+import { getDb } from '../../../db/connection';
+import { addEntry, approvingReviewer, closeRecord, createRecord, getRecord, type Judge, type RecordDetail, type StoredEntry } from '../../../db/repositories/field-records';
+import { freeTextSetStatus, judgeAppend, judgeCloseOut, nextStep, recordPlanFrom, replay, type FieldEntry, type Refusal, type SetStatusLookup } from '../domain/field-record';
+import type { Person } from '../domain/people';
+import type { EntryInput } from '../schemas/field-record';
+import { AppError } from './errors';
+import { roleMessage } from './guards';
+import { queueMail } from './mail';
+import { closedMessages, deviationMessage } from './record-mail';
+import { publicUrl } from './settings';
+
+export const RECORD_WRITERS = ['crew_lead', 'admin'] as const;
+
+/**
+ * THE SEAM FOR THE EQUIPMENT INVENTORY. Until the organisation's inventory exists, a set tag is
+ * free text and every tag is usable. At merge, build a lookup from the organisation's sets here
+ * (out of service, or past their test date → not usable); the rules call it on every install.
+ */
+export async function setStatusLookupFor(organizationId: number): Promise<SetStatusLookup> {
+  void organizationId;
+  return freeTextSetStatus;
+}
+
+function refusalError(refusal: Refusal): AppError {
+  return new AppError(refusal.code, { message: refusal.message, extra: refusal.items ? { items: refusal.items } : undefined });
+}
+
+/** Reads a record the person may see: other organisations 404; apprentices only closed records. */
+export async function readableRecord(person: Person, id: number): Promise<RecordDetail> {
+  const record = await getRecord(getDb(), person.organizationId, id);
+  if (!record) throw new AppError('NOT_FOUND');
+  if (person.role === 'apprentice' && record.status !== 'closed') {
+    throw new AppError('ROLE_REQUIRED', { message: `An open field record is for the crew. ${roleMessage(['crew_lead', 'admin', 'reviewer'])}`, extra: { requiredRoles: ['crew_lead', 'admin', 'reviewer'] } });
+  }
+  return record;
+}
+
+export async function openRecord(person: Person, planId: number, input: { workDate?: string; location?: string; clearanceRef?: string; detector?: string }, today: string) {
+  const outcome = await createRecord(getDb(), person.organizationId, {
+    planId,
+    leadId: person.id,
+    workDate: input.workDate ?? today,
+    location: input.location ?? '',
+    clearanceRef: input.clearanceRef ?? '',
+    detector: input.detector ?? '',
+  });
+  if (outcome.kind === 'not-found') throw new AppError('NOT_FOUND');
+  if (outcome.kind === 'not-approved') throw new AppError('RECORD_PLAN_NOT_APPROVED', { extra: { status: outcome.status } });
+  return outcome.record;
+}
+
+/** People named on a sign-on must be of the organisation (checked before the rules). */
+async function checkPeople(person: Person, input: EntryInput): Promise<void> {
+  if (input.type !== 'sign-on' || !input.people.length) return;
+  const rows = await getDb().models.User.findAll({ where: { id: input.people, organizationId: person.organizationId, disabled: false }, attributes: ['id'] });
+  const known = new Set(rows.map((r) => r.id));
+  const issues = input.people.flatMap((id, i) => (known.has(id) ? [] : [{ path: `people[${i}]`, message: 'is not an active person of your organisation' }]));
+  if (issues.length) throw new AppError('VALIDATION', { issues });
+}
+
+/** Records an entry; a repeat of a clientId answers with the stored entry (created: false). */
+export async function recordEntry(person: Person, recordId: number, input: EntryInput, requestUrl?: URL): Promise<{ created: boolean; entry: StoredEntry }> {
+  const db = getDb();
+  await checkPeople(person, input);
+  const sets = await setStatusLookupFor(person.organizationId);
+  const entry = { ...input, actorId: person.id } as FieldEntry;
+  const judge: Judge = (document, entries, closed) => judgeAppend(document, entries, closed, sets);
+  const outcome = await addEntry(db, person.organizationId, recordId, entry, judge);
+  switch (outcome.kind) {
+    case 'not-found':
+      throw new AppError('NOT_FOUND');
+    case 'client-id-reused':
+      throw new AppError('CLIENT_ID_REUSED');
+    case 'refused':
+      throw refusalError(outcome.refusal);
+    case 'repeat':
+      return { created: false, entry: outcome.entry };
+    case 'created':
+      break;
+  }
+  if (input.type === 'deviation') {
+    const record = (await getRecord(db, person.organizationId, recordId))!;
+    const reviewer = await approvingReviewer(db, record.planId, record.revision);
+    if (reviewer && !reviewer.disabled) await queueMail([deviationMessage(reviewer.email, record, person.organizationId, person.name, input.text, publicUrl(requestUrl))]);
+  }
+  return { created: true, entry: outcome.entry };
+}
+
+/** Closes out: refused (listing the sets still on) until every set that went on has come off. */
+export async function closeOut(person: Person, recordId: number, requestUrl?: URL): Promise<RecordDetail> {
+  const db = getDb();
+  const outcome = await closeRecord(db, person.organizationId, recordId, person.id, judgeCloseOut);
+  if (outcome.kind === 'not-found') throw new AppError('NOT_FOUND');
+  if (outcome.kind === 'refused') throw refusalError(outcome.refusal);
+  const record = (await getRecord(db, person.organizationId, recordId))!;
+  const reviewer = await approvingReviewer(db, record.planId, record.revision);
+  const lead = await db.models.User.findByPk(record.leadId, { attributes: ['email', 'disabled'] });
+  const to = [...new Set([...(reviewer && !reviewer.disabled ? [reviewer.email] : []), ...(lead && !lead.disabled ? [lead.email] : [])])];
+  await queueMail(closedMessages(to, record, person.organizationId, person.name, publicUrl(requestUrl)));
+  return record;
+}
+
+/** The record as the API answers it: entries in order, counts, the sets on now and the next step. */
+export function recordJson(record: RecordDetail) {
+  const plan = recordPlanFrom(record.document);
+  const state = replay(plan, record.entries.map((e) => e.entry), record.status === 'closed');
+  return {
+    id: record.id,
+    planId: record.planId,
+    planTitle: record.planTitle,
+    revision: record.revision,
+    status: record.status,
+    workDate: record.workDate,
+    structure: record.structure,
+    location: record.location,
+    clearanceRef: record.clearanceRef,
+    detector: record.detector,
+    lead: { id: record.leadId, name: record.leadName },
+    closedAt: record.closedAt,
+    closedBy: record.closedBy ? { id: record.closedBy, name: record.closedByName } : null,
+    counts: { on: state.on.length, installed: state.installed, removed: state.removed },
+    setsOn: state.on,
+    voltageFound: state.voltageFound,
+    testPassed: state.testPassed,
+    briefing: state.briefing,
+    next: nextStep(plan, state),
+    plan,
+    document: record.document,
+    entries: record.entries.map(entryJson),
+    photos: record.photos.map((p) => ({ id: p.id, caption: p.caption, mime: p.mime, bytes: p.bytes, width: p.width, height: p.height, createdAt: p.createdAt, url: `/api/records/${record.id}/photos/${p.id}` })),
+  };
+}
+
+export function entryJson(e: StoredEntry) {
+  return { id: e.id, ...e.entry, actorName: e.actorName, flags: e.flags, recordedAt: e.recordedAt };
+}

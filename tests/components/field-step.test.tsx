@@ -1,0 +1,59 @@
+import { render, screen } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { describe, expect, it, vi } from 'vitest';
+import { StepPanel } from '../../src/components/records/StepPanel';
+import { stampEntry } from '../../src/components/records/record-client';
+import type { RecordView } from '../../src/components/records/types';
+import type { NextStep } from '../../src/lib/domain/field-record';
+
+const me = { id: 'u1', name: 'Invented Lead' };
+function record(next: NextStep, over: Partial<RecordView> = {}): RecordView {
+  return {
+    id: 1, planId: 1, planTitle: 'Invented pole', revision: 1, status: 'open', workDate: '2026-05-04', structure: '', location: '', clearanceRef: '', detector: 'Detector 7',
+    lead: me, closedAt: null, closedBy: null, counts: { on: 0, installed: 0, removed: 0 }, setsOn: [], voltageFound: false, testPassed: false, briefing: {}, next,
+    plan: { phases: ['A', 'B'], jumpers: [{ id: 'jA', label: 'Phase A – Cluster bar' }] }, document: {} as RecordView['document'], entries: [], photos: [], ...over,
+  };
+}
+
+describe('the next-step panel', () => {
+  it('records a voltage test only when every phase has a result and the detector was proved before and after', async () => {
+    const submit = vi.fn();
+    render(<StepPanel record={record({ kind: 'voltage-test' })} people={[me]} me={me} busy={false} submit={submit} onClose={() => undefined} />);
+    const button = screen.getByRole('button', { name: 'Record test' });
+    await userEvent.click(screen.getByLabelText('Detector proved before'));
+    await userEvent.click(screen.getAllByRole('button', { name: 'Absent' })[0]);
+    await userEvent.click(screen.getAllByRole('button', { name: 'Present' })[1]);
+    expect(button).toBeDisabled();
+    await userEvent.click(screen.getByLabelText('Detector proved after'));
+    expect(button).toBeEnabled();
+    await userEvent.click(button);
+    expect(submit).toHaveBeenCalledWith({ type: 'voltage-test', detector: 'Detector 7', detectorCheckedBefore: true, detectorCheckedAfter: true, phases: { A: 'absent', B: 'present' } });
+  });
+
+  it('puts a set on only with a tag and the ground-end-first confirmation', async () => {
+    const submit = vi.fn();
+    render(<StepPanel record={record({ kind: 'install', link: 'jA' })} people={[me]} me={me} busy={false} submit={submit} onClose={() => undefined} />);
+    const button = screen.getByRole('button', { name: 'Set on' });
+    await userEvent.type(screen.getByLabelText('Set tag'), 'LV-07');
+    expect(button).toBeDisabled();
+    await userEvent.click(screen.getByLabelText(/Ground end on first/));
+    await userEvent.click(button);
+    expect(submit).toHaveBeenCalledWith({ type: 'install', link: 'jA', setTag: 'LV-07', groundEndFirst: true });
+  });
+
+  it('after voltage was found offers no way to put a set on, only the stop', () => {
+    render(<StepPanel record={record({ kind: 'stop' }, { voltageFound: true })} people={[me]} me={me} busy={false} submit={vi.fn()} onClose={() => undefined} />);
+    expect(screen.getByRole('alert').textContent).toMatch(/Call the system operator/);
+    expect(screen.queryByRole('button', { name: 'Set on' })).toBeNull();
+  });
+});
+
+describe('stamping an entry on the device', () => {
+  it('gives each entry its own UUID and the device time', () => {
+    const a = stampEntry({ type: 'note', text: 'x' }, new Date('2026-05-04T07:00:00Z'));
+    const b = stampEntry({ type: 'note', text: 'x' }, new Date('2026-05-04T07:00:00Z'));
+    expect(a.clientId).toMatch(/^[0-9a-f-]{36}$/);
+    expect(a.clientId).not.toBe(b.clientId);
+    expect(a.at).toBe('2026-05-04T07:00:00.000Z');
+  });
+});
