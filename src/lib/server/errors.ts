@@ -25,6 +25,9 @@ export const ERRORS = {
   EMAIL_TAKEN: { status: 409, message: 'Someone already has this e-mail address. Use another, or find that person in the list.' },
   SELF_CHANGE: { status: 409, message: 'You cannot disable yourself or take away your own admin role; ask another admin.' },
   DB_DOWN: { status: 503, message: 'The database cannot be reached just now; nothing was changed. Try again in a moment.' },
+  TOO_MANY_ATTEMPTS: { status: 429, message: 'Too many attempts from your address or for this e-mail. Wait the time given (Retry-After), then try again.' },
+  CHECK_TIMEOUT: { status: 422, message: 'The check of this plan took longer than its time budget and was stopped; nothing was saved. Split the plan into smaller ones.' },
+  CHECK_BUSY: { status: 503, message: 'The checker is busy with other plans just now; nothing was saved. Try again in a moment.' },
   INTERNAL: { status: 500, message: 'Something went wrong on our side; nothing was changed. Try again, and tell your admin if it keeps happening.' },
 } as const satisfies Record<string, { status: number; message: string }>;
 

@@ -23,7 +23,7 @@ async function requirePlan(person: Person, planId: number): Promise<PlanDetail> 
 export async function submitForReview(person: Person, planId: number, requestUrl?: URL): Promise<PlanDetail> {
   const db = getDb();
   const plan = await requirePlan(person, planId);
-  const report = checkDocument(plan.document);
+  const report = await checkDocument(plan.document);
   const outcome = await submitPlan(db, person.organizationId, planId, person.id, report);
   if (outcome.kind === 'not-found') throw new AppError('NOT_FOUND');
   if (outcome.kind === 'not-submittable') throw new AppError('NOT_SUBMITTABLE', { extra: { status: outcome.status } });

@@ -13,7 +13,7 @@ export const POST = endpoint(async (ctx) => {
   const db = getDb();
   const plan = await getPlan(db, person.organizationId, id);
   if (!plan) throw new AppError('NOT_FOUND');
-  const report = checkDocument(plan.document);
+  const report = await checkDocument(plan.document);
   const stored = await storeReport(db, person.organizationId, id, plan.currentRevision, report);
   return json({ revision: plan.currentRevision, stored, report });
 });
