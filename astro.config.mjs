@@ -11,7 +11,9 @@ import { fileURLToPath } from 'node:url';
  * server entry: after the server build, bundle src/lib/server/check-worker.ts into
  * dist/server/check-worker.mjs (plain ESM, the pure checker inlined).
  */
+/** @returns {import('astro').AstroIntegration} */
 function checkWorker() {
+  /** @type {URL | undefined} */
   let serverDir;
   return {
     name: 'bondmap-check-worker',

@@ -5,7 +5,7 @@ import { json } from '../../lib/server/http';
 import { log } from '../../lib/server/log';
 
 // Set by scripts/lib.mjs for each start: the token proves which process answers on the port.
-const instance = process.env.BONDMAP_INSTANCE ? { 'x-bondmap-instance': process.env.BONDMAP_INSTANCE } : {};
+const instance: Record<string, string> = process.env.BONDMAP_INSTANCE ? { 'x-bondmap-instance': process.env.BONDMAP_INSTANCE } : {};
 
 /** 200 when the database answers, 503 when it does not; for load balancers and tests. */
 export const GET: APIRoute = async () => {
