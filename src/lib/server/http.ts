@@ -92,7 +92,9 @@ export async function readLimitedBytes(request: Request, limitBytes: number): Pr
     if (done) break;
     total += value.byteLength;
     if (total > limitBytes) {
-      await reader.cancel();
+      // Stop reading, but do not cancel: cancelling destroys the socket before the 413 can be sent.
+      // The answer carries Connection: close, so the rest of the body is never read.
+      reader.releaseLock();
       throw tooLarge(limitBytes);
     }
     chunks.push(value);
