@@ -43,6 +43,7 @@ it('answers 503 while the database is down and recovers when it is back', async 
     const page = await client.get('/plans');
     expect(page.status).toBe(503);
     expect(page.text).toContain('cannot reach its database');
+    expect(page.text).toContain(`request ${page.headers.get('x-request-id')}`);
   } finally {
     await startDatabase('test');
   }
