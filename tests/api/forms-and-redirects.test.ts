@@ -67,7 +67,10 @@ describe('form pages and bodies that are not forms', () => {
     for (const path of ['/login', '/api/auth/login']) {
       const type = path.startsWith('/api') ? 'application/json' : 'application/x-www-form-urlencoded';
       const { status, sent } = await streamUntilAnswered(path, type, 64 * 1024 * 1024);
-      expect(status, path).toBe(413);
+      // 413, or — when the server's close with the body still arriving turns into a TCP reset that
+      // overtakes the answer — a reset connection (0). Either way it stopped reading; a server that
+      // kept reading or just stalled would time out here.
+      expect([413, 0], path).toContain(status);
       expect(sent, path).toBeLessThan(16 * 1024 * 1024); // far from the 64 MB on offer
     }
   });
@@ -126,7 +129,7 @@ describe('the redirect after sign-in', () => {
   });
 });
 
-/** Streams up to `total` bytes (chunked, no Content-Length) until the server answers; how much went out. */
+/** Streams up to `total` bytes (chunked, no Content-Length) until the server answers or closes; how much went out. */
 function streamUntilAnswered(path: string, type: string, total: number): Promise<{ status: number; sent: number }> {
   return new Promise((resolve, reject) => {
     const url = new URL(path, BASE_URL);
@@ -139,7 +142,10 @@ function streamUntilAnswered(path: string, type: string, total: number): Promise
       req.destroy();
     });
     req.on('error', (e) => {
-      if (!answered && !['EPIPE', 'ECONNRESET'].includes((e as NodeJS.ErrnoException).code ?? '')) reject(e);
+      if (answered) return;
+      answered = true;
+      if (['EPIPE', 'ECONNRESET'].includes((e as NodeJS.ErrnoException).code ?? '')) resolve({ status: 0, sent });
+      else reject(e);
     });
     const chunk = Buffer.alloc(256 * 1024, 0x61);
     const pump = () => {
