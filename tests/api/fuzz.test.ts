@@ -15,6 +15,9 @@ const RUNS = Number(process.env.FUZZ_RUNS ?? 1000);
 const BATCH = 50;
 const CONCURRENCY = 16;
 const HANG_MS = 15_000;
+// A route's 1,000 bodies take 2–10 s on an idle machine; a loaded one needs more. A route that
+// overran would leave requests running into the next route's database snapshots.
+const ROUTE_TIMEOUT_MS = 180_000;
 const SEED = Number(process.env.FUZZ_SEED ?? Date.now() % 2 ** 31);
 const ORIGIN = new URL(BASE_URL).origin;
 
@@ -145,6 +148,6 @@ describe(`generated bodies over HTTP (${RUNS} a route, seed ${SEED})`, () => {
       }
       console.info(`${name}: ${[...statuses].sort((a, b) => a[0] - b[0]).map(([s, n]) => `${n}×${s}`).join(' ')}`);
       expect(failures.slice(0, 5), `${failures.length} × 5xx; statuses ${JSON.stringify([...statuses])}`).toEqual([]);
-    });
+    }, ROUTE_TIMEOUT_MS);
   }
 });
