@@ -160,7 +160,28 @@ export async function startDatabase(profile: Profile): Promise<DbCredentials> {
     writeFileSync(p.pid, String(child.pid));
   }
   await waitUntilAnswering(config.port, p.socket);
-  return ensureAppUser(config, p.socket, p.credentials);
+  const credentials = ensureAppUser(config, p.socket, p.credentials);
+  verifyOwnServer(credentials, p.data, profile);
+  return credentials;
+}
+
+/**
+ * The handshake: the pid file says our mariadbd runs, but only an answer on the TCP port the app
+ * will use, accepting this checkout's generated credentials and naming this checkout's data
+ * directory, proves that the port is ours (and not another checkout's or the system's MariaDB).
+ */
+function verifyOwnServer(c: DbCredentials, dataDir: string, profile: Profile): void {
+  const answer = spawnSync(findBinary('mariadb') ?? 'mariadb', ['--no-defaults', '-h', c.host, '-P', String(c.port), '-u', c.user, '-N', '-B', '-e', 'SELECT @@datadir'], {
+    encoding: 'utf8',
+    env: { ...process.env, MYSQL_PWD: c.password },
+  });
+  const answered = answer.stdout.trim().replace(/\/+$/, '');
+  if (answer.status !== 0 || resolve(answered) !== resolve(dataDir)) {
+    const why = answer.status !== 0 ? `it refused this checkout's credentials (${answer.stderr.trim()})` : `it serves ${answered}, not ${dataDir}`;
+    throw new Error(
+      `port ${c.port} answers, but not as this checkout's MariaDB: ${why}. Stop whatever listens there, or set ${profile === 'dev' ? 'BONDMAP_DB_PORT' : 'BONDMAP_TEST_DB_PORT'} to a free port.`,
+    );
+  }
 }
 
 async function waitUntilAnswering(port: number, socket: string): Promise<void> {

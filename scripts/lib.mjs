@@ -75,21 +75,25 @@ export function ensureBuild() {
 export async function startServer({ port, env, stdio = 'inherit' }) {
   // Another server on the port would answer the health check in this one's place.
   if (await portOpen(port)) throw new Error(`port ${port} is already in use; stop what runs there or choose another port`);
+  // The health answer must carry this start's token: proof that the server answering is this child.
+  const { randomBytes } = await import('node:crypto');
+  const instance = randomBytes(12).toString('hex');
   const child = spawn(process.execPath, [join(ROOT, 'dist', 'server', 'entry.mjs')], {
     cwd: ROOT,
-    env: { ...process.env, ...env, HOST: '127.0.0.1', PORT: String(port) },
+    env: { ...process.env, ...env, HOST: '127.0.0.1', PORT: String(port), BONDMAP_INSTANCE: instance },
     stdio,
   });
   const url = `http://127.0.0.1:${port}`;
   const deadline = Date.now() + 60_000;
   while (Date.now() < deadline) {
     if (child.exitCode !== null) throw new Error(`the app server exited with ${child.exitCode}`);
-    try {
-      const response = await fetch(`${url}/api/health`);
-      if (response.ok) return { child, url };
-    } catch {
-      // not listening yet
+    const response = await fetch(`${url}/api/health`).catch(() => null); // null: not listening yet
+    const answeredBy = response?.headers.get('x-bondmap-instance');
+    if (response && answeredBy !== instance) {
+      child.kill();
+      throw new Error(`port ${port} answers, but not as the server just started (instance ${answeredBy ?? 'none'}); stop what runs there or choose another port`);
     }
+    if (response?.ok) return { child, url };
     await new Promise((r) => setTimeout(r, 200));
   }
   child.kill();
@@ -153,11 +157,44 @@ async function stopHelper(profile, name) {
   return true;
 }
 
-/** Starts (or reuses) the local SMTP catcher for a profile; resolves once it accepts connections. */
+/** The first line an SMTP server on 127.0.0.1:port sends ('' when nothing answers within 2 s). */
+export function smtpGreeting(port) {
+  return new Promise((done) => {
+    const socket = createConnection({ host: '127.0.0.1', port });
+    let text = '';
+    const finish = () => {
+      socket.destroy();
+      done(text.split('\r\n')[0]);
+    };
+    socket.setTimeout(2000, finish);
+    socket.on('data', (chunk) => {
+      text += chunk.toString('utf8');
+      if (text.includes('\r\n')) finish();
+    });
+    socket.once('error', () => done(''));
+  });
+}
+
+/**
+ * Starts (or reuses) the local SMTP catcher for a profile; resolves once it answers. A catcher is
+ * reused only when its pid file names a live process AND the greeting on the port carries the
+ * token this checkout gave it at start; anything else on the port is refused, saying so.
+ */
 export async function startMailCatcher({ profile, port, env }) {
-  if (pidFileAlive(helperPidFile(profile, 'mail-catcher')) && (await portOpen(port))) return;
-  await spawnHelper({ profile, name: 'mail-catcher', args: ['--import', 'tsx', join(ROOT, 'scripts', 'mail-catcher.ts')], env: { ...env, BONDMAP_SMTP_PORT: String(port) } });
-  await waitFor(() => portOpen(port), `the local mail catcher did not start on port ${port}; see .data/${profile}/mail-catcher.log`);
+  const { readFileSync: read, writeFileSync, mkdirSync } = await import('node:fs');
+  const { randomBytes } = await import('node:crypto');
+  const tokenFile = join(ROOT, '.data', profile, 'mail-catcher.token');
+  const ours = (greeting) => existsSync(tokenFile) && greeting.includes(read(tokenFile, 'utf8').trim());
+  const greeting = await smtpGreeting(port);
+  if (pidFileAlive(helperPidFile(profile, 'mail-catcher')) && greeting && ours(greeting)) return;
+  if (greeting || (await portOpen(port))) {
+    throw new Error(`port ${port} answers (${greeting ? `"${greeting}"` : 'no SMTP greeting'}), but not as this checkout's mail catcher; stop what runs there or set ${profile === 'dev' ? 'BONDMAP_SMTP_PORT' : 'BONDMAP_TEST_SMTP_PORT'} to a free port`);
+  }
+  mkdirSync(join(ROOT, '.data', profile), { recursive: true });
+  const token = randomBytes(12).toString('hex');
+  writeFileSync(tokenFile, token, { mode: 0o600 });
+  await spawnHelper({ profile, name: 'mail-catcher', args: ['--import', 'tsx', join(ROOT, 'scripts', 'mail-catcher.ts')], env: { ...env, BONDMAP_SMTP_PORT: String(port), BONDMAP_CATCHER_TOKEN: token } });
+  await waitFor(async () => ours(await smtpGreeting(port)), `the local mail catcher did not answer with its token on port ${port}; see .data/${profile}/mail-catcher.log`);
 }
 
 /** Stops the catcher this project started for the profile, by its pid file. */

@@ -14,7 +14,8 @@ const db = createDb({ ...readDbConfig(), poolMax: 2 });
 const server = new SMTPServer({
   authOptional: true,
   disabledCommands: ['STARTTLS', 'AUTH'],
-  banner: 'Bondmap local mail catcher',
+  // The per-start token in the greeting lets scripts/lib.mjs tell this catcher from anyone else's.
+  banner: `Bondmap local mail catcher ${process.env.BONDMAP_CATCHER_TOKEN ?? ''}`.trim(),
   size: 10 * 1024 * 1024,
   onData(stream, session, callback) {
     const chunks: Buffer[] = [];

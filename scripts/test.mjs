@@ -70,7 +70,7 @@ async function main() {
   ensureBuild();
   await startMailCatcher({ profile: 'test', port: smtpPort, env: dbEnv });
   const mailEnv = { BONDMAP_SMTP_URL: `smtp://127.0.0.1:${smtpPort}`, BONDMAP_MAIL_CATCHER: '1', BONDMAP_MAIL_POLL_MS: '300' };
-  ({ child: server } = await startServer({ port, env: { ...dbEnv, ...mailEnv, ...s3Env, BONDMAP_PUBLIC_URL: `http://127.0.0.1:${port}` }, stdio: ['ignore', 'ignore', 'inherit'] }));
+  ({ child: server } = await startServer({ port, env: { ...dbEnv, ...mailEnv, ...s3Env, BONDMAP_PUBLIC_URL: `http://127.0.0.1:${port}`, BONDMAP_TRUST_PROXY: '1', BONDMAP_SERVER_TIMING: '1', BONDMAP_LOG_LEVEL: 'warn' }, stdio: ['ignore', 'ignore', 'inherit'] }));
   const serverEnv = { ...dbEnv, ...s3Env, BONDMAP_TEST_URL: `http://127.0.0.1:${port}`, BONDMAP_TEST_PROFILE: 'test', BONDMAP_TEST_SMTP_PORT: String(smtpPort) };
   const apiCode = await vitest(['api', 'e2e'], serverEnv, join(results, 'server.json'));
 

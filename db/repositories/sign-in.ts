@@ -1,28 +1,7 @@
-/** Failed sign-ins and one-time password links, stored so that they hold across restarts and instances. */
+/** One-time password links, stored hashed (failed sign-ins are counted in db/repositories/throttle.ts). */
 import { createHash, randomBytes } from 'node:crypto';
 import { Op, type Transaction } from 'sequelize';
-import { normaliseEmail } from '../../src/lib/domain/people';
 import type { Db } from '../connection';
-
-/** Failures for this e-mail since `since`, oldest first. */
-export async function recentFailures(db: Db, email: string, since: Date): Promise<Date[]> {
-  const rows = await db.models.LoginAttempt.findAll({
-    where: { email: normaliseEmail(email), at: { [Op.gte]: since } },
-    order: [['at', 'ASC']],
-    attributes: ['at'],
-  });
-  return rows.map((r) => r.at);
-}
-
-export async function recordFailure(db: Db, email: string, at: Date): Promise<void> {
-  await db.models.LoginAttempt.create({ email: normaliseEmail(email), at });
-  // Failures older than a day no longer count for anything; keep the table small.
-  await db.models.LoginAttempt.destroy({ where: { email: normaliseEmail(email), at: { [Op.lt]: new Date(at.getTime() - 86400_000) } } });
-}
-
-export async function clearFailures(db: Db, email: string): Promise<void> {
-  await db.models.LoginAttempt.destroy({ where: { email: normaliseEmail(email) } });
-}
 
 const hashToken = (token: string) => createHash('sha256').update(token).digest('hex');
 

@@ -36,12 +36,14 @@ it('answers 503 while the database is down and recovers when it is back', async 
     const api = await client.get('/api/plans');
     expect(api.status).toBe(503);
     expect(api.body.error.code).toBe('DB_DOWN');
+    expect(api.body.error.requestId).toBe(api.headers.get('x-request-id')); // the id leads to its log lines
     const write = await client.post('/api/check', {});
     expect(write.status).toBe(503);
 
     const page = await client.get('/plans');
     expect(page.status).toBe(503);
     expect(page.text).toContain('cannot reach its database');
+    expect(page.text).toContain(`request ${page.headers.get('x-request-id')}`);
   } finally {
     await startDatabase('test');
   }

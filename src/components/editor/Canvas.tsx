@@ -200,6 +200,9 @@ export function Canvas({ onInit }: CanvasProps) {
         selectionKeyCode="Shift"
         multiSelectionKeyCode={MULTI_SELECT_KEYS}
         disableKeyboardA11y
+        // The editor's own keys move between elements; focusable edges would be buttons whose name
+        // ("Edge from A to CB") does not contain their visible cable tag (axe: label-content-name-mismatch).
+        edgesFocusable={false}
         onlyRenderVisibleElements={large}
         minZoom={0.1}
         maxZoom={3}

@@ -10,6 +10,7 @@ import { Op } from 'sequelize';
 import { getDb, type Db } from '../../../db/connection';
 import { findPerson } from '../../../db/repositories/people';
 import type { Person } from '../domain/people';
+import { log } from './log';
 
 /** The key a session is stored under: the SHA-256 of its token, so the table hands out no session. */
 export function sessionKey(token: string): string {
@@ -152,5 +153,9 @@ export async function verifyPassword(passwordHash: string | null, password: stri
     await verify(await decoyHash, password).catch(() => false);
     return false;
   }
-  return verify(passwordHash, password).catch(() => false);
+  return verify(passwordHash, password).catch((err: unknown) => {
+    // A stored hash the library cannot read: the sign-in fails, and the reason is logged.
+    log.error({ err }, 'password hash could not be verified');
+    return false;
+  });
 }

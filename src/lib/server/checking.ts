@@ -1,14 +1,71 @@
-/** Runs the pure checker for the server: every saved revision carries the report of its document. */
+/**
+ * Runs the pure checker for the server — off the main thread, in a pool of worker threads
+ * (piscina), so one large plan never stalls other requests. Each check has a time budget; past it
+ * its worker is stopped and the answer is 422 CHECK_TIMEOUT. A full queue answers 503 CHECK_BUSY.
+ */
+import { existsSync } from 'node:fs';
+import { availableParallelism } from 'node:os';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { Piscina } from 'piscina';
 import type { Db } from '../../../db/connection';
 import { inventoryFor } from '../../../db/repositories/equipment';
 import { checkPlan } from '../domain/checker';
 import type { CheckReport } from '../domain/report';
 import { setTagsOf, type CheckOptions, type CheckStage } from '../domain/sets-in-plan';
 import type { PlanDocument } from '../schemas/plan';
+import { AppError } from './errors';
+import { log } from './log';
 import { today } from './equipment-http';
 
-export function checkDocument(document: PlanDocument, options: CheckOptions = {}): CheckReport {
-  return checkPlan(document, undefined, options);
+/**
+ * Time budget of one check, queueing included. A plan drawn for one structure checks in
+ * milliseconds; a generated 25,000-element plan (near the 2 MiB body limit) takes ~8 s here.
+ */
+export const CHECK_BUDGET_MS = Number(process.env.BONDMAP_CHECK_BUDGET_MS ?? 15_000);
+const MAX_QUEUE = 32;
+
+function workerFile(): string | null {
+  const candidates = [
+    process.env.BONDMAP_CHECK_WORKER,
+    fileURLToPath(new URL('./check-worker.mjs', import.meta.url)),
+    fileURLToPath(new URL('../check-worker.mjs', import.meta.url)),
+    process.argv[1] ? join(dirname(process.argv[1]), 'check-worker.mjs') : undefined,
+  ];
+  return candidates.find((c): c is string => !!c && existsSync(c)) ?? null;
+}
+
+let pool: Piscina | null | undefined;
+
+function getPool(): Piscina | null {
+  if (pool !== undefined) return pool;
+  const filename = workerFile();
+  if (!filename) {
+    // Only in `astro dev` and unit tests, which run the sources; the built server always has it.
+    log.warn('check worker not found (not a build?): checks run on the main thread');
+    pool = null;
+    return pool;
+  }
+  pool = new Piscina({ filename, minThreads: 1, maxThreads: Math.max(1, Math.min(4, availableParallelism() - 1)), maxQueue: MAX_QUEUE, idleTimeout: 60_000 });
+  log.info({ filename, threads: pool.options.maxThreads }, 'check worker pool started');
+  return pool;
+}
+
+export async function checkDocument(document: PlanDocument, options: CheckOptions = {}): Promise<CheckReport> {
+  const workers = getPool();
+  if (!workers) return checkPlan(document, undefined, options);
+  if (workers.queueSize >= MAX_QUEUE) throw new AppError('CHECK_BUSY', { headers: { 'retry-after': '5' } });
+  try {
+    return (await workers.run({ document, options }, { signal: AbortSignal.timeout(CHECK_BUDGET_MS) })) as CheckReport;
+  } catch (error) {
+    const name = (error as Error)?.name;
+    if (name === 'AbortError' || name === 'TimeoutError') {
+      log.warn({ budgetMs: CHECK_BUDGET_MS, nodes: document.nodes.length, links: document.links.length }, 'check stopped at its time budget');
+      throw new AppError('CHECK_TIMEOUT', { extra: { budgetMs: CHECK_BUDGET_MS } });
+    }
+    if (/queue is at limit/i.test((error as Error)?.message ?? '')) throw new AppError('CHECK_BUSY', { headers: { 'retry-after': '5' } });
+    throw error;
+  }
 }
 
 /**

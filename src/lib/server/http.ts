@@ -4,6 +4,7 @@ import type { z } from 'zod';
 import { idParam } from '../schemas/api';
 import { formatIssuePath } from '../schemas/plan';
 import { AppError, isDbUnavailable } from './errors';
+import { currentRequestId, log } from './log';
 
 export function json(body: unknown, status = 200, headers: Record<string, string> = {}): Response {
   return new Response(JSON.stringify(body), {
@@ -16,9 +17,18 @@ export function json(body: unknown, status = 200, headers: Record<string, string
 export function errorResponse(error: unknown): Response {
   if (error instanceof Response) return error;
   if (error instanceof AppError) return json(error.toBody(), error.status, error.headers);
-  if (isDbUnavailable(error)) return json(new AppError('DB_DOWN').toBody(), 503, { 'retry-after': '5' });
-  console.error('[bondmap] unexpected error', error);
-  return json(new AppError('INTERNAL').toBody(), 500);
+  if (isDbUnavailable(error)) {
+    log.warn({ err: error }, 'database unreachable');
+    return serverErrorJson(new AppError('DB_DOWN'), { 'retry-after': '5' });
+  }
+  log.error({ err: error }, 'unexpected error');
+  return serverErrorJson(new AppError('INTERNAL'));
+}
+
+/** A 5xx JSON answer carrying the request id, so the log lines of this request can be found. */
+export function serverErrorJson(error: AppError, headers: Record<string, string> = {}): Response {
+  const body = error.toBody();
+  return json({ error: { ...body.error, requestId: currentRequestId() } }, error.status, headers);
 }
 
 /** Wraps an endpoint so that every thrown error (guards, validation, database) becomes JSON. */
@@ -32,15 +42,16 @@ export function endpoint(handler: (ctx: APIContext) => Promise<Response> | Respo
   };
 }
 
-export const DEFAULT_BODY_LIMIT = 2 * 1024 * 1024;
+/** Plan documents (create, save, check): far above anything drawn for one structure (README "Security"). */
+export const PLAN_BODY_LIMIT = 2 * 1024 * 1024;
+/** Every other JSON body. */
+export const DEFAULT_BODY_LIMIT = 64 * 1024;
 
 /** Reads a JSON body, refusing non-JSON, oversized bodies and schema failures with the paths. */
 export async function readJson<S extends z.ZodTypeAny>(ctx: APIContext, schema: S, limitBytes = DEFAULT_BODY_LIMIT): Promise<z.infer<S>> {
   const type = ctx.request.headers.get('content-type') ?? '';
   if (!/^application\/([\w.+-]+\+)?json\b/i.test(type)) throw new AppError('UNSUPPORTED_MEDIA');
-  const declared = Number(ctx.request.headers.get('content-length') ?? 0);
-  if (declared > limitBytes) throw new AppError('BODY_TOO_LARGE', { extra: { limitBytes } });
-  const text = await readLimited(ctx.request, limitBytes);
+  const text = new TextDecoder().decode(await readLimitedBytes(ctx.request, limitBytes));
   let value: unknown;
   try {
     value = JSON.parse(text);
@@ -64,9 +75,19 @@ export function parseWith<S extends z.ZodTypeAny>(schema: S, value: unknown, fie
   return result.data;
 }
 
-/** Reads the raw body as text, refusing it past the limit. */
-export async function readLimited(request: Request, limitBytes: number): Promise<string> {
-  if (!request.body) return '';
+/** 413; the connection is closed after it, so the rest of the body is never read. */
+export function tooLarge(limitBytes: number): AppError {
+  return new AppError('BODY_TOO_LARGE', { extra: { limitBytes }, headers: { connection: 'close' } });
+}
+
+/**
+ * Reads a body up to `limitBytes`: refuses a larger Content-Length before reading anything, and
+ * stops reading (BODY_TOO_LARGE) as soon as a body without one streams past the limit.
+ */
+export async function readLimitedBytes(request: Request, limitBytes: number): Promise<Buffer> {
+  const declared = Number(request.headers.get('content-length') ?? 0);
+  if (declared > limitBytes) throw tooLarge(limitBytes);
+  if (!request.body) return Buffer.alloc(0);
   const reader = request.body.getReader();
   const chunks: Uint8Array[] = [];
   let total = 0;
@@ -75,12 +96,19 @@ export async function readLimited(request: Request, limitBytes: number): Promise
     if (done) break;
     total += value.byteLength;
     if (total > limitBytes) {
-      await reader.cancel();
-      throw new AppError('BODY_TOO_LARGE', { extra: { limitBytes } });
+      // Stop reading, but do not cancel: cancelling destroys the socket before the 413 can be sent.
+      // The answer carries Connection: close, so the rest of the body is never read.
+      reader.releaseLock();
+      throw tooLarge(limitBytes);
     }
     chunks.push(value);
   }
-  return new TextDecoder().decode(Buffer.concat(chunks));
+  return Buffer.concat(chunks);
+}
+
+/** Reads a body as UTF-8 text up to `limitBytes` (see readLimitedBytes). */
+export async function readLimited(request: Request, limitBytes: number): Promise<string> {
+  return (await readLimitedBytes(request, limitBytes)).toString('utf8');
 }
 
 /**

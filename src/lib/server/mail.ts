@@ -8,6 +8,7 @@ import nodemailer, { type Transporter } from 'nodemailer';
 import { Op, type Transaction } from 'sequelize';
 import { getDb, type Db } from '../../../db/connection';
 import { settings } from './settings';
+import { log } from './log';
 
 export interface OutgoingMail {
   to: string;
@@ -37,7 +38,7 @@ export async function queueMail(messages: OutgoingMail[], transaction?: Transact
     { transaction },
   );
   const nudge = () => {
-    setTimeout(() => void deliverDue().catch(() => undefined), 10);
+    setTimeout(() => void deliverDue().catch(logDeliveryError), 10);
   };
   if (transaction) transaction.afterCommit(nudge);
   else nudge();
@@ -62,6 +63,7 @@ export async function deliverDue(db: Db = getDb(), now = new Date()): Promise<nu
       sent += 1;
     } catch (error) {
       const attempts = row.attempts + 1;
+      log.warn({ err: error, mailId: row.id, attempts }, 'mail not delivered; will retry');
       const backoffMs = Math.min(2 ** attempts * 1000, 10 * 60_000);
       await row.update({
         attempts,
@@ -78,10 +80,15 @@ export async function deliverDue(db: Db = getDb(), now = new Date()): Promise<nu
 
 let worker: ReturnType<typeof setInterval> | null = null;
 
+/** A failed delivery round (database down, say) is retried on the next tick; it is logged, never swallowed. */
+function logDeliveryError(error: unknown): void {
+  log.warn({ err: error }, 'mail delivery round failed; retrying on the next tick');
+}
+
 /** Starts this process's delivery loop once (idempotent); it never keeps the process alive. */
 export function startMailWorker(): void {
   if (worker || !settings().BONDMAP_SMTP_URL) return;
-  worker = setInterval(() => void deliverDue().catch(() => undefined), settings().BONDMAP_MAIL_POLL_MS);
+  worker = setInterval(() => void deliverDue().catch(logDeliveryError), settings().BONDMAP_MAIL_POLL_MS);
   worker.unref();
 }
 

@@ -2,6 +2,7 @@
 import type { AstroGlobal } from 'astro';
 import type { Role } from '../domain/roles';
 import { roleMessage } from './guards';
+import { currentRequestId } from './log';
 
 /** For a page only some roles may open: null when allowed, else a 403 page naming the role. */
 export function pageRoleRefusal(Astro: AstroGlobal, ...roles: Role[]): Response | null {
@@ -11,14 +12,15 @@ export function pageRoleRefusal(Astro: AstroGlobal, ...roles: Role[]): Response 
 }
 
 export function unavailablePage(): Response {
-  return plainPage(503, 'Bondmap cannot reach its database', 'Nothing was changed. This page will work again as soon as the database is back; reload in a moment.', { 'retry-after': '5' });
+  const id = currentRequestId();
+  return plainPage(503, 'Bondmap cannot reach its database', `Nothing was changed. This page will work again as soon as the database is back; reload in a moment.${id ? ` (request ${id})` : ''}`, { 'retry-after': '5' });
 }
 
 function escapeHtml(text: string): string {
   return text.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
 }
 
-function plainPage(status: number, title: string, message: string, headers: Record<string, string> = {}): Response {
+export function plainPage(status: number, title: string, message: string, headers: Record<string, string> = {}): Response {
   const body = `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width,initial-scale=1"><title>${escapeHtml(title)} · Bondmap</title>
 <style>body{font-family:"Source Sans 3",system-ui,sans-serif;background:#f7f7f4;color:#1b2330;max-width:40rem;margin:4rem auto;padding:0 1rem;line-height:1.5}a{color:#0f766e}</style></head>
 <body><h1>${escapeHtml(title)}</h1><p>${escapeHtml(message)}</p><p><a href="/">Back to the start page</a></p></body></html>`;

@@ -10,6 +10,10 @@ const schema = z.object({
   /** "1" when the SMTP server is the project's own local catcher (enables /admin/mail). */
   BONDMAP_MAIL_CATCHER: z.enum(['0', '1']).default('0'),
   BONDMAP_MAIL_POLL_MS: z.coerce.number().int().min(100).max(600000).default(5000),
+  /** "1" behind a reverse proxy that appends the client's address to X-Forwarded-For (the last entry is used). */
+  BONDMAP_TRUST_PROXY: z.enum(['0', '1']).default('0'),
+  /** "1" adds a Server-Timing header counting the database queries each request made (tests use it). */
+  BONDMAP_SERVER_TIMING: z.enum(['0', '1']).default('0'),
 });
 
 export type Settings = z.infer<typeof schema>;

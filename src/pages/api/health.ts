@@ -2,6 +2,10 @@ import type { APIRoute } from 'astro';
 import { QueryTypes } from 'sequelize';
 import { getDb } from '../../../db/connection';
 import { json } from '../../lib/server/http';
+import { log } from '../../lib/server/log';
+
+// Set by scripts/lib.mjs for each start: the token proves which process answers on the port.
+const instance: Record<string, string> = process.env.BONDMAP_INSTANCE ? { 'x-bondmap-instance': process.env.BONDMAP_INSTANCE } : {};
 
 /** 200 when the database answers, 503 when it does not; for load balancers and tests. */
 export const GET: APIRoute = async () => {
@@ -11,8 +15,9 @@ export const GET: APIRoute = async () => {
       getDb().sequelize.query('SELECT 1 AS up', { type: QueryTypes.SELECT }),
       new Promise((_, reject) => setTimeout(() => reject(new Error('timeout')), 3000)),
     ]);
-    return json({ ok: true, db: 'up' });
-  } catch {
-    return json({ ok: false, db: 'down' }, 503, { 'retry-after': '5' });
+    return json({ ok: true, db: 'up' }, 200, instance);
+  } catch (error) {
+    log.warn({ err: error }, 'health: database not answering');
+    return json({ ok: false, db: 'down' }, 503, { 'retry-after': '5', ...instance });
   }
 };

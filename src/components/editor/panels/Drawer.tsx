@@ -48,7 +48,8 @@ export function Drawer({ onShow }: { onShow: (ids: string[]) => void }) {
 
   return (
     <section aria-label="Check results" className="flex min-h-0 flex-col border-t border-line bg-paper" data-testid="drawer">
-      <div className="flex flex-wrap items-center gap-1 border-b border-line bg-white px-2" role="tablist" aria-label="Check results">
+      <div className="flex flex-wrap items-center gap-1 border-b border-line bg-white px-2">
+        <div className="flex flex-wrap items-center gap-1" role="tablist" aria-label="Check results">
         {TABS.map((t) => (
           <button key={t} type="button" role="tab" aria-selected={tab === t} onClick={() => { setTab(t); setOpen(true); }}
             className={`min-h-touch px-3 font-semibold ${tab === t ? 'border-b-4 border-accent text-ink' : 'border-b-4 border-transparent text-note'}`}>
@@ -56,6 +57,7 @@ export function Drawer({ onShow }: { onShow: (ids: string[]) => void }) {
             {t === 'Findings' && summary ? <span className="ml-1 text-sm font-normal num">({summary.blockers + summary.warnings + summary.notes})</span> : null}
           </button>
         ))}
+        </div>
         <span className="ml-auto flex items-center gap-3 pr-2 text-sm num" aria-live="polite" data-testid="check-summary">
           {checkState === 'checking' && <span className="text-note">Checking…</span>}
           {summary && (

@@ -47,9 +47,10 @@ export const Palette = memo(function Palette({ onPlace }: { onPlace: (kind: Node
                     e.dataTransfer.effectAllowed = 'copy';
                   }}
                   onClick={() => onPlace(kind)}
-                  aria-label={`Add ${KIND_LABELS[kind].toLowerCase()}`}
                 >
                   <Glyph kind={kind} size={30} material={kind === 'structure' || kind === 'crossarm' ? 'wood' : undefined} phase="A" />
+                  {/* The name is the visible text with "Add" before it (no aria-label: a glyph's letter would not be in it). */}
+                  <span className="sr-only">Add </span>
                   {KIND_LABELS[kind]}
                 </button>
               </li>

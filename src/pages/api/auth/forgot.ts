@@ -1,10 +1,10 @@
 import { forgotPasswordBody } from '../../../lib/schemas/api';
 import { endpoint, json, readJson } from '../../../lib/server/http';
-import { sendPasswordReset } from '../../../lib/server/people-admin';
+import { requestPasswordReset } from '../../../lib/server/reset-request';
 
 /** Sends a reset link if the e-mail belongs to an active person; the answer is the same either way. */
 export const POST = endpoint(async (ctx) => {
   const body = await readJson(ctx, forgotPasswordBody, 4 * 1024);
-  await sendPasswordReset(body.email, ctx.url);
+  await requestPasswordReset(ctx, body.email);
   return json({ ok: true, message: 'If that e-mail belongs to an active account, a reset link is on its way.' });
 });

@@ -3,7 +3,7 @@ import { createPlan, describeStructure, listPlans } from '../../../../db/reposit
 import { createPlanBody, listPlansQuery } from '../../../lib/schemas/api';
 import { checkForOrganization } from '../../../lib/server/checking';
 import { requireRole, requireUser } from '../../../lib/server/guards';
-import { endpoint, json, readJson, readQuery } from '../../../lib/server/http';
+import { endpoint, json, PLAN_BODY_LIMIT, readJson, readQuery } from '../../../lib/server/http';
 import { planJson, summaryJson } from '../../../lib/server/plan-json';
 
 /** The organisation's plans, one page at a time: ?status=&q=&sort=&dir=&page=&pageSize= */
@@ -17,7 +17,7 @@ export const GET = endpoint(async (ctx) => {
 /** Creates a draft plan from `{title, structure?, document}`; the first revision carries its check. */
 export const POST = endpoint(async (ctx) => {
   const person = requireRole(ctx, 'crew_lead', 'admin');
-  const body = await readJson(ctx, createPlanBody);
+  const body = await readJson(ctx, createPlanBody, PLAN_BODY_LIMIT);
   const document = { ...body.document, title: body.title };
   const plan = await createPlan(getDb(), {
     organizationId: person.organizationId,

@@ -1,3 +1,4 @@
+import { readForm } from '../../../lib/server/forms';
 import type { APIRoute } from 'astro';
 import { getDb } from '../../../../db/connection';
 import { setCommentResolved } from '../../../../db/repositories/revisions';
@@ -16,7 +17,8 @@ export const POST: APIRoute = async (ctx) => {
   const id = idParam.safeParse(ctx.params.id);
   if (!id.success) return new Response('Plan not found', { status: 404 });
   const back = (query: string) => ctx.redirect(`/plans/${id.data}?${query}`, 303);
-  const form = await ctx.request.formData();
+  const form = await readForm(ctx.request);
+  if (form instanceof Response) return form;
   const action = String(form.get('action') ?? '');
   try {
     if (action === 'submit' && hasRole(person, 'crew_lead', 'admin')) {
