@@ -2,7 +2,7 @@
  * Browser sessions for the flows in tests/e2e: one Chromium per test file (launched before, closed
  * after), and a fresh context per signed-in person so their cookies never mix.
  */
-import type { Browser, BrowserContext, Page } from 'playwright-core';
+import type { Browser, BrowserContext, BrowserContextOptions, Page } from 'playwright-core';
 import { afterAll, beforeAll } from 'vitest';
 import { BASE_URL } from './api';
 import { launchBrowser } from './browser';
@@ -21,14 +21,14 @@ export function useBrowser() {
   });
   return {
     /** Signs a demo person in through the sign-in form and returns their page. */
-    async signIn(email: string): Promise<{ context: BrowserContext; page: Page }> {
-      const context = await browser.newContext({ viewport: { width: 1366, height: 900 }, acceptDownloads: true });
+    async signIn(email: string, options: BrowserContextOptions = {}): Promise<{ context: BrowserContext; page: Page }> {
+      const context = await browser.newContext({ viewport: { width: 1366, height: 900 }, acceptDownloads: true, ...options });
       contexts.push(context);
       const page = await context.newPage();
       await page.goto(`${BASE_URL}/login`);
       await page.getByLabel('E-mail').fill(email);
       await page.getByLabel('Password').fill(DEMO_PASSWORD);
-      await page.getByRole('button', { name: 'Sign in' }).click();
+      await (options.hasTouch ? page.getByRole('button', { name: 'Sign in' }).tap() : page.getByRole('button', { name: 'Sign in' }).click());
       await page.waitForURL((url) => url.pathname !== '/login');
       return { context, page };
     },

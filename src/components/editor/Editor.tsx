@@ -257,13 +257,15 @@ export default function Editor({ plan, readOnly, approval = null, pins, canSubmi
           <TopBar status={plan.status} busy={busy} onFit={() => rf.current?.fitView({ padding: 0.2, duration: 200 })} onCheck={() => sync.current?.checkNow()}
             onRetrySave={() => void sync.current?.saveNow()} onExport={(w) => void doExport(w)} onImport={(f) => void doImport(f)}
             onSubmit={canSubmit && !readOnly ? () => void doSubmit() : undefined} historyHref={`/plans/${plan.id}/history`} />
-          {message && (
-            <div className="no-print flex items-center gap-3 border-b border-line bg-white px-4 py-1 text-sm" role="status" data-testid="editor-message">
-              <span className="flex-1">{message}</span>
-              <button type="button" className="btn" onClick={() => { store.getState().showMessage(null); store.getState().armLinkTool(null); }}>Dismiss</button>
-            </div>
-          )}
-          <div className="grid min-h-0 flex-1 grid-cols-[13rem_1fr_20rem]">
+          <div className="relative grid min-h-0 flex-1 grid-cols-[13rem_1fr_20rem]">
+            {/* Over the drawing, not above it: a message that pushed the canvas down would move
+                every symbol between a finger's two taps. */}
+            {message && (
+              <div className="no-print absolute left-1/2 top-2 z-20 flex max-w-[min(36rem,90%)] -translate-x-1/2 items-center gap-3 rounded-md border border-line bg-white px-3 py-1 text-sm shadow" role="status" data-testid="editor-message">
+                <span className="flex-1">{message}</span>
+                <button type="button" className="btn" onClick={() => { store.getState().showMessage(null); store.getState().armLinkTool(null); }}>Dismiss</button>
+              </div>
+            )}
             {readOnly ? <div className="no-print border-r border-line bg-white p-3 text-sm text-note">Read only: {plan.status === 'draft' || plan.status === 'returned' ? 'your role may view this plan, not change it.' : `the plan is ${plan.status}.`}</div> : <div className="no-print min-h-0"><Palette onPlace={placeKind} /></div>}
             <div ref={canvasBox} className="bm-canvas-box min-h-0">
               <Canvas onInit={(inst) => (rf.current = inst)} />

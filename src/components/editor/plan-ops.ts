@@ -115,9 +115,23 @@ export function linkProblem(doc: PlanDocument, kind: LinkKind, from: string, to:
   return null;
 }
 
-export function addLink(doc: PlanDocument, kind: LinkKind, from: string, to: string): { doc: PlanDocument; id: string } | { error: string } {
+/** The link of this kind already joining these two nodes (either way round), if any. */
+export function sameLink(doc: PlanDocument, kind: LinkKind, from: string, to: string): PlanLink | undefined {
+  return doc.links.find((l) => l.kind === kind && ((l.from === from && l.to === to) || (l.from === to && l.to === from)));
+}
+
+/**
+ * Adds a link. A second link of the same kind between the same two nodes is refused unless
+ * `parallel` says the user asked for a parallel lead: an accidental copy would halve the computed
+ * touch voltage and make a plan look safer than it is.
+ */
+export function addLink(doc: PlanDocument, kind: LinkKind, from: string, to: string, parallel = false): { doc: PlanDocument; id: string } | { error: string } {
   const problem = linkProblem(doc, kind, from, to);
   if (problem) return { error: problem };
+  const twin = sameLink(doc, kind, from, to);
+  if (twin && !parallel) {
+    return { error: `${from} and ${to} are already joined by ${LINK_LABELS[kind].toLowerCase()} ${twin.id}. To add a second lead beside it, choose "Add a parallel lead" on ${twin.id}.` };
+  }
   const id = nextId(allIds(doc), LINK_PREFIX[kind]);
   const link: PlanLink =
     kind === 'jumper' ? { id, kind, from, to, cable: '2/0', lengthM: 3 } : kind === 'bond' ? { id, kind, from, to } : { id, kind, from, to };

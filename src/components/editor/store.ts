@@ -54,7 +54,9 @@ export interface EditorActions {
   moveNodes(moves: ReadonlyMap<string, ops.Point>): void;
   nudgeSelection(dx: number, dy: number): void;
   deleteSelection(): void;
-  connect(kind: LinkKind, from: string, to: string): string | null;
+  connect(kind: LinkKind, from: string, to: string, parallel?: boolean): string | null;
+  /** A second lead beside an existing jumper or bond, same ends and same properties. */
+  addParallel(linkId: string): string | null;
   armLinkTool(kind: LinkKind | null): void;
   tapElement(id: string, additive?: boolean): void;
   updateElement(element: PlanNode | PlanLink): void;
@@ -164,14 +166,30 @@ export function createEditorStore(init: EditorInit): EditorStore {
         const { doc, selection } = get();
         if (selection.length) commit(ops.removeElements(doc, selection), []);
       },
-      connect(kind, from, to) {
-        const result = ops.addLink(get().doc, kind, from, to);
+      connect(kind, from, to, parallel = false) {
+        const result = ops.addLink(get().doc, kind, from, to, parallel);
         if ('error' in result) {
           set({ message: result.error });
           return null;
         }
         commit(result.doc, [result.id]);
         set({ message: null });
+        return result.id;
+      },
+      addParallel(linkId) {
+        const link = get().doc.links.find((l) => l.id === linkId);
+        if (!link || link.kind === 'reach') return null;
+        const result = ops.addLink(get().doc, link.kind, link.from, link.to, true);
+        if ('error' in result) {
+          set({ message: result.error });
+          return null;
+        }
+        // Same cable, length and clamp as the lead beside it; its own set number and label.
+        const copy = { ...link, id: result.id } as Record<string, unknown>;
+        delete copy.label;
+        delete copy.equipmentId;
+        commit(ops.replaceElement(result.doc, copy as PlanLink), [result.id]);
+        set({ message: `Added ${result.id}, a parallel lead beside ${link.id}.` });
         return result.id;
       },
       armLinkTool(kind) {

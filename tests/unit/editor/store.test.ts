@@ -123,6 +123,27 @@ describe('editor store', () => {
     expect(parsePlan(store.getState().doc).ok).toBe(true);
   });
 
+  it('refuses a second identical link unless a parallel lead is asked for', () => {
+    const store = fresh();
+    const before = store.getState().doc.links.length;
+    // jA already joins A and CB; the same pair either way round is refused with a reason.
+    expect(store.getState().connect('jumper', 'CB', 'A')).toBeNull();
+    expect(store.getState().message).toMatch(/already joined by jumper jA/);
+    store.getState().armLinkTool('jumper');
+    store.getState().tapElement('A');
+    store.getState().tapElement('CB');
+    expect(store.getState().doc.links).toHaveLength(before);
+    // A bond between the same two nodes is a different link and is allowed.
+    expect(store.getState().connect('bond', 'A', 'CB')).not.toBeNull();
+    const id = store.getState().addParallel('jA');
+    expect(id).not.toBeNull();
+    const copy = store.getState().doc.links.find((l) => l.id === id)!;
+    const original = store.getState().doc.links.find((l) => l.id === 'jA')!;
+    expect(copy).toMatchObject({ kind: 'jumper', from: 'A', to: 'CB', cable: (original as { cable: string }).cable });
+    store.getState().undo();
+    expect(store.getState().doc.links.some((l) => l.id === id)).toBe(false);
+  });
+
   it('read-only stores refuse every edit', () => {
     const store = createEditorStore({ doc: starter(), readOnly: true });
     const doc = store.getState().doc;

@@ -55,7 +55,7 @@ export const PlanNodeView = memo(function PlanNodeView({ id, data, selected }: N
       aria-label={`${data.label ?? data.kind} (${id})${severity ? `, ${WORD[severity]}` : ''}`}
     >
       <div
-        className="relative flex h-14 w-14 items-center justify-center rounded-lg bg-white"
+        className="bm-glyph-box relative flex h-14 w-14 items-center justify-center rounded-lg bg-white"
         style={{ outline: `${severity ? 3 : 2}px ${severity === 'warning' ? 'dashed' : 'solid'} ${ring}`, outlineOffset: 2, boxShadow: selected ? '0 0 0 6px rgba(15,118,110,.18)' : undefined }}
       >
         <Glyph kind={data.kind} material={material} phase={phase} />
