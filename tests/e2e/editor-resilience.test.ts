@@ -5,7 +5,7 @@
 import type { Page } from 'playwright-core';
 import { expect, it } from 'vitest';
 import { BASE_URL } from '../helpers/api';
-import { useBrowser } from '../helpers/e2e';
+import { fillFaultData, useBrowser } from '../helpers/e2e';
 
 const browser = useBrowser();
 const signedInPage = () => browser.signIn('lead@demo.test');
@@ -13,6 +13,7 @@ const signedInPage = () => browser.signIn('lead@demo.test');
 
 async function newPlan(page: Page, title: string, starter?: RegExp): Promise<string> {
   await page.goto(`${BASE_URL}/plans/new`);
+  await fillFaultData(page);
   await page.getByLabel('Title').fill(title);
   if (starter) await page.getByLabel(starter).check();
   await page.getByRole('button', { name: 'Create plan' }).click();

@@ -4,7 +4,7 @@ import { extractText, getDocumentProxy } from 'unpdf';
 import { expect, it } from 'vitest';
 import { pdfText } from '../../src/components/editor/export';
 import { BASE_URL } from '../helpers/api';
-import { useBrowser } from '../helpers/e2e';
+import { fillFaultData, useBrowser } from '../helpers/e2e';
 
 const browser = useBrowser();
 
@@ -18,6 +18,7 @@ it('a crew lead draws from a starter, sees the check follow each change, reloads
   page.on('pageerror', (e) => errors.push(e.message));
 
   await page.goto(`${BASE_URL}/plans/new`);
+  await fillFaultData(page);
   await page.getByLabel('Title').fill(`Editor flow ${Date.now()}`);
   await page.getByLabel(/Tangent pole, bucket work/).check();
   await page.getByRole('button', { name: 'Create plan' }).click();

@@ -8,7 +8,7 @@ import type { Page } from 'playwright-core';
 import { extractText, getDocumentProxy } from 'unpdf';
 import { expect, it } from 'vitest';
 import { BASE_URL } from '../helpers/api';
-import { useBrowser } from '../helpers/e2e';
+import { fillFaultData, useBrowser } from '../helpers/e2e';
 
 const browser = useBrowser();
 const signIn = async (email: string) => (await browser.signIn(email)).page;
@@ -23,6 +23,7 @@ it('submit, return with a pinned comment, fix, resubmit, approve, and read in th
   // Crew lead: a plan from a starter, submitted from the editor's top bar.
   const lead = await signIn('lead@demo.test');
   await lead.goto(`${BASE_URL}/plans/new`);
+  await fillFaultData(lead);
   await lead.getByLabel('Title').fill(title);
   await lead.getByLabel(/Tangent pole, bucket work/).check();
   await lead.getByRole('button', { name: 'Create plan' }).click();

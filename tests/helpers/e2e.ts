@@ -34,3 +34,10 @@ export function useBrowser() {
     },
   };
 }
+
+/** Fills the new-plan form's fault data (invented example values): a new plan starts without it. */
+export async function fillFaultData(page: Page, values = { faultKa: '10', clearingCycles: '15', xOverR: '10' }): Promise<void> {
+  await page.getByLabel('Available fault current (kA)').fill(values.faultKa);
+  await page.getByLabel('Clearing time (cycles)').fill(values.clearingCycles);
+  await page.getByLabel('X/R ratio').fill(values.xOverR);
+}

@@ -169,7 +169,7 @@ describe('Thevenin contacts against a direct solve with the body in the network'
       let worstA = 0;
       for (const phase of phases) {
         const bRe = new Float64Array(network.size);
-        bRe[network.indexOf.get(phase.id) as number] = plan.system.faultKa * 1000;
+        bRe[network.indexOf.get(phase.id) as number] = plan.system.faultKa! * 1000;
         const x = solveDense(lu, bRe, new Float64Array(network.size));
         const v = (i: number) => (i === REFERENCE ? [0, 0] : [x.re[i], x.im[i]]);
         const [pr, pi] = v(p);

@@ -76,7 +76,7 @@ export function analyseNetwork(plan: PlanDocument): NetworkFigures {
   const { jumperFrom, jumperTo, jumperAdmittance, jumperA, rodNode, rodOhms, rodA, rodV } = worst;
   if (factor) {
     const injections = phases.map((phase): Injection => ({ into: phase.index, outOf: REFERENCE }));
-    solveInjections(factor, injections, plan.system.faultKa * 1000, (k, column) => {
+    solveInjections(factor, injections, (plan.system.faultKa ?? NaN) * 1000, (k, column) => {
       for (let c = 0; c < contactStand.length; c++) {
         const touchVolts = column.magnitudeBetween(contactStand[c], contactSurface[c]);
         const bodyAmps = touchVolts / contactLoop[c];

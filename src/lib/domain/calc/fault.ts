@@ -43,15 +43,18 @@ export function parallelForceNPerM(currentA: number, spacingM: number): number {
  * asymmetrical rms kA, κ (IEC 60909-0), first peak kA and the first-peak force N/m on phase leads.
  */
 export function computeFault(system: PlanDocument['system']): FaultFigures {
-  const durationS = faultDurationS(system.clearingCycles, system.frequencyHz);
-  const df = decrementFactor(system.xOverR, durationS, system.frequencyHz);
-  const kappa = peakFactor(system.xOverR);
-  const peakKa = kiloamps(kappa * Math.SQRT2 * system.faultKa);
+  // Missing system data (a new plan) gives NaN figures; the checker blocks on it by name.
+  const faultKa = system.faultKa ?? NaN;
+  const xOverR = system.xOverR ?? NaN;
+  const durationS = faultDurationS(system.clearingCycles ?? NaN, system.frequencyHz);
+  const df = decrementFactor(xOverR, durationS, system.frequencyHz);
+  const kappa = peakFactor(xOverR);
+  const peakKa = kiloamps(kappa * Math.SQRT2 * faultKa);
   return {
-    symmetricalKa: system.faultKa,
+    symmetricalKa: faultKa,
     durationS,
     decrementFactor: df,
-    asymmetricalKa: df * system.faultKa,
+    asymmetricalKa: df * faultKa,
     peakFactor: kappa,
     peakKa,
     peakForceNPerM: system.phaseSpacingM === undefined ? null : parallelForceNPerM(toAmps(peakKa), system.phaseSpacingM),

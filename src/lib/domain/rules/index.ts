@@ -21,6 +21,7 @@ import { checkReachInsulating } from './reach-insulating';
 import { checkRodBarricade } from './rod-barricade';
 import { checkStandNotConductive } from './stand-not-conductive';
 import { checkSurfaceOutsideZone } from './surface-outside-zone';
+import { checkSystemDataMissing } from './system-data-missing';
 import type { Finding, Rule, RuleContext } from './types';
 import { checkZoneUngrounded } from './zone-ungrounded';
 
@@ -46,6 +47,7 @@ export const RULES: Readonly<Record<string, Rule>> = {
   'reach-insulating': checkReachInsulating,
   'clearing-outside-range': checkClearingOutsideRange,
   'figure-invalid': checkFigureInvalid,
+  'system-data-missing': checkSystemDataMissing,
 };
 
 function compareElements(a: string[], b: string[]): number {
