@@ -16,6 +16,7 @@ import { createApi } from './api-client';
 import { Canvas } from './Canvas';
 import { buildPdf, downloadBlob, fileBase, planJsonText, renderDrawingPng, renderElementPng, type SheetMeta } from './export';
 import { commandFor, isTypingTarget } from './keyboard';
+import { BondCaution } from './panels/BondCaution';
 import { ConflictDialog } from './panels/ConflictDialog';
 import { Drawer } from './panels/Drawer';
 import { ImportProblems } from './panels/ImportDialog';
@@ -285,6 +286,7 @@ export default function Editor({ plan, readOnly, approval = null, pins, canSubmi
             }}
             onKeepMine={() => { store.getState().keepMine(); void sync.current?.saveNow(); }} />
         )}
+        <BondCaution />
         {importIssues && <ImportProblems fileName={importIssues.name} issues={importIssues.issues} onClose={() => setImportIssues(null)} />}
       </ReactFlowProvider>
     </EditorStoreContext.Provider>

@@ -115,6 +115,27 @@ export function linkProblem(doc: PlanDocument, kind: LinkKind, from: string, to:
   return null;
 }
 
+const GROUND_KINDS = new Set<NodeKind>(['ground-rod', 'earth', 'pole-ground', 'neutral', 'shield-wire']);
+
+/**
+ * Why a bond between these two nodes is probably a mistake, or null. A bond is an existing
+ * permanent connection and is checked for no rating; a phase, or the leads from the cluster bar
+ * to the neutral or to ground, carry the fault current and need a rated jumper.
+ */
+export function bondCaution(doc: PlanDocument, from: string, to: string): string | null {
+  const a = doc.nodes.find((n) => n.id === from);
+  const b = doc.nodes.find((n) => n.id === to);
+  if (!a || !b) return null;
+  const kinds = [a.kind, b.kind];
+  const why = kinds.includes('phase')
+    ? 'joins a phase'
+    : kinds.includes('cluster-bar') && kinds.some((k) => GROUND_KINDS.has(k))
+      ? 'joins the cluster bar to the neutral or to ground'
+      : null;
+  if (!why) return null;
+  return `A bond is an existing permanent connection, and the check rates no cable or clamp on it. This one ${why}, where the fault current flows: draw a jumper there unless a permanent connection really is in place.`;
+}
+
 /** The link of this kind already joining these two nodes (either way round), if any. */
 export function sameLink(doc: PlanDocument, kind: LinkKind, from: string, to: string): PlanLink | undefined {
   return doc.links.find((l) => l.kind === kind && ((l.from === from && l.to === to) || (l.from === to && l.to === from)));

@@ -42,6 +42,8 @@ export interface EditorState {
   saveState: SaveState;
   saveIssues: PlanIssue[];
   conflict: ConflictInfo | null;
+  /** A bond drawn where a jumper belongs, waiting for the user to choose (see bondCaution). */
+  pendingBond: { from: string; to: string; caution: string } | null;
   /** Review comments pinned to elements: element id → the comment numbers shown on the canvas. */
   pins: Record<string, number[]>;
   /** For reading an approved plan: element id → sentences on what it does in the zone. */
@@ -57,6 +59,8 @@ export interface EditorActions {
   connect(kind: LinkKind, from: string, to: string, parallel?: boolean): string | null;
   /** A second lead beside an existing jumper or bond, same ends and same properties. */
   addParallel(linkId: string): string | null;
+  /** Settles a pending bond: draw it as a jumper instead, draw the bond anyway, or draw nothing. */
+  settleBond(choice: 'jumper' | 'bond' | 'cancel'): string | null;
   armLinkTool(kind: LinkKind | null): void;
   tapElement(id: string, additive?: boolean): void;
   updateElement(element: PlanNode | PlanLink): void;
@@ -137,6 +141,7 @@ export function createEditorStore(init: EditorInit): EditorStore {
       saveState: init.readOnly ? 'locked' : 'saved',
       saveIssues: [],
       conflict: null,
+      pendingBond: null,
       pins: init.pins ?? {},
       explanations: init.explanations ?? {},
 
@@ -167,6 +172,11 @@ export function createEditorStore(init: EditorInit): EditorStore {
         if (selection.length) commit(ops.removeElements(doc, selection), []);
       },
       connect(kind, from, to, parallel = false) {
+        const caution = kind === 'bond' && !ops.linkProblem(get().doc, kind, from, to) ? ops.bondCaution(get().doc, from, to) : null;
+        if (caution) {
+          set({ pendingBond: { from, to, caution }, message: null });
+          return null;
+        }
         const result = ops.addLink(get().doc, kind, from, to, parallel);
         if ('error' in result) {
           set({ message: result.error });
@@ -174,6 +184,18 @@ export function createEditorStore(init: EditorInit): EditorStore {
         }
         commit(result.doc, [result.id]);
         set({ message: null });
+        return result.id;
+      },
+      settleBond(choice) {
+        const pending = get().pendingBond;
+        set({ pendingBond: null, linkFrom: null });
+        if (!pending || choice === 'cancel') return null;
+        const result = ops.addLink(get().doc, choice, pending.from, pending.to);
+        if ('error' in result) {
+          set({ message: result.error });
+          return null;
+        }
+        commit(result.doc, [result.id]);
         return result.id;
       },
       addParallel(linkId) {
@@ -203,7 +225,7 @@ export function createEditorStore(init: EditorInit): EditorStore {
             return;
           }
           const made = get().connect(s.linkTool, s.linkFrom, id);
-          set({ linkFrom: made ? null : s.linkFrom });
+          set({ linkFrom: made || get().pendingBond ? null : s.linkFrom });
           return;
         }
         get().select([id], additive);

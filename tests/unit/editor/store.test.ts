@@ -133,8 +133,9 @@ describe('editor store', () => {
     store.getState().tapElement('A');
     store.getState().tapElement('CB');
     expect(store.getState().doc.links).toHaveLength(before);
-    // A bond between the same two nodes is a different link and is allowed.
-    expect(store.getState().connect('bond', 'A', 'CB')).not.toBeNull();
+    // A bond between the same two nodes is a different link and is allowed, once its caution is accepted.
+    expect(store.getState().connect('bond', 'A', 'CB')).toBeNull();
+    expect(store.getState().settleBond('bond')).not.toBeNull();
     const id = store.getState().addParallel('jA');
     expect(id).not.toBeNull();
     const copy = store.getState().doc.links.find((l) => l.id === id)!;
@@ -142,6 +143,28 @@ describe('editor store', () => {
     expect(copy).toMatchObject({ kind: 'jumper', from: 'A', to: 'CB', cable: (original as { cable: string }).cable });
     store.getState().undo();
     expect(store.getState().doc.links.some((l) => l.id === id)).toBe(false);
+  });
+
+  it('warns before a bond on a phase or between the cluster bar and ground, and offers a jumper', () => {
+    const store = fresh({ ...starter(), links: [] });
+    const count = () => store.getState().doc.links.length;
+    store.getState().armLinkTool('bond');
+    store.getState().tapElement('A');
+    store.getState().tapElement('CB');
+    expect(count()).toBe(0);
+    expect(store.getState().pendingBond?.caution).toMatch(/existing permanent connection.*joins a phase/);
+    expect(store.getState().settleBond('jumper')).toBe('j1');
+    expect(store.getState().doc.links[0]).toMatchObject({ kind: 'jumper', from: 'A', to: 'CB' });
+    store.getState().tapElement('CB');
+    store.getState().tapElement('N');
+    expect(store.getState().pendingBond?.caution).toMatch(/cluster bar to the neutral or to ground/);
+    store.getState().settleBond('cancel');
+    expect(count()).toBe(1);
+    // A bond between the bucket and the bar is what bonds are for: no caution.
+    store.getState().tapElement('BK');
+    store.getState().tapElement('CB');
+    expect(store.getState().pendingBond).toBeNull();
+    expect(store.getState().doc.links.at(-1)).toMatchObject({ kind: 'bond', from: 'BK', to: 'CB' });
   });
 
   it('read-only stores refuse every edit', () => {
