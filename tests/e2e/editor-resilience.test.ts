@@ -41,8 +41,10 @@ it('draws a climber on a wood pole from an empty canvas until the check is clear
   }
   await expect.poll(() => page.locator('.react-flow__node').evaluateAll((els) => els.map((e) => e.getAttribute('data-id')).sort().join(' ')), { timeout: 10000 }).toBe('A B CB N1 S1 W1');
 
-  // Phases are lettered A, B…; the worker stands on the cluster bar (the editor's first choice)
-  // and reaches a phase that is not grounded yet.
+  // Phases are lettered A, B…; a new worker stands on nothing until chosen: the cluster bar here.
+  // The worker reaches a phase that is not grounded yet.
+  await page.getByTestId('inspector').getByLabel('Stands on').selectOption('CB');
+  await page.getByTestId('inspector').getByRole('button', { name: 'Apply' }).click();
   await connect(page, 'Reach', 'W1', 'A');
   await expect.poll(() => findings(page, 'blocker').count(), { timeout: 10000 }).toBeGreaterThan(0);
   const rules = await findings(page, 'blocker').evaluateAll((items) => items.map((li) => li.getAttribute('data-rule')));

@@ -21,9 +21,6 @@ export const KIND_LABELS: Record<NodeKind, string> = {
 };
 export const LINK_LABELS: Record<LinkKind, string> = { jumper: 'Jumper', bond: 'Bond', reach: 'Reach' };
 
-/** Kinds a worker can stand on, in the order the editor prefers them for a new worker. */
-const STANDING = ['bucket', 'cluster-bar', 'mat', 'structure', 'truck', 'earth'] as const;
-
 export function allIds(doc: PlanDocument): Set<string> {
   return new Set([...doc.nodes.map((n) => n.id), ...doc.links.map((l) => l.id)]);
 }
@@ -56,34 +53,18 @@ export function createNode(doc: PlanDocument, kind: NodeKind, position: Point, s
       return { ...base, kind, lengthM: 2.4, diameterMm: 16, soilOhmM: 100 } as PlanNode;
     case 'bucket':
       return { ...base, kind, insulatedBoom: true } as PlanNode;
-    case 'worker': {
-      const target = standsOn ?? pickStanding(doc);
-      return { ...base, kind, standsOn: target ?? 'E' } as PlanNode;
-    }
+    case 'worker':
+      // Stands nowhere until the user chooses: a guessed footing could make a plan look safe.
+      return { ...base, kind, ...(standsOn ? { standsOn } : {}) } as PlanNode;
     default:
       return { ...base, kind } as PlanNode;
   }
 }
 
-/** Where a new worker stands: the first bucket, cluster bar, mat, … in the plan. */
-export function pickStanding(doc: PlanDocument): string | undefined {
-  for (const kind of STANDING) {
-    const found = doc.nodes.find((n) => n.kind === kind);
-    if (found) return found.id;
-  }
-  return undefined;
-}
-
-/** Adds a node; a worker with nothing to stand on gets an earth node beside it. */
+/** Adds a node (a worker stands on `standsOn` if given, else on nothing yet). */
 export function addNode(doc: PlanDocument, kind: NodeKind, position: Point, standsOn?: string): { doc: PlanDocument; id: string } {
-  let next = doc;
-  if (kind === 'worker' && !standsOn && !pickStanding(doc)) {
-    const earth = createNode(doc, 'earth', { x: position.x, y: position.y + 120 });
-    next = { ...doc, nodes: [...doc.nodes, earth] };
-    standsOn = earth.id;
-  }
-  const node = createNode(next, kind, position, standsOn);
-  return { doc: { ...next, nodes: [...next.nodes, node] }, id: node.id };
+  const node = createNode(doc, kind, position, standsOn);
+  return { doc: { ...doc, nodes: [...doc.nodes, node] }, id: node.id };
 }
 
 export function moveNodes(doc: PlanDocument, moves: ReadonlyMap<string, Point>): PlanDocument {
@@ -92,13 +73,19 @@ export function moveNodes(doc: PlanDocument, moves: ReadonlyMap<string, Point>):
 }
 
 /**
- * Removes nodes and links by id, with every link touching a removed node and every worker who
- * stood on one (a worker must stand on something; leaving them would break the document).
+ * Removes nodes and links by id, with every link touching a removed node. A worker who stood on a
+ * removed node stays and stands on nothing until the user chooses again (the check says so).
  */
 export function removeElements(doc: PlanDocument, ids: Iterable<string>): PlanDocument {
   const gone = new Set(ids);
-  for (const n of doc.nodes) if (n.kind === 'worker' && gone.has(n.standsOn)) gone.add(n.id);
-  const nodes = doc.nodes.filter((n) => !gone.has(n.id));
+  const nodes = doc.nodes
+    .filter((n) => !gone.has(n.id))
+    .map((n) => {
+      if (n.kind !== 'worker' || n.standsOn === undefined || !gone.has(n.standsOn)) return n;
+      const rest = { ...n };
+      delete rest.standsOn;
+      return rest;
+    });
   const links = doc.links.filter((l) => !gone.has(l.id) && !gone.has(l.from) && !gone.has(l.to));
   return nodes.length === doc.nodes.length && links.length === doc.links.length ? doc : { ...doc, nodes, links };
 }
@@ -194,8 +181,11 @@ export function pasteClipboard(doc: PlanDocument, clip: Clipboard, offset: Point
     const p = n.position ?? { x: 0, y: 0 };
     const copy = { ...n, id: map.get(n.id)!, position: { x: p.x + offset.x, y: p.y + offset.y } } as PlanNode;
     if (copy.kind === 'worker') {
-      const stand = map.get(copy.standsOn) ?? (existing.has(copy.standsOn) ? copy.standsOn : undefined);
-      return { ...copy, standsOn: stand ?? pickStanding(doc) ?? copy.standsOn };
+      const was = copy.standsOn;
+      const stand = was === undefined ? undefined : (map.get(was) ?? (existing.has(was) ? was : undefined));
+      const rest = { ...copy };
+      delete rest.standsOn;
+      return stand ? { ...rest, standsOn: stand } : rest;
     }
     return copy;
   });

@@ -48,7 +48,7 @@ export interface PlanModel {
   plan: PlanDocument;
   /** Position of each node in `plan.nodes`, used for stable ordering. */
   nodeIndex: ReadonlyMap<string, number>;
-  node(id: string): PlanNode | undefined;
+  node(id: string | undefined): PlanNode | undefined;
   link(id: string): PlanLink | undefined;
   /** Human name for messages: `label (id)` when labelled, else the kind and id (`cluster bar CB`). */
   nameOf(id: string): string;
@@ -73,7 +73,7 @@ export function buildPlanModel(plan: PlanDocument): PlanModel {
   return {
     plan,
     nodeIndex,
-    node: (id) => nodeById.get(id),
+    node: (id) => (id === undefined ? undefined : nodeById.get(id)),
     link: (id) => linkById.get(id),
     nameOf(id) {
       const element = nodeById.get(id) ?? linkById.get(id);

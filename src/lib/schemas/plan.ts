@@ -119,7 +119,8 @@ export const nodeSchema = z.discriminatedUnion(
     z.object({ ...nodeBase, kind: z.literal('truck'), groundOhms: groundOhms() }).passthrough(),
     z.object({ ...nodeBase, kind: z.literal('mat') }).passthrough(),
     z.object({ ...nodeBase, kind: z.literal('pole-ground') }).passthrough(),
-    z.object({ ...nodeBase, kind: z.literal('worker'), standsOn: id() }).passthrough(),
+    // A new worker stands nowhere until the user says where (the check blocks until then).
+    z.object({ ...nodeBase, kind: z.literal('worker'), standsOn: id().optional() }).passthrough(),
   ],
   {
     errorMap: (issue, ctx) =>

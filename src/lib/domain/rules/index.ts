@@ -23,6 +23,7 @@ import { checkStandNotConductive } from './stand-not-conductive';
 import { checkSurfaceOutsideZone } from './surface-outside-zone';
 import { checkSystemDataMissing } from './system-data-missing';
 import type { Finding, Rule, RuleContext } from './types';
+import { checkWorkerStandsNowhere } from './worker-stands-nowhere';
 import { checkZoneUngrounded } from './zone-ungrounded';
 
 export type { Finding, Rule, RuleContext } from './types';
@@ -48,6 +49,7 @@ export const RULES: Readonly<Record<string, Rule>> = {
   'clearing-outside-range': checkClearingOutsideRange,
   'figure-invalid': checkFigureInvalid,
   'system-data-missing': checkSystemDataMissing,
+  'worker-stands-nowhere': checkWorkerStandsNowhere,
 };
 
 function compareElements(a: string[], b: string[]): number {
