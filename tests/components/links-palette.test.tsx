@@ -21,9 +21,9 @@ const setup = () => {
 describe('the link tools', () => {
   it('say in one line each what a jumper, a bond and a reach are', () => {
     setup();
-    expect(screen.getByTestId('link-hint-jumper').textContent).toMatch(/temporary grounding lead.*rated/i);
-    expect(screen.getByTestId('link-hint-bond').textContent).toMatch(/permanent connection.*never.*phase/i);
-    expect(screen.getByTestId('link-hint-reach').textContent).toMatch(/worker can touch.*no current/i);
+    expect(screen.getByTestId('tool-hint-jumper').textContent).toMatch(/temporary grounding lead.*rated/i);
+    expect(screen.getByTestId('tool-hint-bond').textContent).toMatch(/permanent connection.*never.*phase/i);
+    expect(screen.getByTestId('tool-hint-reach').textContent).toMatch(/worker can touch.*no current/i);
   });
 
   it('ask before a bond on a phase and draw a jumper when asked to', async () => {

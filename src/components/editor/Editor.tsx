@@ -17,6 +17,7 @@ import { Canvas } from './Canvas';
 import { buildPdf, downloadBlob, fileBase, planJsonText, renderDrawingPng, renderElementPng, type SheetMeta } from './export';
 import { commandFor, isTypingTarget } from './keyboard';
 import { BondCaution } from './panels/BondCaution';
+import { SignedOutDialog } from './panels/SignedOutDialog';
 import { ConflictDialog } from './panels/ConflictDialog';
 import { Drawer } from './panels/Drawer';
 import { ImportProblems } from './panels/ImportDialog';
@@ -287,6 +288,7 @@ export default function Editor({ plan, readOnly, approval = null, pins, canSubmi
             onKeepMine={() => { store.getState().keepMine(); void sync.current?.saveNow(); }} />
         )}
         <BondCaution />
+        <SignedOutDialog planId={plan.id} onResume={() => void sync.current?.resumeAfterSignIn()} />
         {importIssues && <ImportProblems fileName={importIssues.name} issues={importIssues.issues} onClose={() => setImportIssues(null)} />}
       </ReactFlowProvider>
     </EditorStoreContext.Provider>

@@ -9,8 +9,8 @@ import type { UnitSystem } from '../../lib/domain/units';
 import type { LinkKind, NodeKind, PlanCriteria, PlanDocument, PlanIssue, PlanLink, PlanNode, PlanSystem } from '../../lib/schemas/plan';
 import * as ops from './plan-ops';
 
-export type SaveState = 'saved' | 'unsaved' | 'saving' | 'offline' | 'conflict' | 'invalid' | 'locked';
-export type CheckState = 'idle' | 'checking' | 'done' | 'invalid' | 'offline';
+export type SaveState = 'saved' | 'unsaved' | 'saving' | 'offline' | 'conflict' | 'invalid' | 'locked' | 'signed-out' | 'forbidden' | 'too-large';
+export type CheckState = 'idle' | 'checking' | 'done' | 'invalid' | 'offline' | 'signed-out' | 'too-large';
 
 /** What the server holds when a save was refused as stale. */
 export interface ConflictInfo {

@@ -78,7 +78,7 @@ export const Palette = memo(function Palette({ onPlace }: { onPlace: (kind: Node
                 <span className={linkTool === kind ? 'rounded bg-white px-0.5' : ''}><LineSample kind={kind} /></span>
                 {LINK_LABELS[kind]}
               </button>
-              <p className="px-2 pb-1 text-xs leading-snug text-note" data-testid={`link-hint-${kind}`}>{LINK_HINTS[kind]}</p>
+              <p className="px-2 pb-1 text-xs leading-snug text-note" data-testid={`tool-hint-${kind}`}>{LINK_HINTS[kind]}</p>
             </li>
           ))}
         </ul>
