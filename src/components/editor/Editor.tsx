@@ -31,7 +31,7 @@ import { createEditorStore, GRID, hasUnsavedWork, type EditorStore } from './sto
 import { readLocalDraft, startSync, type SyncHandle } from './sync';
 
 export interface EditorProps {
-  plan: { id: number; title: string; status: PlanStatus; currentRevision: number; document: PlanDocument; report: CheckReport | null };
+  plan: { id: number; title: string; status: PlanStatus; currentRevision: number; document: PlanDocument; report: CheckReport | null; structure?: string; preparer?: string; date?: string };
   readOnly: boolean;
   role: string;
   /** The approval of the revision shown, for the print sheet and PDF (null until approved). */
@@ -194,7 +194,7 @@ export default function Editor({ plan, readOnly, approval = null, pins, canSubmi
     return () => window.removeEventListener('keydown', onKey);
   }, [store]);
 
-  const meta: SheetMeta = { planId: plan.id, revision: baseRevision, status: plan.status, approval };
+  const meta: SheetMeta = { planId: plan.id, revision: baseRevision, status: plan.status, approval, structure: plan.structure, preparer: plan.preparer, date: plan.date };
   // Submitting saves first (the server checks what it has), then reloads into the read-only view.
   const doSubmit = async () => {
     setBusy('Submitting…');
@@ -219,7 +219,7 @@ export default function Editor({ plan, readOnly, approval = null, pins, canSubmi
     if (what === 'json') return downloadBlob(new Blob([planJsonText(s.doc)], { type: 'application/json' }), `${base}.json`);
     setBusy(what === 'pdf' ? 'Making PDF…' : 'Making PNG…');
     try {
-      const picture = canvasBox.current ? await renderDrawingPng(canvasBox.current) : null;
+      const picture = canvasBox.current ? await renderDrawingPng(canvasBox.current, 1600, 1000, what === 'pdf' ? 'jpeg' : 'png') : null;
       if (what === 'pdf') downloadBlob(await buildPdf(s.doc, s.report, meta, picture, s.units), `${base}.pdf`);
       else {
         flushSync(() => {
