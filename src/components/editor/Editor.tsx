@@ -69,6 +69,13 @@ export default function Editor({ plan, readOnly, approval = null, pins, canSubmi
   const baseRevision = useStore(store, (s) => s.baseRevision);
   // The print sheet is drawn only when it is needed (print, PNG), so dragging never re-renders it.
   const [sheetOpen, setSheetOpen] = useState(false);
+  // Side panels fold away; on a phone they start folded and open over the drawing.
+  const [panels, setPanels] = useState(() => {
+    const wide = typeof window === 'undefined' || window.innerWidth >= 768;
+    return { tools: wide, props: wide };
+  });
+  const fold = (key: 'tools' | 'props') => setPanels((p) => ({ ...p, [key]: !p[key] }));
+  const columns = panels.tools && panels.props ? 'md:grid-cols-[13rem_1fr_20rem]' : panels.tools ? 'md:grid-cols-[13rem_1fr]' : panels.props ? 'md:grid-cols-[1fr_20rem]' : 'md:grid-cols-1';
   const [busy, setBusy] = useState<string | null>(null);
   const [importIssues, setImportIssues] = useState<{ name: string; issues: PlanIssue[] } | null>(null);
   const [drawing, setDrawing] = useState<string | null>(null);
@@ -255,11 +262,11 @@ export default function Editor({ plan, readOnly, approval = null, pins, canSubmi
   return (
     <EditorStoreContext.Provider value={store}>
       <ReactFlowProvider>
-        <div className="bm-editor flex h-[calc(100vh-57px)] min-h-[560px] flex-col bg-paper" data-testid="editor" data-ready="true">
+        <div className="bm-editor flex flex-col bg-paper md:h-[calc(100vh-57px)] md:min-h-[560px]" data-testid="editor" data-ready="true">
           <TopBar status={plan.status} busy={busy} onFit={() => rf.current?.fitView({ padding: 0.2, duration: 200 })} onCheck={() => sync.current?.checkNow()}
             onRetrySave={() => void sync.current?.saveNow()} onExport={(w) => void doExport(w)} onImport={(f) => void doImport(f)}
             onSubmit={canSubmit && !readOnly ? () => void doSubmit() : undefined} historyHref={`/plans/${plan.id}/history`} />
-          <div className="relative grid min-h-0 flex-1 grid-cols-[13rem_1fr_20rem]">
+          <div className={`relative grid min-h-0 flex-1 grid-cols-1 ${columns}`}>
             {/* Over the drawing, not above it: a message that pushed the canvas down would move
                 every symbol between a finger's two taps. */}
             {message && (
@@ -268,11 +275,17 @@ export default function Editor({ plan, readOnly, approval = null, pins, canSubmi
                 <button type="button" className="btn" onClick={() => { store.getState().showMessage(null); store.getState().armLinkTool(null); }}>Dismiss</button>
               </div>
             )}
-            {readOnly ? <div className="no-print border-r border-line bg-white p-3 text-sm text-note">Read only: {plan.status === 'draft' || plan.status === 'returned' ? 'your role may view this plan, not change it.' : `the plan is ${plan.status}.`}</div> : <div className="no-print min-h-0"><Palette onPlace={placeKind} /></div>}
-            <div ref={canvasBox} className="bm-canvas-box min-h-0">
+            {panels.tools && (readOnly
+              ? <div className="no-print absolute inset-y-0 left-0 z-30 w-52 border-r border-line bg-white p-3 text-sm text-note shadow md:static md:w-auto md:shadow-none" data-testid="tools-panel">Read only: {plan.status === 'draft' || plan.status === 'returned' ? 'your role may view this plan, not change it.' : `the plan is ${plan.status}.`}</div>
+              : <div className="no-print absolute inset-y-0 left-0 z-30 w-52 min-h-0 shadow md:static md:w-auto md:shadow-none" data-testid="tools-panel"><Palette onPlace={placeKind} /></div>)}
+            <div ref={canvasBox} className="bm-canvas-box relative min-h-[55vh] min-w-0 md:min-h-0">
+              <div className="no-print absolute bottom-2 right-2 z-10 flex gap-1">
+                <button type="button" className="btn bg-white text-sm" aria-pressed={panels.tools} onClick={() => fold('tools')}>{panels.tools ? 'Fold tools' : 'Tools'}</button>
+                <button type="button" className="btn bg-white text-sm" aria-pressed={panels.props} onClick={() => fold('props')}>{panels.props ? 'Fold details' : 'Details'}</button>
+              </div>
               <Canvas onInit={(inst) => (rf.current = inst)} />
             </div>
-            <div className="no-print min-h-0"><Inspector /></div>
+            {panels.props && <div className="no-print absolute inset-y-0 right-0 z-30 w-72 min-h-0 shadow md:static md:w-auto md:shadow-none" data-testid="details-panel"><Inspector /></div>}
           </div>
           <div className="no-print"><Drawer onShow={centreOn} /></div>
         </div>
