@@ -19,6 +19,7 @@ import {
 } from './report';
 import { compareFindings, runRules } from './rules/index';
 import { missingSystemData } from './rules/system-data-missing';
+import type { UnitSystem } from './units';
 import { mapZones } from './zones';
 
 export const CALC_FAILED = 'calc-failed';
@@ -109,7 +110,12 @@ function toReportRod(rod: NetworkFigures['rods'][number]): ReportRod {
  * limits (IEEE Std 80, IEC 60909-0), cable and clamp ratings (ASTM F855, secondhand) and every rule
  * of rules/, returned as the version-1 check report. `calc` is replaceable for tests.
  */
-export function checkPlan(plan: PlanDocument, calc: CalcEntryPoints = defaultCalc): CheckReport {
+export interface CheckOptions {
+  /** Units for lengths in the findings' sentences (default metric); the report's figures stay SI. */
+  units?: UnitSystem;
+}
+
+export function checkPlan(plan: PlanDocument, calc: CalcEntryPoints = defaultCalc, options: CheckOptions = {}): CheckReport {
   const model = buildPlanModel(plan);
   const zones = mapZones(model);
   const { fault, tolerableBodyAmps, network, extra } = runCalc(plan, calc);
@@ -122,6 +128,7 @@ export function checkPlan(plan: PlanDocument, calc: CalcEntryPoints = defaultCal
     fault,
     tolerableBodyAmps,
     network,
+    units: options.units ?? 'metric',
     cableRatingKa(cable) {
       try {
         return calc.cableRating(cable, durationS, frequencyHz).ratingKa;

@@ -6,6 +6,7 @@ import type { CableSize, PlanDocument } from '../../schemas/plan';
 import type { FaultFigures, NetworkFigures } from '../calc/contract';
 import type { PlanModel } from '../plan-model';
 import type { Finding } from '../report';
+import type { UnitSystem } from '../units';
 import type { ZoneMap } from '../zones';
 
 export type { Finding, Severity } from '../report';
@@ -20,6 +21,8 @@ export interface RuleContext {
   network: NetworkFigures;
   /** Rating of a cable size for this plan's clearing time and frequency, kA, to suggest a size that suffices. */
   cableRatingKa(cable: CableSize): number;
+  /** The units the findings' sentences give lengths in (the reader's choice; figures stay SI). */
+  units: UnitSystem;
 }
 
 export type Rule = (ctx: RuleContext) => Finding[];
