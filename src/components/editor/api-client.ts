@@ -29,7 +29,7 @@ export type SaveResult =
   | { kind: 'error'; message: string };
 
 export interface EditorApi {
-  check(doc: PlanDocument, signal?: AbortSignal): Promise<CheckResult>;
+  check(doc: PlanDocument, signal?: AbortSignal, units?: 'metric' | 'imperial'): Promise<CheckResult>;
   save(planId: number, body: { expectedRevision: number; title?: string; document: PlanDocument }): Promise<SaveResult>;
 }
 
@@ -62,8 +62,8 @@ function refused(status: number, body: unknown): RefusedResult | null {
 
 export function createApi(fetchImpl: typeof fetch = (...a) => fetch(...a), base = ''): EditorApi {
   return {
-    async check(doc, signal) {
-      const r = await send(fetchImpl, `${base}/api/check`, { method: 'POST', body: JSON.stringify(doc), signal });
+    async check(doc, signal, units = 'metric') {
+      const r = await send(fetchImpl, `${base}/api/check?units=${units}`, { method: 'POST', body: JSON.stringify(doc), signal });
       if (r === 'offline' || r.status >= 502) return { kind: 'offline' };
       if (r.status === 200) return { kind: 'ok', report: r.body as CheckReport };
       const no = refused(r.status, r.body);

@@ -78,7 +78,7 @@ export function startSync(store: EditorStore, opts: SyncOptions): SyncHandle {
     checkAbort = new AbortController();
     store.getState().setCheckState('checking', store.getState().checkIssues);
     try {
-      const r = await api.check(store.getState().doc, checkAbort.signal);
+      const r = await api.check(store.getState().doc, checkAbort.signal, store.getState().units);
       if (seq !== checkSeq || stopped) return;
       if (r.kind === 'ok') store.getState().receiveReport(r.report);
       else if (r.kind === 'invalid') store.getState().setCheckState('invalid', r.issues);
@@ -170,7 +170,8 @@ export function startSync(store: EditorStore, opts: SyncOptions): SyncHandle {
   };
 
   const unsubscribe = store.subscribe((state, prev) => {
-    if (state.doc !== prev.doc) scheduleCheck();
+    // The findings' sentences follow the unit choice, so a switch asks for them again.
+    if (state.doc !== prev.doc || state.units !== prev.units) scheduleCheck();
     if (state.version !== prev.version && !state.readOnly) {
       clearTimeout(localTimer);
       localTimer = setTimeout(writeLocal, 200);
