@@ -3,6 +3,7 @@
  * never mutating its input, so undo is a list of earlier documents and every edit is testable
  * without React.
  */
+import { METRES_PER_FOOT, type UnitSystem } from '../../lib/domain/units';
 import type { LinkKind, NodeKind, PlanDocument, PlanLink, PlanNode } from '../../lib/schemas/plan';
 
 export interface Point { x: number; y: number }
@@ -35,7 +36,16 @@ export function nextId(taken: Set<string>, prefix: string): string {
 export const snapPoint = (p: Point, grid: number): Point => ({ x: Math.round(p.x / grid) * grid, y: Math.round(p.y / grid) * grid });
 
 /** A new node of `kind` with the defaults a crew would start from (edit them in the inspector). */
-export function createNode(doc: PlanDocument, kind: NodeKind, position: Point, standsOn?: string): PlanNode {
+/**
+ * Defaults a crew would start from, round in the units they work in: an 8 ft rod of 5/8 in and
+ * 10 ft leads, or a 2.4 m rod of 16 mm and 3 m leads (common sizes; edit them to the job).
+ */
+const DEFAULTS: Record<UnitSystem, { rodM: number; rodMm: number; leadM: number }> = {
+  imperial: { rodM: 8 * METRES_PER_FOOT, rodMm: (5 / 8) * 25.4, leadM: 10 * METRES_PER_FOOT },
+  metric: { rodM: 2.4, rodMm: 16, leadM: 3 },
+};
+
+export function createNode(doc: PlanDocument, kind: NodeKind, position: Point, standsOn?: string, units: UnitSystem = 'metric'): PlanNode {
   const taken = allIds(doc);
   const id = nextId(taken, NODE_PREFIX[kind]);
   const base = { id, label: KIND_LABELS[kind], position };
@@ -50,7 +60,7 @@ export function createNode(doc: PlanDocument, kind: NodeKind, position: Point, s
     case 'crossarm':
       return { ...base, kind, material: 'wood' } as PlanNode;
     case 'ground-rod':
-      return { ...base, kind, lengthM: 2.4, diameterMm: 16, soilOhmM: 100 } as PlanNode;
+      return { ...base, kind, lengthM: DEFAULTS[units].rodM, diameterMm: DEFAULTS[units].rodMm, soilOhmM: 100 } as PlanNode;
     case 'bucket':
       return { ...base, kind, insulatedBoom: true } as PlanNode;
     case 'worker':
@@ -62,8 +72,8 @@ export function createNode(doc: PlanDocument, kind: NodeKind, position: Point, s
 }
 
 /** Adds a node (a worker stands on `standsOn` if given, else on nothing yet). */
-export function addNode(doc: PlanDocument, kind: NodeKind, position: Point, standsOn?: string): { doc: PlanDocument; id: string } {
-  const node = createNode(doc, kind, position, standsOn);
+export function addNode(doc: PlanDocument, kind: NodeKind, position: Point, standsOn?: string, units: UnitSystem = 'metric'): { doc: PlanDocument; id: string } {
+  const node = createNode(doc, kind, position, standsOn, units);
   return { doc: { ...doc, nodes: [...doc.nodes, node] }, id: node.id };
 }
 
@@ -133,7 +143,7 @@ export function sameLink(doc: PlanDocument, kind: LinkKind, from: string, to: st
  * `parallel` says the user asked for a parallel lead: an accidental copy would halve the computed
  * touch voltage and make a plan look safer than it is.
  */
-export function addLink(doc: PlanDocument, kind: LinkKind, from: string, to: string, parallel = false): { doc: PlanDocument; id: string } | { error: string } {
+export function addLink(doc: PlanDocument, kind: LinkKind, from: string, to: string, parallel = false, units: UnitSystem = 'metric'): { doc: PlanDocument; id: string } | { error: string } {
   const problem = linkProblem(doc, kind, from, to);
   if (problem) return { error: problem };
   const twin = sameLink(doc, kind, from, to);
@@ -142,7 +152,7 @@ export function addLink(doc: PlanDocument, kind: LinkKind, from: string, to: str
   }
   const id = nextId(allIds(doc), LINK_PREFIX[kind]);
   const link: PlanLink =
-    kind === 'jumper' ? { id, kind, from, to, cable: '2/0', lengthM: 3 } : kind === 'bond' ? { id, kind, from, to } : { id, kind, from, to };
+    kind === 'jumper' ? { id, kind, from, to, cable: '2/0', lengthM: DEFAULTS[units].leadM } : kind === 'bond' ? { id, kind, from, to } : { id, kind, from, to };
   return { doc: { ...doc, links: [...doc.links, link] }, id };
 }
 

@@ -146,7 +146,7 @@ export function createEditorStore(init: EditorInit): EditorStore {
       explanations: init.explanations ?? {},
 
       addNode(kind, position) {
-        const { doc, id } = ops.addNode(get().doc, kind, place(position));
+        const { doc, id } = ops.addNode(get().doc, kind, place(position), undefined, get().units);
         commit(doc, [id]);
         return id;
       },
@@ -177,7 +177,7 @@ export function createEditorStore(init: EditorInit): EditorStore {
           set({ pendingBond: { from, to, caution }, message: null });
           return null;
         }
-        const result = ops.addLink(get().doc, kind, from, to, parallel);
+        const result = ops.addLink(get().doc, kind, from, to, parallel, get().units);
         if ('error' in result) {
           set({ message: result.error });
           return null;
@@ -190,7 +190,7 @@ export function createEditorStore(init: EditorInit): EditorStore {
         const pending = get().pendingBond;
         set({ pendingBond: null, linkFrom: null });
         if (!pending || choice === 'cancel') return null;
-        const result = ops.addLink(get().doc, choice, pending.from, pending.to);
+        const result = ops.addLink(get().doc, choice, pending.from, pending.to, false, get().units);
         if ('error' in result) {
           set({ message: result.error });
           return null;
