@@ -53,7 +53,9 @@ export const LinkEdge = memo(function LinkEdge({ id, sourceX, sourceY, targetX, 
   const style =
     data.kind === 'jumper' ? { stroke: INK, strokeWidth: 5 } : data.kind === 'bond' ? { stroke: INK, strokeWidth: 1.5 } : { stroke: INK, strokeWidth: 2.5, strokeDasharray: '0.5 6', strokeLinecap: 'round' as const };
   const halo = severity ? SEVERITY_COLOUR[severity] : selected ? '#0f766e' : null;
-  const tag = data.kind === 'jumper' ? cableTag(data.cable) : data.kind === 'bond' ? 'bond' : null;
+  // The name the findings use (label, else id) is on the drawing, beside the cable size.
+  const name = data.label?.trim() || id;
+  const tag = data.kind === 'jumper' ? `${name} · ${cableTag(data.cable)}` : data.kind === 'bond' ? `${name} bond` : null;
   return (
     <g data-testid={`link-${id}`} data-kind={data.kind} data-severity={severity ?? undefined}>
       {halo && <path d={path} fill="none" stroke={halo} strokeOpacity={0.4} strokeWidth={style.strokeWidth + 8} strokeLinecap="round" />}

@@ -1,0 +1,26 @@
+import { render } from '@testing-library/react';
+import { ReactFlowProvider } from 'reactflow';
+import { describe, expect, it } from 'vitest';
+import { LinkEdge } from '../../src/components/editor/edges/LinkEdge';
+import { EditorStoreContext } from '../../src/components/editor/selectors';
+import { createEditorStore } from '../../src/components/editor/store';
+import { findStarter } from '../../src/lib/domain/starters';
+import type { PlanLink } from '../../src/lib/schemas/plan';
+
+const draw = (link: PlanLink) => {
+  const store = createEditorStore({ doc: findStarter('tangent-bucket')!.build() });
+  const props = { id: link.id, source: link.from, target: link.to, sourceX: 0, sourceY: 0, targetX: 200, targetY: 0, sourcePosition: 'top', targetPosition: 'top', data: link, selected: false } as never;
+  return render(
+    <EditorStoreContext.Provider value={store}>
+      <ReactFlowProvider><svg><LinkEdge {...(props as object)} /></svg></ReactFlowProvider>
+    </EditorStoreContext.Provider>,
+  ).container.textContent;
+};
+
+describe('links on the drawing', () => {
+  it('show the name the findings use: the label, else the id, beside the cable size', () => {
+    expect(draw({ id: 'j11', kind: 'jumper', from: 'A', to: 'CB', cable: '2/0', lengthM: 3 })).toContain('j11 · 2/0');
+    expect(draw({ id: 'j12', kind: 'jumper', from: 'B', to: 'CB', cable: '4/0', lengthM: 3, label: 'Lead B' })).toContain('Lead B · 4/0');
+    expect(draw({ id: 'b3', kind: 'bond', from: 'BK', to: 'CB' })).toContain('b3 bond');
+  });
+});
