@@ -1,5 +1,5 @@
 import { render } from '@testing-library/react';
-import { ReactFlowProvider } from 'reactflow';
+import { ReactFlowProvider, type EdgeProps } from 'reactflow';
 import { describe, expect, it } from 'vitest';
 import { LinkEdge } from '../../src/components/editor/edges/LinkEdge';
 import { EditorStoreContext } from '../../src/components/editor/selectors';
@@ -9,10 +9,10 @@ import type { PlanLink } from '../../src/lib/schemas/plan';
 
 const draw = (link: PlanLink) => {
   const store = createEditorStore({ doc: findStarter('tangent-bucket')!.build() });
-  const props = { id: link.id, source: link.from, target: link.to, sourceX: 0, sourceY: 0, targetX: 200, targetY: 0, sourcePosition: 'top', targetPosition: 'top', data: link, selected: false } as never;
+  const props = { id: link.id, source: link.from, target: link.to, sourceX: 0, sourceY: 0, targetX: 200, targetY: 0, sourcePosition: 'top', targetPosition: 'top', data: link, selected: false } as unknown as EdgeProps<PlanLink>;
   return render(
     <EditorStoreContext.Provider value={store}>
-      <ReactFlowProvider><svg><LinkEdge {...(props as object)} /></svg></ReactFlowProvider>
+      <ReactFlowProvider><svg><LinkEdge {...props} /></svg></ReactFlowProvider>
     </EditorStoreContext.Provider>,
   ).container.textContent;
 };

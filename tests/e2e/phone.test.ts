@@ -40,3 +40,13 @@ it('the plan and library pages show the drawing on a phone with no sideways scro
   await page.goto(`${BASE_URL}${entry}`);
   await expectDrawingFits(page, 'library');
 });
+
+it('home cards never wrap a plan title one word per line', async () => {
+  const { page } = await browser.signIn('admin@demo.test', { viewport: { width: 820, height: 1000 } });
+  await page.goto(`${BASE_URL}/`);
+  const titles = page.getByTestId('plan-title');
+  expect(await titles.count()).toBeGreaterThan(0);
+  // Every title box is at least 14 rem wide (or the whole row), so words sit side by side.
+  const widths = await titles.evaluateAll((els) => els.map((el) => el.getBoundingClientRect().width));
+  for (const w of widths) expect(w).toBeGreaterThanOrEqual(200);
+});

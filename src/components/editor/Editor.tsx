@@ -204,6 +204,9 @@ export default function Editor({ plan, readOnly, approval = null, pins, canSubmi
   const meta: SheetMeta = { planId: plan.id, revision: baseRevision, status: plan.status, approval, structure: plan.structure, preparer: plan.preparer, date: plan.date };
   // Submitting saves first (the server checks what it has), then reloads into the read-only view.
   const doSubmit = async () => {
+    const blockers = store.getState().report?.summary.blockers ?? 0;
+    const ask = `Submit revision ${store.getState().baseRevision} of "${store.getState().doc.title}" for review? It cannot be edited while a reviewer decides.${blockers ? ` The check still finds ${blockers} blocker${blockers === 1 ? '' : 's'}, so the server will refuse it.` : ''}`;
+    if (!window.confirm(ask)) return;
     setBusy('Submitting…');
     try {
       await sync.current?.saveNow();
