@@ -116,8 +116,9 @@ export default function Editor({ plan, readOnly, approval = null, pins, canSubmi
         nodeIds.add(link.to);
       } else nodeIds.add(id);
     }
-    s.select(ids);
-    rf.current?.fitView({ nodes: [...nodeIds].map((id) => ({ id })), padding: 0.6, maxZoom: 1.3, duration: 300 });
+    s.flash(ids);
+    // Legible after the move: never zoomed out below 0.8 to fit, the drawing scrolls instead.
+    rf.current?.fitView({ nodes: [...nodeIds].map((id) => ({ id })), padding: 0.6, minZoom: 0.8, maxZoom: 1.3, duration: 300 });
   }, [store]);
 
   const placeKind = useCallback((kind: NodeKind) => {

@@ -48,6 +48,8 @@ export interface EditorState {
   pins: Record<string, number[]>;
   /** For reading an approved plan: element id → sentences on what it does in the zone. */
   explanations: Record<string, string[]>;
+  /** Elements briefly flashed on the drawing after "Show", and a counter so a repeat flashes again. */
+  flashing: { ids: string[]; seq: number };
 }
 
 export interface EditorActions {
@@ -79,6 +81,8 @@ export interface EditorActions {
   setUnits(units: UnitSystem): void;
   toggleSnap(): void;
   showMessage(message: string | null): void;
+  /** Selects these elements and flashes them on the drawing. */
+  flash(ids: string[]): void;
   receiveReport(report: CheckReport): void;
   setCheckState(state: CheckState, issues?: PlanIssue[]): void;
   setSaveState(state: SaveState, extra?: { issues?: PlanIssue[]; conflict?: ConflictInfo | null }): void;
@@ -144,6 +148,7 @@ export function createEditorStore(init: EditorInit): EditorStore {
       pendingBond: null,
       pins: init.pins ?? {},
       explanations: init.explanations ?? {},
+      flashing: { ids: [], seq: 0 },
 
       addNode(kind, position) {
         const { doc, id } = ops.addNode(get().doc, kind, place(position), undefined, get().units);
@@ -304,6 +309,10 @@ export function createEditorStore(init: EditorInit): EditorStore {
       },
       showMessage(message) {
         set({ message });
+      },
+      flash(ids) {
+        get().select(ids);
+        set({ flashing: { ids, seq: get().flashing.seq + 1 } });
       },
       receiveReport(report) {
         set({ report, checkState: 'done', checkIssues: [] });

@@ -44,12 +44,15 @@ export function PinMarkers({ id, className }: { id: string; className: string })
 export const PlanNodeView = memo(function PlanNodeView({ id, data, selected }: NodeProps<PlanNode>) {
   const severity = useEditor(selectSeverityOf(id));
   const linkFrom = useEditor((s) => s.linkFrom === id);
+  // A new key per "Show" restarts the flash animation.
+  const flash = useEditor((s) => (s.flashing.ids.includes(id) ? s.flashing.seq : 0));
   const material = data.kind === 'structure' || data.kind === 'crossarm' ? data.material : undefined;
   const phase = data.kind === 'phase' ? data.phase : undefined;
   const ring = severity ? SEVERITY_COLOUR[severity] : selected || linkFrom ? '#0f766e' : 'transparent';
   return (
     <div
-      className="bm-node relative flex flex-col items-center"
+      key={flash || undefined}
+      className={`bm-node relative flex flex-col items-center${flash ? ' bm-flash' : ''}`}
       data-kind={data.kind}
       data-severity={severity ?? undefined}
       aria-label={`${data.label ?? data.kind} (${id})${severity ? `, ${WORD[severity]}` : ''}`}
