@@ -49,7 +49,7 @@ function injectionsOf(plan: PlanDocument, network: ReturnType<typeof buildNetwor
   const nodeById = new Map(plan.nodes.map((n) => [n.id, n]));
   const contacts = plan.links.flatMap((l) => {
     const w = nodeById.get(l.from);
-    const p = w?.kind === 'worker' ? network.indexOf.get(w.standsOn) : undefined;
+    const p = w?.kind === 'worker' ? network.indexOf.get(w.standsOn ?? '') : undefined;
     const s = network.indexOf.get(l.to);
     return l.kind === 'reach' && p !== undefined && s !== undefined && p !== s ? [{ into: p, outOf: s }] : [];
   });

@@ -75,3 +75,21 @@ describe('the conflict dialog', () => {
     expect(onReloadTheirs).toHaveBeenCalledOnce();
   });
 });
+
+describe('identical findings', () => {
+  const clamp = (id: string): Finding => ({ rule: 'clamp-underrated', severity: 'blocker', elements: [id], message: `Jumper ${id} has clamps rated 10 kA, below the 12 kA it would carry.`, basis: 'Clamp ratings' });
+  it('read as one finding listing every lead, and Show shows them all', async () => {
+    const onShow = vi.fn();
+    render(<FindingsList findings={[...['jA', 'jB', 'jC', 'jD', 'jE', 'jF'].map(clamp), findings[3]]} onShow={onShow} />);
+    const items = screen.getAllByRole('listitem');
+    expect(items).toHaveLength(2);
+    expect(within(items[0]).getByTestId('finding-group')).toHaveTextContent('The same for 6 places: jA, jB, jC, jD, jE, jF');
+    await userEvent.click(within(items[0]).getByRole('button', { name: 'Show jA, jB, jC, jD, jE, jF' }));
+    expect(onShow.mock.calls[0][0].elements).toEqual(['jA', 'jB', 'jC', 'jD', 'jE', 'jF']);
+  });
+  it('different sentences stay apart', () => {
+    const other = { ...clamp('jB'), message: 'Jumper jB has clamps rated 8 kA, below the 12 kA it would carry.' };
+    render(<FindingsList findings={[clamp('jA'), other]} />);
+    expect(screen.getAllByRole('listitem')).toHaveLength(2);
+  });
+});

@@ -5,7 +5,7 @@
 import type { Page } from 'playwright-core';
 import { expect, it } from 'vitest';
 import { BASE_URL } from '../helpers/api';
-import { useBrowser } from '../helpers/e2e';
+import { fillFaultData, useBrowser } from '../helpers/e2e';
 
 const browser = useBrowser();
 const signedInPage = () => browser.signIn('lead@demo.test');
@@ -13,6 +13,7 @@ const signedInPage = () => browser.signIn('lead@demo.test');
 
 async function newPlan(page: Page, title: string, starter?: RegExp): Promise<string> {
   await page.goto(`${BASE_URL}/plans/new`);
+  await fillFaultData(page);
   await page.getByLabel('Title').fill(title);
   if (starter) await page.getByLabel(starter).check();
   await page.getByRole('button', { name: 'Create plan' }).click();
@@ -40,9 +41,11 @@ it('draws a climber on a wood pole from an empty canvas until the check is clear
   }
   await expect.poll(() => page.locator('.react-flow__node').evaluateAll((els) => els.map((e) => e.getAttribute('data-id')).sort().join(' ')), { timeout: 10000 }).toBe('A B CB N1 S1 W1');
 
-  // Phases are lettered A, B…; the worker stands on the cluster bar (the editor's first choice)
-  // and reaches a phase that is not grounded yet.
+  // Phases are lettered A, B…; a new worker stands on nothing until chosen: the cluster bar here.
+  // The worker reaches a phase that is not grounded yet.
   // Before the reach the plan is incomplete (a blocker too), so wait for the check of the reach itself.
+  await page.getByTestId('inspector').getByLabel('Stands on').selectOption('CB');
+  await page.getByTestId('inspector').getByRole('button', { name: 'Apply' }).click();
   await connect(page, 'Reach', 'W1', 'A');
   const blockerRules = () => findings(page, 'blocker').evaluateAll((items) => items.map((li) => li.getAttribute('data-rule')));
   await expect.poll(blockerRules, { timeout: 10000 }).toContain('phase-ungrounded');

@@ -4,7 +4,7 @@ import { extractText, getDocumentProxy } from 'unpdf';
 import { expect, it } from 'vitest';
 import { pdfText } from '../../src/components/editor/export';
 import { BASE_URL } from '../helpers/api';
-import { useBrowser } from '../helpers/e2e';
+import { fillFaultData, useBrowser } from '../helpers/e2e';
 
 const browser = useBrowser();
 
@@ -22,7 +22,9 @@ it('a crew lead draws from a starter, sees the check follow each change, reloads
   page.on('pageerror', (e) => errors.push(e.message));
 
   await page.goto(`${BASE_URL}/plans/new`);
+  await fillFaultData(page);
   await page.getByLabel('Title').fill(`Editor flow ${Date.now()}`);
+  await page.getByLabel('Structure', { exact: true }).fill('Pole 7 (wood)');
   await page.getByLabel(/Tangent pole, bucket work/).check();
   await page.getByRole('button', { name: 'Create plan' }).click();
   await page.waitForURL(/\/plans\/\d+$/);
@@ -80,12 +82,20 @@ it('a crew lead draws from a starter, sees the check follow each change, reloads
   await page.getByRole('menuitem', { name: 'PDF sheet' }).click();
   const download = await downloadPromise;
   expect(download.suggestedFilename()).toMatch(/^editor-flow-\d+-r\d+\.pdf$/);
-  const pdf = await getDocumentProxy(new Uint8Array(readFileSync((await download.path())!)));
+  const bytes = readFileSync((await download.path())!);
+  expect(bytes.length).toBeLessThan(1024 * 1024);
+  const pdf = await getDocumentProxy(new Uint8Array(bytes));
+  // US Letter by default: 8.5 × 11 in is 612 × 792 points.
+  expect((await pdf.getPage(1)).view.map(Math.round)).toEqual([0, 0, 612, 792]);
   const { text } = await extractText(pdf, { mergePages: true });
   const flat = (s: string) => s.replace(/\s+/g, ' ');
   expect(flat(text)).toContain('rod-barricade');
   expect(flat(text)).toContain(flat(pdfText(message)).slice(0, 40));
   expect(flat(text)).toContain('Not approved yet');
+  // The embedded font prints Ω itself, and the header names the structure.
+  expect(text).toContain('Ω');
+  expect(flat(text)).toContain('Structure: Pole 7 (wood)');
+  expect(flat(text)).toContain('Crew sign-on');
   expect(flat(text)).toContain('test for absence of voltage');
 
   mkdirSync('artifacts', { recursive: true });

@@ -8,7 +8,7 @@ import type { Page } from 'playwright-core';
 import { extractText, getDocumentProxy } from 'unpdf';
 import { expect, it } from 'vitest';
 import { BASE_URL } from '../helpers/api';
-import { useBrowser } from '../helpers/e2e';
+import { fillFaultData, useBrowser } from '../helpers/e2e';
 
 const browser = useBrowser();
 const signIn = async (email: string) => (await browser.signIn(email)).page;
@@ -23,6 +23,7 @@ it('submit, return with a pinned comment, fix, resubmit, approve, and read in th
   // Crew lead: a plan from a starter, submitted from the editor's top bar.
   const lead = await signIn('lead@demo.test');
   await lead.goto(`${BASE_URL}/plans/new`);
+  await fillFaultData(lead);
   await lead.getByLabel('Title').fill(title);
   await lead.getByLabel(/Tangent pole, bucket work/).check();
   await lead.getByRole('button', { name: 'Create plan' }).click();
@@ -30,8 +31,15 @@ it('submit, return with a pinned comment, fix, resubmit, approve, and read in th
   const planPath = new URL(lead.url()).pathname;
   await lead.locator('.react-flow__node[data-id="W1"]').waitFor();
   await saved(lead);
+  // Submitting asks first.
+  const asked: string[] = [];
+  lead.on('dialog', (d) => {
+    asked.push(d.message());
+    void d.accept();
+  });
   await lead.getByTestId('submit-plan').click();
   await expect.poll(() => statusOf(lead), { timeout: 15000 }).toBe('submitted');
+  expect(asked[0]).toMatch(/^Submit revision \d+ of ".*" for review\?/);
 
   // Reviewer: finds it in the queue, pins a comment to the neutral jumper, returns it.
   const reviewer = await signIn('reviewer@demo.test');
@@ -69,6 +77,7 @@ it('submit, return with a pinned comment, fix, resubmit, approve, and read in th
   await lead.locator('.react-flow__node[data-id="W1"]').waitFor();
   await lead.getByTestId('submit-plan').click();
   await expect.poll(() => statusOf(lead), { timeout: 15000 }).toBe('submitted');
+  expect(asked).toHaveLength(2);
 
   // A second reviewer approves with a teaching note; the first one had returned it.
   const second = await signIn('reviewer2@demo.test');

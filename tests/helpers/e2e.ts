@@ -28,9 +28,16 @@ export function useBrowser() {
       await page.goto(`${BASE_URL}/login`);
       await page.getByLabel('E-mail').fill(email);
       await page.getByLabel('Password').fill(DEMO_PASSWORD);
-      await page.getByRole('button', { name: 'Sign in' }).click();
+      await (options.hasTouch ? page.getByRole('button', { name: 'Sign in' }).tap() : page.getByRole('button', { name: 'Sign in' }).click());
       await page.waitForURL((url) => url.pathname !== '/login');
       return { context, page };
     },
   };
+}
+
+/** Fills the new-plan form's fault data (invented example values): a new plan starts without it. */
+export async function fillFaultData(page: Page, values = { faultKa: '10', clearingCycles: '15', xOverR: '10' }): Promise<void> {
+  await page.getByLabel('Available fault current (kA)').fill(values.faultKa);
+  await page.getByLabel('Clearing time (cycles)').fill(values.clearingCycles);
+  await page.getByLabel('X/R ratio').fill(values.xOverR);
 }

@@ -20,6 +20,10 @@ export interface CanvasProps {
 
 interface MenuState { x: number; y: number; id: string | null }
 const LONG_PRESS_MS = 550;
+/** How far a finger may wander and still tap, px. */
+const TAP_SLOP = 10;
+const nodeIdAt = (target: EventTarget | null): string | null =>
+  ((target as HTMLElement | null)?.closest?.('.react-flow__node') as HTMLElement | null)?.dataset.id ?? null;
 
 // Props React Flow copies into its own store whenever their identity changes, and every such copy
 // re-renders all nodes and edges: so constants live here and handlers below are stable callbacks.
@@ -41,6 +45,8 @@ export function Canvas({ onInit }: CanvasProps) {
   const wrapper = useRef<HTMLDivElement>(null);
   const [menu, setMenu] = useState<MenuState | null>(null);
   const press = useRef<{ timer: ReturnType<typeof setTimeout>; x: number; y: number } | null>(null);
+  // The one pointer gesture that can become a tap: where it went down and on which node.
+  const tap = useRef<{ pointerId: number; x: number; y: number; t: number; node: string | null } | null>(null);
 
   // Sizes React Flow measured, handed back on the nodes (see toFlowNodes); a new map only when one changes.
   const [sizes, setSizes] = useState<NodeSizes>(() => new Map());
@@ -118,7 +124,6 @@ export function Canvas({ onInit }: CanvasProps) {
   }, [store]);
   const onFlowInit = useCallback((inst: ReactFlowInstance) => { rf.current = inst; onInitRef.current(inst); }, []);
   const onNodeDragStart = useCallback(() => store.getState().beginMove(), [store]);
-  const onNodeClick = useCallback((e: React.MouseEvent, n: { id: string }) => { if (store.getState().linkTool) store.getState().tapElement(n.id, e.shiftKey); }, [store]);
   const onPaneClick = useCallback(() => { store.getState().clearSelection(); setMenu(null); }, [store]);
   const onElementContextMenu = useCallback((e: React.MouseEvent) => { e.preventDefault(); openMenuAt(e.clientX, e.clientY, e.target); }, [openMenuAt]);
   const onPaneContextMenu = useCallback((e: React.MouseEvent) => { e.preventDefault(); openMenuAt(e.clientX, e.clientY, null); }, [openMenuAt]);
@@ -127,6 +132,8 @@ export function Canvas({ onInit }: CanvasProps) {
     press.current = null;
   };
   const onPointerDown = (e: React.PointerEvent) => {
+    if (e.isPrimary) tap.current = { pointerId: e.pointerId, x: e.clientX, y: e.clientY, t: Date.now(), node: nodeIdAt(e.target) };
+    else tap.current = null; // a second finger: a pinch, never a tap
     if (e.pointerType === 'mouse') return;
     cancelPress();
     const { clientX, clientY, target } = e;
@@ -134,6 +141,23 @@ export function Canvas({ onInit }: CanvasProps) {
   };
   const onPointerMove = (e: React.PointerEvent) => {
     if (press.current && Math.hypot(e.clientX - press.current.x, e.clientY - press.current.y) > 10) cancelPress();
+  };
+  /**
+   * Every tap on a node, from a mouse, a finger or a pen, arrives here exactly once (one
+   * pointerdown–pointerup pair on the same node, short and still). Taps with a link tool armed
+   * draw links only here, so no input can deliver the same gesture twice; without a tool a tap
+   * selects the node wherever on its symbol it lands.
+   */
+  const onPointerUp = (e: React.PointerEvent) => {
+    cancelPress();
+    const t = tap.current;
+    tap.current = null;
+    if (!t || t.pointerId !== e.pointerId || !t.node || e.button > 0) return;
+    if (Math.hypot(e.clientX - t.x, e.clientY - t.y) > TAP_SLOP || Date.now() - t.t > LONG_PRESS_MS) return;
+    if (nodeIdAt(document.elementFromPoint(e.clientX, e.clientY)) !== t.node) return;
+    const s = store.getState();
+    if (s.linkTool) s.tapElement(t.node, e.shiftKey);
+    else if (!e.shiftKey && !e.ctrlKey && !e.metaKey) s.select([t.node]);
   };
   useEffect(() => cancelPress, []);
 
@@ -154,6 +178,8 @@ export function Canvas({ onInit }: CanvasProps) {
       for (const k of kinds) items.push({ label: `Draw ${k} from ${id}`, onSelect: () => { s.armLinkTool(k); store.getState().tapElement(id); } });
       items.push({ label: 'Add to selection', onSelect: () => store.getState().select([...store.getState().selection.filter((x) => x !== id), id]) });
     }
+    const link = s.doc.links.find((l) => l.id === id);
+    if (link && link.kind !== 'reach') items.push({ label: 'Add a parallel lead', onSelect: () => store.getState().addParallel(id) });
     items.push(
       { label: 'Copy', onSelect: () => store.getState().copySelection() },
       { label: 'Duplicate', onSelect: () => store.getState().duplicateSelection() },
@@ -169,7 +195,7 @@ export function Canvas({ onInit }: CanvasProps) {
       data-testid="canvas"
       onPointerDown={onPointerDown}
       onPointerMove={onPointerMove}
-      onPointerUp={cancelPress}
+      onPointerUp={onPointerUp}
       onPointerCancel={cancelPress}
       onDragOver={(e) => { if (e.dataTransfer.types.includes(DRAG_TYPE)) { e.preventDefault(); e.dataTransfer.dropEffect = 'copy'; } }}
       onDrop={onDrop}
@@ -183,15 +209,15 @@ export function Canvas({ onInit }: CanvasProps) {
         onNodesChange={onNodesChange}
         onEdgesChange={onEdgesChange}
         onNodeDragStart={onNodeDragStart}
-        onNodeClick={onNodeClick}
         onPaneClick={onPaneClick}
         onNodeContextMenu={onElementContextMenu}
         onEdgeContextMenu={onElementContextMenu}
         onPaneContextMenu={onPaneContextMenu}
         onConnect={onConnect}
         connectionMode={ConnectionMode.Loose}
+        connectOnClick={false}
         connectionRadius={36}
-        nodesConnectable={!readOnly}
+        nodesConnectable={!readOnly && !linkTool}
         nodesDraggable={!readOnly && !linkTool}
         elementsSelectable={!linkTool}
         snapToGrid={snap}

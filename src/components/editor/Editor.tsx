@@ -16,6 +16,8 @@ import { createApi } from './api-client';
 import { Canvas } from './Canvas';
 import { buildPdf, downloadBlob, fileBase, planJsonText, renderDrawingPng, renderElementPng, type SheetMeta } from './export';
 import { commandFor, isTypingTarget } from './keyboard';
+import { BondCaution } from './panels/BondCaution';
+import { SignedOutDialog } from './panels/SignedOutDialog';
 import { ConflictDialog } from './panels/ConflictDialog';
 import { Drawer } from './panels/Drawer';
 import { ImportProblems } from './panels/ImportDialog';
@@ -29,7 +31,7 @@ import { createEditorStore, GRID, hasUnsavedWork, type EditorStore } from './sto
 import { readLocalDraft, startSync, type SyncHandle } from './sync';
 
 export interface EditorProps {
-  plan: { id: number; title: string; status: PlanStatus; currentRevision: number; document: PlanDocument; report: CheckReport | null };
+  plan: { id: number; title: string; status: PlanStatus; currentRevision: number; document: PlanDocument; report: CheckReport | null; structure?: string; preparer?: string; date?: string };
   readOnly: boolean;
   role: string;
   /** The approval of the revision shown, for the print sheet and PDF (null until approved). */
@@ -67,6 +69,13 @@ export default function Editor({ plan, readOnly, approval = null, pins, canSubmi
   const baseRevision = useStore(store, (s) => s.baseRevision);
   // The print sheet is drawn only when it is needed (print, PNG), so dragging never re-renders it.
   const [sheetOpen, setSheetOpen] = useState(false);
+  // Side panels fold away; on a phone they start folded and open over the drawing.
+  const [panels, setPanels] = useState(() => {
+    const wide = typeof window === 'undefined' || window.innerWidth >= 768;
+    return { tools: wide, props: wide };
+  });
+  const fold = (key: 'tools' | 'props') => setPanels((p) => ({ ...p, [key]: !p[key] }));
+  const columns = panels.tools && panels.props ? 'md:grid-cols-[13rem_1fr_20rem]' : panels.tools ? 'md:grid-cols-[13rem_1fr]' : panels.props ? 'md:grid-cols-[1fr_20rem]' : 'md:grid-cols-1';
   const [busy, setBusy] = useState<string | null>(null);
   const [importIssues, setImportIssues] = useState<{ name: string; issues: PlanIssue[] } | null>(null);
   const [drawing, setDrawing] = useState<string | null>(null);
@@ -107,8 +116,9 @@ export default function Editor({ plan, readOnly, approval = null, pins, canSubmi
         nodeIds.add(link.to);
       } else nodeIds.add(id);
     }
-    s.select(ids);
-    rf.current?.fitView({ nodes: [...nodeIds].map((id) => ({ id })), padding: 0.6, maxZoom: 1.3, duration: 300 });
+    s.flash(ids);
+    // Legible after the move: never zoomed out below 0.8 to fit, the drawing scrolls instead.
+    rf.current?.fitView({ nodes: [...nodeIds].map((id) => ({ id })), padding: 0.6, minZoom: 0.8, maxZoom: 1.3, duration: 300 });
   }, [store]);
 
   const placeKind = useCallback((kind: NodeKind) => {
@@ -192,9 +202,12 @@ export default function Editor({ plan, readOnly, approval = null, pins, canSubmi
     return () => window.removeEventListener('keydown', onKey);
   }, [store]);
 
-  const meta: SheetMeta = { planId: plan.id, revision: baseRevision, status: plan.status, approval };
+  const meta: SheetMeta = { planId: plan.id, revision: baseRevision, status: plan.status, approval, structure: plan.structure, preparer: plan.preparer, date: plan.date };
   // Submitting saves first (the server checks what it has), then reloads into the read-only view.
   const doSubmit = async () => {
+    const blockers = store.getState().report?.summary.blockers ?? 0;
+    const ask = `Submit revision ${store.getState().baseRevision} of "${store.getState().doc.title}" for review? It cannot be edited while a reviewer decides.${blockers ? ` The check still finds ${blockers} blocker${blockers === 1 ? '' : 's'}, so the server will refuse it.` : ''}`;
+    if (!window.confirm(ask)) return;
     setBusy('Submitting…');
     try {
       await sync.current?.saveNow();
@@ -217,7 +230,7 @@ export default function Editor({ plan, readOnly, approval = null, pins, canSubmi
     if (what === 'json') return downloadBlob(new Blob([planJsonText(s.doc)], { type: 'application/json' }), `${base}.json`);
     setBusy(what === 'pdf' ? 'Making PDF…' : 'Making PNG…');
     try {
-      const picture = canvasBox.current ? await renderDrawingPng(canvasBox.current) : null;
+      const picture = canvasBox.current ? await renderDrawingPng(canvasBox.current, 1600, 1000, what === 'pdf' ? 'jpeg' : 'png') : null;
       if (what === 'pdf') downloadBlob(await buildPdf(s.doc, s.report, meta, picture, s.units), `${base}.pdf`);
       else {
         flushSync(() => {
@@ -253,22 +266,30 @@ export default function Editor({ plan, readOnly, approval = null, pins, canSubmi
   return (
     <EditorStoreContext.Provider value={store}>
       <ReactFlowProvider>
-        <div className="bm-editor flex h-[calc(100vh-57px)] min-h-[560px] flex-col bg-paper" data-testid="editor" data-ready="true">
+        <div className="bm-editor flex flex-col bg-paper md:h-[calc(100vh-57px)] md:min-h-[560px]" data-testid="editor" data-ready="true">
           <TopBar status={plan.status} busy={busy} onFit={() => rf.current?.fitView({ padding: 0.2, duration: 200 })} onCheck={() => sync.current?.checkNow()}
             onRetrySave={() => void sync.current?.saveNow()} onExport={(w) => void doExport(w)} onImport={(f) => void doImport(f)}
             onSubmit={canSubmit && !readOnly ? () => void doSubmit() : undefined} historyHref={`/plans/${plan.id}/history`} />
-          {message && (
-            <div className="no-print flex items-center gap-3 border-b border-line bg-white px-4 py-1 text-sm" role="status" data-testid="editor-message">
-              <span className="flex-1">{message}</span>
-              <button type="button" className="btn" onClick={() => { store.getState().showMessage(null); store.getState().armLinkTool(null); }}>Dismiss</button>
-            </div>
-          )}
-          <div className="grid min-h-0 flex-1 grid-cols-[13rem_1fr_20rem]">
-            {readOnly ? <div className="no-print border-r border-line bg-white p-3 text-sm text-note">Read only: {plan.status === 'draft' || plan.status === 'returned' ? 'your role may view this plan, not change it.' : `the plan is ${plan.status}.`}</div> : <div className="no-print min-h-0"><Palette onPlace={placeKind} /></div>}
-            <div ref={canvasBox} className="bm-canvas-box min-h-0">
+          <div className={`relative grid min-h-0 flex-1 grid-cols-1 ${columns}`}>
+            {/* Over the drawing, not above it: a message that pushed the canvas down would move
+                every symbol between a finger's two taps. */}
+            {message && (
+              <div className="no-print absolute left-1/2 top-2 z-20 flex max-w-[min(36rem,90%)] -translate-x-1/2 items-center gap-3 rounded-md border border-line bg-white px-3 py-1 text-sm shadow" role="status" data-testid="editor-message">
+                <span className="flex-1">{message}</span>
+                <button type="button" className="btn" onClick={() => { store.getState().showMessage(null); store.getState().armLinkTool(null); }}>Dismiss</button>
+              </div>
+            )}
+            {panels.tools && (readOnly
+              ? <div className="no-print absolute inset-y-0 left-0 z-30 w-52 border-r border-line bg-white p-3 text-sm text-note shadow md:static md:w-auto md:shadow-none" data-testid="tools-panel">Read only: {plan.status === 'draft' || plan.status === 'returned' ? 'your role may view this plan, not change it.' : `the plan is ${plan.status}.`}</div>
+              : <div className="no-print absolute inset-y-0 left-0 z-30 w-52 min-h-0 shadow md:static md:w-auto md:shadow-none" data-testid="tools-panel"><Palette onPlace={placeKind} /></div>)}
+            <div ref={canvasBox} className="bm-canvas-box relative min-h-[55vh] min-w-0 md:min-h-0">
+              <div className="no-print absolute bottom-2 right-2 z-10 flex gap-1">
+                <button type="button" className="btn bg-white text-sm" aria-pressed={panels.tools} onClick={() => fold('tools')}>{panels.tools ? 'Fold tools' : 'Tools'}</button>
+                <button type="button" className="btn bg-white text-sm" aria-pressed={panels.props} onClick={() => fold('props')}>{panels.props ? 'Fold details' : 'Details'}</button>
+              </div>
               <Canvas onInit={(inst) => (rf.current = inst)} />
             </div>
-            <div className="no-print min-h-0"><Inspector /></div>
+            {panels.props && <div className="no-print absolute inset-y-0 right-0 z-30 w-72 min-h-0 shadow md:static md:w-auto md:shadow-none" data-testid="details-panel"><Inspector /></div>}
           </div>
           <div className="no-print"><Drawer onShow={centreOn} /></div>
         </div>
@@ -283,6 +304,8 @@ export default function Editor({ plan, readOnly, approval = null, pins, canSubmi
             }}
             onKeepMine={() => { store.getState().keepMine(); void sync.current?.saveNow(); }} />
         )}
+        <BondCaution />
+        <SignedOutDialog planId={plan.id} onResume={() => void sync.current?.resumeAfterSignIn()} />
         {importIssues && <ImportProblems fileName={importIssues.name} issues={importIssues.issues} onClose={() => setImportIssues(null)} />}
       </ReactFlowProvider>
     </EditorStoreContext.Provider>

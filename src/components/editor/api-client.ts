@@ -12,17 +12,24 @@ export interface ServerPlan {
   [key: string]: unknown;
 }
 
-export type CheckResult = { kind: 'ok'; report: CheckReport } | { kind: 'invalid'; issues: PlanIssue[] } | { kind: 'offline' } | { kind: 'error'; message: string };
+/**
+ * Answers that retrying cannot fix: the session ended (401), this person may not do this (403),
+ * or the plan is bigger than the server takes (413). They are never "offline".
+ */
+export type RefusedResult = { kind: 'signed-out' } | { kind: 'forbidden'; message: string } | { kind: 'too-large'; message: string };
+
+export type CheckResult = { kind: 'ok'; report: CheckReport } | { kind: 'invalid'; issues: PlanIssue[] } | { kind: 'offline' } | RefusedResult | { kind: 'error'; message: string };
 export type SaveResult =
   | { kind: 'saved'; plan: ServerPlan }
   | { kind: 'stale'; currentRevision: number; current: ServerPlan | null }
   | { kind: 'not-editable' }
   | { kind: 'invalid'; issues: PlanIssue[] }
   | { kind: 'offline' }
+  | RefusedResult
   | { kind: 'error'; message: string };
 
 export interface EditorApi {
-  check(doc: PlanDocument, signal?: AbortSignal): Promise<CheckResult>;
+  check(doc: PlanDocument, signal?: AbortSignal, units?: 'metric' | 'imperial'): Promise<CheckResult>;
   save(planId: number, body: { expectedRevision: number; title?: string; document: PlanDocument }): Promise<SaveResult>;
 }
 
@@ -44,12 +51,23 @@ async function send(fetchImpl: typeof fetch, url: string, init: RequestInit): Pr
   }
 }
 
+/** The refusals retrying cannot fix, by status; null for any other answer. */
+function refused(status: number, body: unknown): RefusedResult | null {
+  const message = (body as ErrorBody)?.error?.message;
+  if (status === 401) return { kind: 'signed-out' };
+  if (status === 403) return { kind: 'forbidden', message: message ?? 'You may not change this plan.' };
+  if (status === 413) return { kind: 'too-large', message: 'This plan is too large for the server to take. Remove elements you do not need, or split the structure into two plans.' };
+  return null;
+}
+
 export function createApi(fetchImpl: typeof fetch = (...a) => fetch(...a), base = ''): EditorApi {
   return {
-    async check(doc, signal) {
-      const r = await send(fetchImpl, `${base}/api/check`, { method: 'POST', body: JSON.stringify(doc), signal });
+    async check(doc, signal, units = 'metric') {
+      const r = await send(fetchImpl, `${base}/api/check?units=${units}`, { method: 'POST', body: JSON.stringify(doc), signal });
       if (r === 'offline' || r.status >= 502) return { kind: 'offline' };
       if (r.status === 200) return { kind: 'ok', report: r.body as CheckReport };
+      const no = refused(r.status, r.body);
+      if (no) return no;
       const err = (r.body as ErrorBody)?.error;
       if (r.status === 400 && err?.issues) return { kind: 'invalid', issues: err.issues };
       return { kind: 'error', message: err?.message ?? `The check answered ${r.status}.` };
@@ -58,6 +76,8 @@ export function createApi(fetchImpl: typeof fetch = (...a) => fetch(...a), base 
       const r = await send(fetchImpl, `${base}/api/plans/${planId}`, { method: 'PUT', body: JSON.stringify(body) });
       if (r === 'offline' || r.status >= 502) return { kind: 'offline' };
       if (r.status === 200) return { kind: 'saved', plan: (r.body as { plan: ServerPlan }).plan };
+      const no = refused(r.status, r.body);
+      if (no) return no;
       const err = (r.body as ErrorBody)?.error;
       if (r.status === 409 && err?.code === 'STALE_REVISION') return { kind: 'stale', currentRevision: err.currentRevision ?? err.current?.currentRevision ?? body.expectedRevision, current: err.current ?? null };
       if (r.status === 409 && err?.code === 'NOT_EDITABLE') return { kind: 'not-editable' };

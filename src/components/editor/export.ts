@@ -8,10 +8,19 @@ import { CAUTION, type CheckReport } from '../../lib/domain/report';
 import { formatLength, type UnitSystem } from '../../lib/domain/units';
 import type { PlanDocument } from '../../lib/schemas/plan';
 
+export type PaperSize = 'letter' | 'a4';
+
 export interface SheetMeta {
   planId: number;
   revision: number;
   status: string;
+  structure?: string;
+  /** Who prepared the plan (its author). */
+  preparer?: string;
+  /** The date the sheet speaks for, already formatted for the reader. */
+  date?: string;
+  /** US Letter unless the organisation chose A4. */
+  paper?: PaperSize;
   /** Filled by the review workflow later; until then the block reads "Not approved yet". */
   approval?: { by: string; at: string; hash?: string } | null;
 }
@@ -32,9 +41,12 @@ export function downloadBlob(blob: Blob, name: string): void {
 
 export const planJsonText = (doc: PlanDocument): string => `${JSON.stringify(doc, null, 2)}\n`;
 
-/** The drawing alone: every node fitted into a picture, whatever the current pan and zoom. */
-export async function renderDrawingPng(root: HTMLElement, width = 1600, height = 1000): Promise<string> {
-  const { toPng } = await import('html-to-image');
+/**
+ * The drawing alone: every node fitted into a picture, whatever the current pan and zoom. JPEG
+ * for the PDF (a fraction of the size of a PNG of the same drawing), PNG for the PNG export.
+ */
+export async function renderDrawingPng(root: HTMLElement, width = 1600, height = 1000, format: 'png' | 'jpeg' = 'png'): Promise<string> {
+  const { toJpeg, toPng } = await import('html-to-image');
   const { getRectOfNodes, getTransformForBounds } = await import('reactflow');
   const viewport = root.querySelector('.react-flow__viewport') as HTMLElement | null;
   if (!viewport) throw new Error('The drawing is not on screen.');
@@ -44,8 +56,10 @@ export async function renderDrawingPng(root: HTMLElement, width = 1600, height =
   });
   const bounds = getRectOfNodes(nodes);
   const [x, y, zoom] = getTransformForBounds(bounds, width, height, 0.2, 2, 0.08);
-  return toPng(viewport, {
+  return (format === 'jpeg' ? toJpeg : toPng)(viewport, {
     backgroundColor: '#ffffff',
+    quality: 0.85,
+    pixelRatio: 1,
     width,
     height,
     style: { width: `${width}px`, height: `${height}px`, transform: `translate(${x}px, ${y}px) scale(${zoom})` },
@@ -58,43 +72,57 @@ export async function renderElementPng(el: HTMLElement): Promise<string> {
   return toPng(el, { backgroundColor: '#ffffff', pixelRatio: 1.5 });
 }
 
-/** The standard PDF fonts cover Latin-1 only: spell out the few symbols our sentences use. */
+/**
+ * The embedded Source Sans 3 subsets print Latin-1, general punctuation, − and Greek (Ω ρ π µ ²):
+ * spell out the few other symbols our sentences use.
+ */
 export function pdfText(text: string): string {
   return text
-    .replace(/Ω/g, 'ohm').replace(/[—–]/g, '-').replace(/≤/g, '<=').replace(/≥/g, '>=').replace(/√/g, 'sqrt ')
-    .replace(/[“”]/g, '"').replace(/[‘’]/g, "'").replace(/…/g, '...').replace(/×/g, 'x').replace(/·/g, '-').replace(/²/g, '2')
-    .replace(/[^\x20-\xff\n]/g, '?');
+    .replace(/≤/g, '<=').replace(/≥/g, '>=').replace(/√/g, 'sqrt ')
+    .replace(/[^\x20-\xff\n\u2000-\u206f\u2212\u0370-\u03ff]/g, '?');
 }
+
+/** Paper sizes in mm. */
+export const PAPER: Record<PaperSize, { w: number; h: number }> = { letter: { w: 215.9, h: 279.4 }, a4: { w: 210, h: 297 } };
 
 const f = (v: number | null | undefined, d = 2) => (v === null || v === undefined ? '-' : v.toLocaleString('en', { maximumFractionDigits: d }));
 
 /** Builds the PDF sheet; `drawingPng` is a data URL of the drawing, or null to leave a note. */
 export async function buildPdf(doc: PlanDocument, report: CheckReport | null, meta: SheetMeta, drawingPng: string | null, units: UnitSystem): Promise<Blob> {
   const { jsPDF } = await import('jspdf');
-  const pdf = new jsPDF({ unit: 'mm', format: 'a4' });
-  const W = 210;
+  const { embedFonts, fontRuns, LATIN } = await import('./pdf-font');
+  const paper = meta.paper ?? 'letter';
+  const pdf = new jsPDF({ unit: 'mm', format: paper, compress: true });
+  await embedFonts(pdf);
+  const { w: W, h: H } = PAPER[paper];
   const M = 14;
   let y = 16;
   const ensure = (h: number) => {
-    if (y + h > 285) {
+    if (y + h > H - 12) {
       pdf.addPage();
       y = 16;
     }
   };
   const line = (text: string, size = 10, bold = false, indent = 0) => {
-    pdf.setFont('helvetica', bold ? 'bold' : 'normal');
+    pdf.setFont(LATIN, bold ? 'bold' : 'normal');
     pdf.setFontSize(size);
     const rows = pdf.splitTextToSize(pdfText(text), W - 2 * M - indent) as string[];
     for (const row of rows) {
       ensure(size * 0.45);
-      pdf.text(row, M + indent, y);
+      let x = M + indent;
+      for (const [run, family] of fontRuns(row)) {
+        pdf.setFont(family, bold ? 'bold' : 'normal');
+        pdf.text(run, x, y);
+        x += pdf.getTextWidth(run);
+      }
       y += size * 0.45;
     }
   };
   const gap = (h = 3) => (y += h);
 
   line(doc.title, 16, true);
-  line(`Plan ${meta.planId} - revision ${meta.revision} - status ${meta.status}`, 10);
+  line(`Structure: ${meta.structure?.trim() || '—'} · Location: ______________________ · Date: ${meta.date ?? '—'}`, 10);
+  line(`Prepared by ${meta.preparer || '—'} · Plan ${meta.planId} · revision ${meta.revision} · status ${meta.status}`, 10);
   gap(2);
   // Approval block: always drawn, empty until the review workflow fills it.
   pdf.setDrawColor(27, 35, 48);
@@ -107,13 +135,13 @@ export async function buildPdf(doc: PlanDocument, report: CheckReport | null, me
   if (drawingPng) {
     const h = (W - 2 * M) * 0.625;
     ensure(h);
-    pdf.addImage(drawingPng, 'PNG', M, y, W - 2 * M, h);
+    pdf.addImage(drawingPng, drawingPng.startsWith('data:image/jpeg') ? 'JPEG' : 'PNG', M, y, W - 2 * M, h, undefined, 'FAST');
     y += h + 4;
   } else line('(Drawing not available)', 10);
 
   const s = doc.system;
   line('System data', 12, true);
-  line(`Fault current ${f(s.faultKa)} kA - clearing time ${f(s.clearingCycles)} cycles at ${s.frequencyHz} Hz - X/R ${f(s.xOverR)} - nominal ${f(s.nominalKv)} kV - phase spacing ${s.phaseSpacingM === undefined ? '-' : formatLength(s.phaseSpacingM, units)} - body criteria ${doc.criteria?.bodyKg ?? 50} kg, ${doc.criteria?.bodyOhms ?? 1000} ohm`);
+  line(`Fault current ${f(s.faultKa)} kA · clearing time ${f(s.clearingCycles)} cycles at ${s.frequencyHz} Hz · X/R ${f(s.xOverR)} · nominal ${f(s.nominalKv)} kV · phase spacing ${s.phaseSpacingM === undefined ? '-' : formatLength(s.phaseSpacingM, units)} · body criteria ${doc.criteria?.bodyKg ?? 50} kg, ${doc.criteria?.bodyOhms ?? 1000} Ω`);
   gap();
   line('Findings', 12, true);
   if (!report) line('Not checked.');
@@ -137,17 +165,31 @@ export async function buildPdf(doc: PlanDocument, report: CheckReport | null, me
     if (!report.jumpers.length) line('No jumpers.');
     for (const j of report.jumpers) {
       const link = doc.links.find((l) => l.id === j.link);
-      line(`${j.link}${link && link.kind === 'jumper' ? ` (${link.cable}, ${formatLength(link.lengthM, units)})` : ''}: ${f(j.ohms, 5)} ohm, duty ${f(j.dutyKa)} kA, cable rating ${f(j.cableRatingKa)} kA, clamp rating ${f(j.clampRatingKa)} kA`);
+      const set = link && link.kind === 'jumper' && link.equipmentId ? ` · set no. ${link.equipmentId}` : ' · set no. ______';
+      line(`${j.link}${link && link.kind === 'jumper' ? ` (${link.cable}, ${formatLength(link.lengthM, units)})` : ''}${set}: ${f(j.ohms, 5)} Ω, duty ${f(j.dutyKa)} kA, cable rating ${f(j.cableRatingKa)} kA, clamp rating ${f(j.clampRatingKa)} kA`);
     }
     if (report.rods.length) {
       gap();
       line('Rods', 12, true);
-      for (const r of report.rods) line(`${r.node}: ${f(r.ohms, 1)} ohm${r.barricadeRadiusM ? `, barricade radius ${formatLength(r.barricadeRadiusM, units)}` : ''}`);
+      for (const r of report.rods) line(`${r.node}: ${f(r.ohms, 1)} Ω${r.barricadeRadiusM ? `, barricade radius ${formatLength(r.barricadeRadiusM, units)}` : ''}`);
     }
     gap();
     line('Fault', 12, true);
     line(`Duration ${f(report.fault.durationS, 3)} s, asymmetrical ${f(report.fault.asymmetricalKa)} kA, peak ${f(report.fault.peakKa)} kA, peak force ${f(report.fault.peakForceNPerM, 1)} N/m, tolerable body current ${report.tolerableBodyAmps === null ? '-' : Math.round(report.tolerableBodyAmps * 1000)} mA`);
   }
+  gap(4);
+  line('Crew sign-on', 12, true);
+  line('Each worker signs before the grounds go on: I have seen this plan and where I will stand.', 9);
+  for (let i = 0; i < 6; i++) {
+    ensure(8);
+    y += 6;
+    pdf.setDrawColor(27, 35, 48);
+    pdf.line(M, y, M + 70, y);
+    pdf.line(M + 76, y, M + 146, y);
+    pdf.line(M + 152, y, W - M, y);
+  }
+  y += 4;
+  line('Name · Signature · Time', 8);
   gap(4);
   line('Caution', 11, true);
   line(CAUTION, 10);

@@ -3,6 +3,7 @@
  * never mutating its input, so undo is a list of earlier documents and every edit is testable
  * without React.
  */
+import { METRES_PER_FOOT, type UnitSystem } from '../../lib/domain/units';
 import type { LinkKind, NodeKind, PlanDocument, PlanLink, PlanNode } from '../../lib/schemas/plan';
 
 export interface Point { x: number; y: number }
@@ -22,9 +23,6 @@ export const KIND_LABELS: Record<NodeKind, string> = {
 };
 export const LINK_LABELS: Record<LinkKind, string> = { jumper: 'Jumper', bond: 'Bond', reach: 'Reach' };
 
-/** Kinds a worker can stand on, in the order the editor prefers them for a new worker. */
-const STANDING = ['bucket', 'cluster-bar', 'mat', 'structure', 'truck', 'earth'] as const;
-
 export function allIds(doc: PlanDocument): Set<string> {
   return new Set([...doc.nodes.map((n) => n.id), ...doc.links.map((l) => l.id)]);
 }
@@ -39,7 +37,16 @@ export function nextId(taken: Set<string>, prefix: string): string {
 export const snapPoint = (p: Point, grid: number): Point => ({ x: Math.round(p.x / grid) * grid, y: Math.round(p.y / grid) * grid });
 
 /** A new node of `kind` with the defaults a crew would start from (edit them in the inspector). */
-export function createNode(doc: PlanDocument, kind: NodeKind, position: Point, standsOn?: string): PlanNode {
+/**
+ * Defaults a crew would start from, round in the units they work in: an 8 ft rod of 5/8 in and
+ * 10 ft leads, or a 2.4 m rod of 16 mm and 3 m leads (common sizes; edit them to the job).
+ */
+const DEFAULTS: Record<UnitSystem, { rodM: number; rodMm: number; leadM: number }> = {
+  imperial: { rodM: 8 * METRES_PER_FOOT, rodMm: (5 / 8) * 25.4, leadM: 10 * METRES_PER_FOOT },
+  metric: { rodM: 2.4, rodMm: 16, leadM: 3 },
+};
+
+export function createNode(doc: PlanDocument, kind: NodeKind, position: Point, standsOn?: string, units: UnitSystem = 'metric'): PlanNode {
   const taken = allIds(doc);
   const id = nextId(taken, NODE_PREFIX[kind]);
   const base = { id, label: KIND_LABELS[kind], position };
@@ -54,40 +61,24 @@ export function createNode(doc: PlanDocument, kind: NodeKind, position: Point, s
     case 'crossarm':
       return { ...base, kind, material: 'wood' } as PlanNode;
     case 'ground-rod':
-      return { ...base, kind, lengthM: 2.4, diameterMm: 16, soilOhmM: 100 } as PlanNode;
+      return { ...base, kind, lengthM: DEFAULTS[units].rodM, diameterMm: DEFAULTS[units].rodMm, soilOhmM: 100 } as PlanNode;
     case 'bucket':
       return { ...base, kind, insulatedBoom: true } as PlanNode;
     case 'supply-end':
       // Feeds every phase of the plan until the crew lead narrows it down.
       return { ...base, kind, phases: doc.nodes.filter((n) => n.kind === 'phase').map((n) => n.id) } as PlanNode;
-    case 'worker': {
-      const target = standsOn ?? pickStanding(doc);
-      return { ...base, kind, standsOn: target ?? 'E' } as PlanNode;
-    }
+    case 'worker':
+      // Stands nowhere until the user chooses: a guessed footing could make a plan look safe.
+      return { ...base, kind, ...(standsOn ? { standsOn } : {}) } as PlanNode;
     default:
       return { ...base, kind } as PlanNode;
   }
 }
 
-/** Where a new worker stands: the first bucket, cluster bar, mat, … in the plan. */
-export function pickStanding(doc: PlanDocument): string | undefined {
-  for (const kind of STANDING) {
-    const found = doc.nodes.find((n) => n.kind === kind);
-    if (found) return found.id;
-  }
-  return undefined;
-}
-
-/** Adds a node; a worker with nothing to stand on gets an earth node beside it. */
-export function addNode(doc: PlanDocument, kind: NodeKind, position: Point, standsOn?: string): { doc: PlanDocument; id: string } {
-  let next = doc;
-  if (kind === 'worker' && !standsOn && !pickStanding(doc)) {
-    const earth = createNode(doc, 'earth', { x: position.x, y: position.y + 120 });
-    next = { ...doc, nodes: [...doc.nodes, earth] };
-    standsOn = earth.id;
-  }
-  const node = createNode(next, kind, position, standsOn);
-  return { doc: { ...next, nodes: [...next.nodes, node] }, id: node.id };
+/** Adds a node (a worker stands on `standsOn` if given, else on nothing yet). */
+export function addNode(doc: PlanDocument, kind: NodeKind, position: Point, standsOn?: string, units: UnitSystem = 'metric'): { doc: PlanDocument; id: string } {
+  const node = createNode(doc, kind, position, standsOn, units);
+  return { doc: { ...doc, nodes: [...doc.nodes, node] }, id: node.id };
 }
 
 export function moveNodes(doc: PlanDocument, moves: ReadonlyMap<string, Point>): PlanDocument {
@@ -96,13 +87,19 @@ export function moveNodes(doc: PlanDocument, moves: ReadonlyMap<string, Point>):
 }
 
 /**
- * Removes nodes and links by id, with every link touching a removed node and every worker who
- * stood on one (a worker must stand on something; leaving them would break the document).
+ * Removes nodes and links by id, with every link touching a removed node. A worker who stood on a
+ * removed node stays and stands on nothing until the user chooses again (the check says so).
  */
 export function removeElements(doc: PlanDocument, ids: Iterable<string>): PlanDocument {
   const gone = new Set(ids);
-  for (const n of doc.nodes) if (n.kind === 'worker' && gone.has(n.standsOn)) gone.add(n.id);
-  const nodes = doc.nodes.filter((n) => !gone.has(n.id));
+  const nodes = doc.nodes
+    .filter((n) => !gone.has(n.id))
+    .map((n) => {
+      if (n.kind !== 'worker' || n.standsOn === undefined || !gone.has(n.standsOn)) return n;
+      const rest = { ...n };
+      delete rest.standsOn;
+      return rest;
+    });
   const links = doc.links.filter((l) => !gone.has(l.id) && !gone.has(l.from) && !gone.has(l.to));
   return nodes.length === doc.nodes.length && links.length === doc.links.length ? doc : { ...doc, nodes, links };
 }
@@ -119,12 +116,47 @@ export function linkProblem(doc: PlanDocument, kind: LinkKind, from: string, to:
   return null;
 }
 
-export function addLink(doc: PlanDocument, kind: LinkKind, from: string, to: string): { doc: PlanDocument; id: string } | { error: string } {
+const GROUND_KINDS = new Set<NodeKind>(['ground-rod', 'earth', 'pole-ground', 'neutral', 'shield-wire']);
+
+/**
+ * Why a bond between these two nodes is probably a mistake, or null. A bond is an existing
+ * permanent connection and is checked for no rating; a phase, or the leads from the cluster bar
+ * to the neutral or to ground, carry the fault current and need a rated jumper.
+ */
+export function bondCaution(doc: PlanDocument, from: string, to: string): string | null {
+  const a = doc.nodes.find((n) => n.id === from);
+  const b = doc.nodes.find((n) => n.id === to);
+  if (!a || !b) return null;
+  const kinds = [a.kind, b.kind];
+  const why = kinds.includes('phase')
+    ? 'joins a phase'
+    : kinds.includes('cluster-bar') && kinds.some((k) => GROUND_KINDS.has(k))
+      ? 'joins the cluster bar to the neutral or to ground'
+      : null;
+  if (!why) return null;
+  return `A bond is an existing permanent connection, and the check rates no cable or clamp on it. This one ${why}, where the fault current flows: draw a jumper there unless a permanent connection really is in place.`;
+}
+
+/** The link of this kind already joining these two nodes (either way round), if any. */
+export function sameLink(doc: PlanDocument, kind: LinkKind, from: string, to: string): PlanLink | undefined {
+  return doc.links.find((l) => l.kind === kind && ((l.from === from && l.to === to) || (l.from === to && l.to === from)));
+}
+
+/**
+ * Adds a link. A second link of the same kind between the same two nodes is refused unless
+ * `parallel` says the user asked for a parallel lead: an accidental copy would halve the computed
+ * touch voltage and make a plan look safer than it is.
+ */
+export function addLink(doc: PlanDocument, kind: LinkKind, from: string, to: string, parallel = false, units: UnitSystem = 'metric'): { doc: PlanDocument; id: string } | { error: string } {
   const problem = linkProblem(doc, kind, from, to);
   if (problem) return { error: problem };
+  const twin = sameLink(doc, kind, from, to);
+  if (twin && !parallel) {
+    return { error: `${from} and ${to} are already joined by ${LINK_LABELS[kind].toLowerCase()} ${twin.id}. To add a second lead beside it, choose "Add a parallel lead" on ${twin.id}.` };
+  }
   const id = nextId(allIds(doc), LINK_PREFIX[kind]);
   const link: PlanLink =
-    kind === 'jumper' ? { id, kind, from, to, cable: '2/0', lengthM: 3 } : kind === 'bond' ? { id, kind, from, to } : { id, kind, from, to };
+    kind === 'jumper' ? { id, kind, from, to, cable: '2/0', lengthM: DEFAULTS[units].leadM } : kind === 'bond' ? { id, kind, from, to } : { id, kind, from, to };
   return { doc: { ...doc, links: [...doc.links, link] }, id };
 }
 
@@ -163,8 +195,11 @@ export function pasteClipboard(doc: PlanDocument, clip: Clipboard, offset: Point
     const p = n.position ?? { x: 0, y: 0 };
     const copy = { ...n, id: map.get(n.id)!, position: { x: p.x + offset.x, y: p.y + offset.y } } as PlanNode;
     if (copy.kind === 'worker') {
-      const stand = map.get(copy.standsOn) ?? (existing.has(copy.standsOn) ? copy.standsOn : undefined);
-      return { ...copy, standsOn: stand ?? pickStanding(doc) ?? copy.standsOn };
+      const was = copy.standsOn;
+      const stand = was === undefined ? undefined : (map.get(was) ?? (existing.has(was) ? was : undefined));
+      const rest = { ...copy };
+      delete rest.standsOn;
+      return stand ? { ...rest, standsOn: stand } : rest;
     }
     return copy;
   });

@@ -9,8 +9,8 @@ import type { UnitSystem } from '../../lib/domain/units';
 import type { LinkKind, NodeKind, PlanCriteria, PlanDocument, PlanIssue, PlanLink, PlanNode, PlanSystem } from '../../lib/schemas/plan';
 import * as ops from './plan-ops';
 
-export type SaveState = 'saved' | 'unsaved' | 'saving' | 'offline' | 'conflict' | 'invalid' | 'locked';
-export type CheckState = 'idle' | 'checking' | 'done' | 'invalid' | 'offline';
+export type SaveState = 'saved' | 'unsaved' | 'saving' | 'offline' | 'conflict' | 'invalid' | 'locked' | 'signed-out' | 'forbidden' | 'too-large';
+export type CheckState = 'idle' | 'checking' | 'done' | 'invalid' | 'offline' | 'signed-out' | 'too-large';
 
 /** What the server holds when a save was refused as stale. */
 export interface ConflictInfo {
@@ -42,10 +42,14 @@ export interface EditorState {
   saveState: SaveState;
   saveIssues: PlanIssue[];
   conflict: ConflictInfo | null;
+  /** A bond drawn where a jumper belongs, waiting for the user to choose (see bondCaution). */
+  pendingBond: { from: string; to: string; caution: string } | null;
   /** Review comments pinned to elements: element id → the comment numbers shown on the canvas. */
   pins: Record<string, number[]>;
   /** For reading an approved plan: element id → sentences on what it does in the zone. */
   explanations: Record<string, string[]>;
+  /** Elements briefly flashed on the drawing after "Show", and a counter so a repeat flashes again. */
+  flashing: { ids: string[]; seq: number };
 }
 
 export interface EditorActions {
@@ -54,7 +58,11 @@ export interface EditorActions {
   moveNodes(moves: ReadonlyMap<string, ops.Point>): void;
   nudgeSelection(dx: number, dy: number): void;
   deleteSelection(): void;
-  connect(kind: LinkKind, from: string, to: string): string | null;
+  connect(kind: LinkKind, from: string, to: string, parallel?: boolean): string | null;
+  /** A second lead beside an existing jumper or bond, same ends and same properties. */
+  addParallel(linkId: string): string | null;
+  /** Settles a pending bond: draw it as a jumper instead, draw the bond anyway, or draw nothing. */
+  settleBond(choice: 'jumper' | 'bond' | 'cancel'): string | null;
   armLinkTool(kind: LinkKind | null): void;
   tapElement(id: string, additive?: boolean): void;
   updateElement(element: PlanNode | PlanLink): void;
@@ -73,6 +81,8 @@ export interface EditorActions {
   setUnits(units: UnitSystem): void;
   toggleSnap(): void;
   showMessage(message: string | null): void;
+  /** Selects these elements and flashes them on the drawing. */
+  flash(ids: string[]): void;
   receiveReport(report: CheckReport): void;
   setCheckState(state: CheckState, issues?: PlanIssue[]): void;
   setSaveState(state: SaveState, extra?: { issues?: PlanIssue[]; conflict?: ConflictInfo | null }): void;
@@ -135,11 +145,13 @@ export function createEditorStore(init: EditorInit): EditorStore {
       saveState: init.readOnly ? 'locked' : 'saved',
       saveIssues: [],
       conflict: null,
+      pendingBond: null,
       pins: init.pins ?? {},
       explanations: init.explanations ?? {},
+      flashing: { ids: [], seq: 0 },
 
       addNode(kind, position) {
-        const { doc, id } = ops.addNode(get().doc, kind, place(position));
+        const { doc, id } = ops.addNode(get().doc, kind, place(position), undefined, get().units);
         commit(doc, [id]);
         return id;
       },
@@ -164,14 +176,47 @@ export function createEditorStore(init: EditorInit): EditorStore {
         const { doc, selection } = get();
         if (selection.length) commit(ops.removeElements(doc, selection), []);
       },
-      connect(kind, from, to) {
-        const result = ops.addLink(get().doc, kind, from, to);
+      connect(kind, from, to, parallel = false) {
+        const caution = kind === 'bond' && !ops.linkProblem(get().doc, kind, from, to) ? ops.bondCaution(get().doc, from, to) : null;
+        if (caution) {
+          set({ pendingBond: { from, to, caution }, message: null });
+          return null;
+        }
+        const result = ops.addLink(get().doc, kind, from, to, parallel, get().units);
         if ('error' in result) {
           set({ message: result.error });
           return null;
         }
         commit(result.doc, [result.id]);
         set({ message: null });
+        return result.id;
+      },
+      settleBond(choice) {
+        const pending = get().pendingBond;
+        set({ pendingBond: null, linkFrom: null });
+        if (!pending || choice === 'cancel') return null;
+        const result = ops.addLink(get().doc, choice, pending.from, pending.to, false, get().units);
+        if ('error' in result) {
+          set({ message: result.error });
+          return null;
+        }
+        commit(result.doc, [result.id]);
+        return result.id;
+      },
+      addParallel(linkId) {
+        const link = get().doc.links.find((l) => l.id === linkId);
+        if (!link || link.kind === 'reach') return null;
+        const result = ops.addLink(get().doc, link.kind, link.from, link.to, true);
+        if ('error' in result) {
+          set({ message: result.error });
+          return null;
+        }
+        // Same cable, length and clamp as the lead beside it; its own set number and label.
+        const copy = { ...link, id: result.id } as Record<string, unknown>;
+        delete copy.label;
+        delete copy.equipmentId;
+        commit(ops.replaceElement(result.doc, copy as PlanLink), [result.id]);
+        set({ message: `Added ${result.id}, a parallel lead beside ${link.id}.` });
         return result.id;
       },
       armLinkTool(kind) {
@@ -185,7 +230,7 @@ export function createEditorStore(init: EditorInit): EditorStore {
             return;
           }
           const made = get().connect(s.linkTool, s.linkFrom, id);
-          set({ linkFrom: made ? null : s.linkFrom });
+          set({ linkFrom: made || get().pendingBond ? null : s.linkFrom });
           return;
         }
         get().select([id], additive);
@@ -264,6 +309,10 @@ export function createEditorStore(init: EditorInit): EditorStore {
       },
       showMessage(message) {
         set({ message });
+      },
+      flash(ids) {
+        get().select(ids);
+        set({ flashing: { ids, seq: get().flashing.seq + 1 } });
       },
       receiveReport(report) {
         set({ report, checkState: 'done', checkIssues: [] });

@@ -55,6 +55,8 @@ export function clearLocalDrafts(storage: SyncOptions['storage'], planId: number
 
 export interface SyncHandle {
   saveNow(): Promise<void>;
+  /** Saves again after the person signed in anew (in another tab or the dialog). */
+  resumeAfterSignIn(): Promise<void>;
   checkNow(): void;
   stop(): void;
 }
@@ -67,6 +69,7 @@ export function startSync(store: EditorStore, opts: SyncOptions): SyncHandle {
   let checkAbort: AbortController | null = null;
   let checkSeq = 0;
   let saving = false;
+  let refusedVersion = -1;
   let stopped = false;
 
   const runCheck = async () => {
@@ -75,11 +78,12 @@ export function startSync(store: EditorStore, opts: SyncOptions): SyncHandle {
     checkAbort = new AbortController();
     store.getState().setCheckState('checking', store.getState().checkIssues);
     try {
-      const r = await api.check(store.getState().doc, checkAbort.signal);
+      const r = await api.check(store.getState().doc, checkAbort.signal, store.getState().units);
       if (seq !== checkSeq || stopped) return;
       if (r.kind === 'ok') store.getState().receiveReport(r.report);
       else if (r.kind === 'invalid') store.getState().setCheckState('invalid', r.issues);
-      else if (r.kind === 'offline') store.getState().setCheckState('offline');
+      else if (r.kind === 'signed-out') store.getState().setCheckState('signed-out');
+      else if (r.kind === 'too-large') store.getState().setCheckState('too-large');
       else store.getState().setCheckState('offline');
     } catch {
       // aborted by a newer check
@@ -104,6 +108,8 @@ export function startSync(store: EditorStore, opts: SyncOptions): SyncHandle {
   const save = async (): Promise<void> => {
     const s = store.getState();
     if (stopped || s.readOnly || s.saveState === 'conflict' || s.saveState === 'locked' || s.version === s.savedVersion) return;
+    // After a refusal, saving waits for the user (sign in again, or make the plan smaller).
+    if (s.saveState === 'signed-out' || s.saveState === 'forbidden' || (s.saveState === 'too-large' && s.version === refusedVersion)) return;
     if (saving) {
       scheduleSave();
       return;
@@ -134,6 +140,22 @@ export function startSync(store: EditorStore, opts: SyncOptions): SyncHandle {
       case 'invalid':
         now.setSaveState('invalid', { issues: r.issues });
         break;
+      case 'signed-out':
+        writeLocal();
+        now.setSaveState('signed-out');
+        break;
+      case 'forbidden':
+        writeLocal();
+        now.setSaveState('forbidden');
+        now.showMessage(`${r.message} Your changes stay on this device; export them as JSON if you need them.`);
+        break;
+      case 'too-large':
+        // Tried again only after the next change: the same document would be refused again.
+        refusedVersion = version;
+        writeLocal();
+        now.setSaveState('too-large');
+        now.showMessage(r.message);
+        break;
       case 'offline':
       case 'error':
         now.setSaveState('offline');
@@ -148,7 +170,8 @@ export function startSync(store: EditorStore, opts: SyncOptions): SyncHandle {
   };
 
   const unsubscribe = store.subscribe((state, prev) => {
-    if (state.doc !== prev.doc) scheduleCheck();
+    // The findings' sentences follow the unit choice, so a switch asks for them again.
+    if (state.doc !== prev.doc || state.units !== prev.units) scheduleCheck();
     if (state.version !== prev.version && !state.readOnly) {
       clearTimeout(localTimer);
       localTimer = setTimeout(writeLocal, 200);
@@ -163,11 +186,23 @@ export function startSync(store: EditorStore, opts: SyncOptions): SyncHandle {
     const s = store.getState();
     if (s.version !== s.savedVersion && !s.readOnly && s.saveState !== 'conflict') s.setSaveState('offline');
   };
+  // Back from signing in in another tab: try again once this page has the focus.
+  const onFocus = () => {
+    if (store.getState().saveState === 'signed-out') void handle.resumeAfterSignIn();
+  };
   target?.addEventListener('online', onOnline);
   target?.addEventListener('offline', onOffline);
+  target?.addEventListener('focus', onFocus);
   if (opts.checkNow) void runCheck();
 
-  return {
+  const handle: SyncHandle = {
+    resumeAfterSignIn: () => {
+      const s = store.getState();
+      if (s.saveState === 'signed-out' || s.saveState === 'forbidden') s.setSaveState('unsaved');
+      if (store.getState().checkState === 'signed-out') void runCheck();
+      clearTimeout(saveTimer);
+      return save();
+    },
     saveNow: () => {
       clearTimeout(saveTimer);
       writeLocal();
@@ -183,6 +218,8 @@ export function startSync(store: EditorStore, opts: SyncOptions): SyncHandle {
       unsubscribe();
       target?.removeEventListener('online', onOnline);
       target?.removeEventListener('offline', onOffline);
+      target?.removeEventListener('focus', onFocus);
     },
   };
+  return handle;
 }

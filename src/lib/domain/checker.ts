@@ -19,6 +19,7 @@ import {
 } from './report';
 import { compareFindings, runRules } from './rules/index';
 import { applyInventory, reportSets, type CheckOptions } from './sets-in-plan';
+import { missingSystemData } from './rules/system-data-missing';
 import { mapZones } from './zones';
 
 export const CALC_FAILED = 'calc-failed';
@@ -31,8 +32,8 @@ const EMPTY_NETWORK: NetworkFigures = { contacts: [], jumpers: [], rods: [], bon
 
 /** The fault figures the schema's bounds guarantee even when the calculation fails. */
 function fallbackFault(plan: PlanDocument): FaultFigures {
-  const durationS = plan.system.clearingCycles / plan.system.frequencyHz;
-  return { symmetricalKa: plan.system.faultKa, durationS, decrementFactor: NaN, asymmetricalKa: NaN, peakFactor: NaN, peakKa: NaN, peakForceNPerM: null, injectedKa: NaN, lineToNeutralVolts: null };
+  const durationS = (plan.system.clearingCycles ?? NaN) / plan.system.frequencyHz;
+  return { symmetricalKa: plan.system.faultKa ?? NaN, durationS, decrementFactor: NaN, asymmetricalKa: NaN, peakFactor: NaN, peakKa: NaN, peakForceNPerM: null, injectedKa: NaN, lineToNeutralVolts: null };
 }
 
 function calcFailed(error: unknown): Finding {
@@ -52,6 +53,8 @@ function runCalc(plan: PlanDocument, calc: CalcEntryPoints) {
   let fault: FaultFigures | undefined;
   let tolerableBodyAmps = NaN;
   let network = EMPTY_NETWORK;
+  // Without the fault data no figure means anything: system-data-missing blocks instead.
+  if (missingSystemData(plan.system).length > 0) return { fault: fallbackFault(plan), tolerableBodyAmps, network, extra };
   try {
     fault = calc.computeFault(plan.system);
     tolerableBodyAmps = calc.tolerableBodyAmps(fault.durationS, plan.criteria?.bodyKg ?? 50);
@@ -124,6 +127,7 @@ export function checkPlan(drawn: PlanDocument, calc: CalcEntryPoints = defaultCa
     tolerableBodyAmps,
     network,
     sets,
+    units: options.units ?? 'metric',
     cableRatingKa(cable) {
       try {
         return calc.cableRating(cable, durationS, frequencyHz).ratingKa;
@@ -132,7 +136,9 @@ export function checkPlan(drawn: PlanDocument, calc: CalcEntryPoints = defaultCa
       }
     },
   });
-  const findings = [...ruleFindings, ...extra].sort(compareFindings);
+  // The fault figures of a plan without fault data are unknown, not wrong: one blocker says so.
+  const incomplete = missingSystemData(plan.system).length > 0;
+  const findings = [...ruleFindings.filter((f) => !(incomplete && f.rule === 'figure-invalid' && f.elements.length === 0)), ...extra].sort(compareFindings);
   const count = (severity: Finding['severity']) => findings.filter((f) => f.severity === severity).length;
   const blockers = count('blocker');
   return {

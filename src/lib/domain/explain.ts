@@ -26,7 +26,8 @@ export function explainPlan(plan: PlanDocument, report: CheckReport | null): Exp
     const lines: string[] = [];
     const z = zoneOf.get(node.id);
     if (node.kind === 'worker') {
-      lines.push(`Stands on ${label(node.standsOn)} (${node.standsOn}); everything this worker reaches must be in the same zone as that.`);
+      if (node.standsOn === undefined) lines.push('Stands on nothing yet: choose what this worker stands on or in.');
+      else lines.push(`Stands on ${label(node.standsOn)} (${node.standsOn}); everything this worker reaches must be in the same zone as that.`);
       for (const c of report?.contacts.filter((c) => c.worker === node.id) ?? []) {
         lines.push(`Touching ${label(c.surface)}: ${fmt(c.touchVolts, 1)} V across the body, ${fmt(c.bodyAmps, 4)} A through it, against a limit of ${fmt(c.limitAmps, 3)} A.`);
       }

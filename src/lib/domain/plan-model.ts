@@ -96,7 +96,7 @@ export interface PlanModel {
   plan: PlanDocument;
   /** Position of each node in `plan.nodes`, used for stable ordering. */
   nodeIndex: ReadonlyMap<string, number>;
-  node(id: string): PlanNode | undefined;
+  node(id: string | undefined): PlanNode | undefined;
   link(id: string): PlanLink | undefined;
   /** Human name for messages: `label (id)` when labelled, else the kind and id (`cluster bar CB`). */
   nameOf(id: string): string;
@@ -108,7 +108,7 @@ export interface PlanModel {
    * The node whose potential a reach touches: the surface, or for a reach to another worker
    * that worker's standing node (passing a tool or touching a person is a contact too).
    */
-  reachTarget(reach: LinkOf<'reach'>): string;
+  reachTarget(reach: LinkOf<'reach'>): string | undefined;
   /** True for a jumper or bond with an end on an `earth` node: refused, it joins nothing. */
   isEarthLink(link: PlanLink): boolean;
 }
@@ -128,7 +128,7 @@ export function buildPlanModel(plan: PlanDocument): PlanModel {
   return {
     plan,
     nodeIndex,
-    node: (id) => nodeById.get(id),
+    node: (id) => (id === undefined ? undefined : nodeById.get(id)),
     link: (id) => linkById.get(id),
     nameOf(id) {
       const element = nodeById.get(id) ?? linkById.get(id);

@@ -10,7 +10,7 @@ export function planTags(plan: PlanDocument): PlanTag[] {
   const tags = new Set<PlanTag>();
   for (const node of plan.nodes) {
     if (node.kind === 'worker') {
-      const stand = kindOf.get(node.standsOn);
+      const stand = node.standsOn === undefined ? undefined : kindOf.get(node.standsOn);
       if (stand === 'bucket') tags.add('bucket work');
       else if (stand === 'earth' || stand === 'mat' || stand === 'truck') tags.add('ground worker');
       else tags.add('climber');

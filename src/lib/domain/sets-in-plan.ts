@@ -6,12 +6,15 @@
  */
 import type { LinkOf, PlanDocument } from '../schemas/plan';
 import { dueState, type DueState, type SetRecord, type SetStatus } from './equipment';
+import type { UnitSystem } from './units';
 
 /** When the check runs: a draft being edited, a submission, or the record made in the field. */
 export const CHECK_STAGES = ['draft', 'submit', 'field'] as const;
 export type CheckStage = (typeof CHECK_STAGES)[number];
 
 export interface CheckOptions {
+  /** Units for lengths in the findings' sentences (default metric); the report's figures stay SI. */
+  units?: UnitSystem;
   /** The organisation's sets; without it the set rules do not run (no inventory to check against). */
   inventory?: readonly SetRecord[];
   /** Today's date (YYYY-MM-DD), for overdue tests; the checker has no clock. */

@@ -41,8 +41,13 @@ export type ParsedNumber = { ok: true; value: number } | { ok: false; message: s
  * "10", "10.5", "10 ft 6 in", "10' 6\"", "10ft6in", "6 in" or "6\"".
  */
 export function parseLength(text: string, system: UnitSystem): ParsedNumber {
-  const t = text.trim().toLowerCase();
+  // Typographic quotes from a phone keyboard read as feet and inches marks.
+  const t = text.trim().toLowerCase().replace(/[‘’′]/g, "'").replace(/[“”″]/g, '"');
   if (t === '') return { ok: false, message: 'is required' };
+  // A unit typed with the number wins over the chosen system: "2 m" in feet mode, "6 ft" in metres.
+  const metric = /^(-?\d+(?:\.\d+)?|-?\.\d+)\s*(m|cm|mm)$/.exec(t);
+  if (metric) return { ok: true, value: Number(metric[1]) / (metric[2] === 'cm' ? 100 : metric[2] === 'mm' ? 1000 : 1) };
+  if (system === 'metric' && /ft|feet|foot|in|inch|'|"/.test(t)) return parseLength(t, 'imperial');
   if (system === 'metric') {
     const m = /^(-?\d+(?:\.\d+)?|-?\.\d+)\s*(m)?$/.exec(t);
     return m ? { ok: true, value: Number(m[1]) } : { ok: false, message: 'must be a length in metres, e.g. 3.5' };

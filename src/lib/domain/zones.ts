@@ -63,8 +63,11 @@ class DisjointSets {
 /** Nodes that a crew's safety depends on being solidly grounded: phases, standing nodes, reached surfaces. */
 function crewRelevantNodes(model: PlanModel): Set<string> {
   const relevant = new Set<string>(model.nodesOf('phase').map((n) => n.id));
-  for (const worker of model.nodesOf('worker')) relevant.add(worker.standsOn);
-  for (const reach of model.linksOf('reach')) relevant.add(model.reachTarget(reach));
+  for (const worker of model.nodesOf('worker')) if (worker.standsOn !== undefined) relevant.add(worker.standsOn);
+  for (const reach of model.linksOf('reach')) {
+    const target = model.reachTarget(reach);
+    if (target !== undefined) relevant.add(target);
+  }
   return relevant;
 }
 

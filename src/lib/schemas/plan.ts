@@ -65,9 +65,11 @@ export const systemSchema = z
     frequencyHz: z.union([z.literal(50), z.literal(60)], {
       errorMap: () => ({ message: 'must be 50 or 60' }),
     }),
-    faultKa: positive().max(200, 'must be at most 200 kA'),
-    clearingCycles: positive().max(300, 'must be at most 300 cycles'),
-    xOverR: finite().min(0, 'must be 0 or more').max(100, 'must be at most 100'),
+    // Fault data comes from the system operator for each job: a new plan starts without it and the
+    // check blocks (rule system-data-missing) until it is entered, so nothing is checked on a guess.
+    faultKa: positive().max(200, 'must be at most 200 kA').optional(),
+    clearingCycles: positive().max(300, 'must be at most 300 cycles').optional(),
+    xOverR: finite().min(0, 'must be 0 or more').max(100, 'must be at most 100').optional(),
     phaseSpacingM: positive().max(100, 'must be at most 100 m').optional(),
   }, { required_error: 'is required', invalid_type_error: 'must be an object' })
   .passthrough();
@@ -132,7 +134,8 @@ export const nodeSchema = z.discriminatedUnion(
     z.object({ ...nodeBase, kind: z.literal('truck'), groundOhms: groundOhms() }).passthrough(),
     z.object({ ...nodeBase, kind: z.literal('mat') }).passthrough(),
     z.object({ ...nodeBase, kind: z.literal('pole-ground') }).passthrough(),
-    z.object({ ...nodeBase, kind: z.literal('worker'), standsOn: id() }).passthrough(),
+    // A new worker stands nowhere until the user says where (the check blocks until then).
+    z.object({ ...nodeBase, kind: z.literal('worker'), standsOn: id().optional() }).passthrough(),
     z
       .object({
         ...nodeBase,

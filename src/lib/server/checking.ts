@@ -13,6 +13,7 @@ import { inventoryFor } from '../../../db/repositories/equipment';
 import { checkPlan } from '../domain/checker';
 import type { CheckReport } from '../domain/report';
 import { setTagsOf, type CheckOptions, type CheckStage } from '../domain/sets-in-plan';
+import type { UnitSystem } from '../domain/units';
 import type { PlanDocument } from '../schemas/plan';
 import { AppError } from './errors';
 import { log } from './log';
@@ -72,8 +73,8 @@ export async function checkDocument(document: PlanDocument, options: CheckOption
  * Checks a document against the organisation's grounding sets (only those it names; a plan that
  * names none is checked as before) on today's date, at the given stage.
  */
-export async function checkForOrganization(db: Db, organizationId: number, document: PlanDocument, stage: CheckStage = 'draft'): Promise<CheckReport> {
+export async function checkForOrganization(db: Db, organizationId: number, document: PlanDocument, stage: CheckStage = 'draft', units: UnitSystem = 'metric'): Promise<CheckReport> {
   const tags = setTagsOf(document);
-  if (tags.length === 0) return checkDocument(document);
-  return checkDocument(document, { inventory: await inventoryFor(db, organizationId, tags), today: today(), stage });
+  if (tags.length === 0) return checkDocument(document, { units });
+  return checkDocument(document, { inventory: await inventoryFor(db, organizationId, tags), today: today(), stage, units });
 }

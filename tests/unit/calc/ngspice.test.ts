@@ -51,7 +51,7 @@ function toCircuit(name: string, plan: PlanDocument, rand: () => number): Circui
   if (network.size === 0) return null;
   const phases = plan.nodes.filter((n) => n.kind === 'phase' && network.indexOf.has(n.id)).map((n) => network.indexOf.get(n.id) as number);
   const inject = phases.length > 0 ? phases[Math.floor(rand() * phases.length)] : 0;
-  return { name, frequencyHz: plan.system.frequencyHz, network, inject, amps: plan.system.faultKa * 1000 };
+  return { name, frequencyHz: plan.system.frequencyHz, network, inject, amps: plan.system.faultKa! * 1000 };
 }
 
 function netlist(circuits: Circuit[], frequencyHz: number, rawPath: string): string {

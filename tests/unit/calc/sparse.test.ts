@@ -151,7 +151,7 @@ describe('Thevenin contacts against a direct solve with the body in the network'
     expect(solvedContacts.length).toBeGreaterThan(0);
     for (const contact of solvedContacts) {
       const worker = nodeById.get(contact.worker);
-      const p = network.indexOf.get(worker?.kind === 'worker' ? worker.standsOn : '') as number;
+      const p = network.indexOf.get(worker?.kind === 'worker' ? (worker.standsOn ?? '') : '') as number;
       const s = network.indexOf.get(contact.surface) as number;
       const a = assembleAdmittance(network);
       const g = 1 / bodyOhms;

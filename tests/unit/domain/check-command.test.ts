@@ -108,7 +108,6 @@ describe.each([
   ['node that is not an object', () => withNode('A' as unknown as Record<string, unknown>), [`nodes[${NODE}]: must be an object`]],
   ['duplicate node id', () => withNode(node.phase('A')), [`nodes[${NODE}].id: duplicate id "A"`]],
   ['link id equal to a node id', () => withLink(link.bond('CB', 'A', 'B')), [`links[${LINK}].id: duplicate id "CB"`]],
-  ['worker without standsOn', () => withNode({ id: 'W9', kind: 'worker' }), [`nodes[${NODE}].standsOn: is required`]],
   ['worker standing on an unknown node', () => withNode(node.worker('W9', 'B9')), [`nodes[${NODE}].standsOn: no node with id "B9"`]],
   ['structure without material', () => withNode({ id: 'P9', kind: 'structure' }), [`nodes[${NODE}].material: must be one of wood, steel, concrete, fiberglass`]],
   ['rod group without spacing', () => withNode(node.rod('R9', { count: 2 })), [`nodes[${NODE}].spacingM: is required when count is more than 1`]],

@@ -75,7 +75,7 @@ describe('checkPlan on random valid plans', () => {
         const back = (id: string) => id.replace(/^q(\d+)$/, 'n$1').replace(/^m(\d+)$/, 'l$1');
         const renamed: PlanDocument = {
           ...plan,
-          nodes: plan.nodes.map((n) => (n.kind === 'worker' ? { ...n, id: to(n.id), standsOn: to(n.standsOn) } : { ...n, id: to(n.id) })),
+          nodes: plan.nodes.map((n) => (n.kind === 'worker' ? { ...n, id: to(n.id), standsOn: to(n.standsOn!) } : { ...n, id: to(n.id) })),
           links: plan.links.map((l) => ({ ...l, id: to(l.id), from: to(l.from), to: to(l.to) })),
         };
         const text = (s: string) => s.replace(/\bq(\d+)\b/g, 'n$1').replace(/\bm(\d+)\b/g, 'l$1');

@@ -1,3 +1,4 @@
+import { fontRuns, GREEK, LATIN } from '../../../src/components/editor/pdf-font';
 import { describe, expect, it } from 'vitest';
 import { STARTERS, emptyPlan } from '../../../src/lib/domain/starters';
 import { parsePlan } from '../../../src/lib/schemas/plan';
@@ -124,7 +125,11 @@ describe('keyboard commands', () => {
 });
 
 describe('PDF text', () => {
-  it('spells out symbols the standard fonts lack', () => {
-    expect(pdfText('0.5 Ω — 2 ≤ 3 ×')).toBe('0.5 ohm - 2 <= 3 x');
+  it('keeps what the embedded Source Sans 3 prints (Ω ρ π − µ ²) and spells out the rest', () => {
+    expect(pdfText('0.5 Ω — 2 ≤ 3 × ρ π − µ ²')).toBe('0.5 Ω — 2 <= 3 × ρ π − µ ²');
+    expect(pdfText('a ⚡ b')).toBe('a ? b');
+  });
+  it('splits text into Latin and Greek runs for the two font subsets', () => {
+    expect(fontRuns('100 Ω·m, ρ = 2')).toEqual([['100 ', LATIN], ['Ω', GREEK], ['·m, ', LATIN], ['ρ', GREEK], [' = 2', LATIN]]);
   });
 });

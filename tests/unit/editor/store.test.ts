@@ -2,6 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { findStarter } from '../../../src/lib/domain/starters';
 import { parsePlan, type PlanDocument } from '../../../src/lib/schemas/plan';
 import { createEditorStore, HISTORY_LIMIT } from '../../../src/components/editor/store';
+import { STANDABLE } from '../../../src/components/editor/panels/fields';
+import { checkPlan } from '../../../src/lib/domain/checker';
 
 const starter = () => findStarter('tangent-bucket')!.build('Test plan');
 const fresh = (doc: PlanDocument = starter()) => createEditorStore({ doc, baseRevision: 3 });
@@ -22,14 +24,23 @@ describe('editor store', () => {
     expect(store.getState().saveState).toBe('unsaved');
   });
 
-  it('gives a worker on an empty plan an earth node to stand on', () => {
-    const store = fresh({ ...starter(), nodes: [], links: [] });
+  it('a new worker stands on nothing until the user chooses, and the check blocks on it', () => {
+    // Even with a bucket on the plan, nothing is guessed.
+    const store = fresh();
     const id = store.getState().addNode('worker', { x: 0, y: 0 });
     const doc = store.getState().doc;
-    const worker = doc.nodes.find((n) => n.id === id);
-    expect(worker).toMatchObject({ kind: 'worker', standsOn: 'E1' });
-    expect(doc.nodes.map((n) => n.kind)).toEqual(['earth', 'worker']);
+    const worker = doc.nodes.find((n) => n.id === id)!;
+    expect(worker.kind).toBe('worker');
+    expect('standsOn' in worker).toBe(false);
+    expect(doc.nodes).toHaveLength(starter().nodes.length + 1);
     expect(parsePlan(doc).ok).toBe(true);
+    const finding = checkPlan(doc).findings.find((f) => f.rule === 'worker-stands-nowhere');
+    expect(finding).toMatchObject({ severity: 'blocker', elements: [id] });
+  });
+
+  it('offers as a standing surface only what a person can stand on or in', () => {
+    for (const kind of ['bucket', 'truck', 'mat', 'earth', 'structure'] as const) expect(STANDABLE.has(kind)).toBe(true);
+    for (const kind of ['phase', 'neutral', 'shield-wire', 'hardware', 'ground-rod', 'pole-ground', 'worker'] as const) expect(STANDABLE.has(kind)).toBe(false);
   });
 
   it('moves nodes during a drag and undoes the whole drag in one step', () => {
@@ -45,16 +56,16 @@ describe('editor store', () => {
     expect(store.getState().doc.nodes.find((n) => n.id === 'CB')!.position).toEqual({ x: 340, y: 260 });
   });
 
-  it('deletes a node with its links and the workers standing on it; undo restores all, redo removes again', () => {
+  it('deletes a node with its links; a worker who stood on it stays, standing on nothing; undo restores all', () => {
     const store = fresh();
     const original = store.getState().doc;
     store.getState().select(['BK']);
     store.getState().deleteSelection();
     const doc = store.getState().doc;
     expect(ids(doc)).not.toContain('BK');
-    expect(ids(doc)).not.toContain('W1');
+    expect(doc.nodes.find((n) => n.id === 'W1')).not.toHaveProperty('standsOn');
     expect(ids(doc)).not.toContain('jBK');
-    expect(ids(doc)).not.toContain('rA');
+    expect(ids(doc)).toContain('rA');
     expect(parsePlan(doc).ok).toBe(true);
     store.getState().undo();
     expect(store.getState().doc).toBe(original);
@@ -121,6 +132,50 @@ describe('editor store', () => {
     const id = store.getState().connect('reach', 'W1', 'P1');
     expect(id).toBe('r1');
     expect(parsePlan(store.getState().doc).ok).toBe(true);
+  });
+
+  it('refuses a second identical link unless a parallel lead is asked for', () => {
+    const store = fresh();
+    const before = store.getState().doc.links.length;
+    // jA already joins A and CB; the same pair either way round is refused with a reason.
+    expect(store.getState().connect('jumper', 'CB', 'A')).toBeNull();
+    expect(store.getState().message).toMatch(/already joined by jumper jA/);
+    store.getState().armLinkTool('jumper');
+    store.getState().tapElement('A');
+    store.getState().tapElement('CB');
+    expect(store.getState().doc.links).toHaveLength(before);
+    // A bond between the same two nodes is a different link and is allowed, once its caution is accepted.
+    expect(store.getState().connect('bond', 'A', 'CB')).toBeNull();
+    expect(store.getState().settleBond('bond')).not.toBeNull();
+    const id = store.getState().addParallel('jA');
+    expect(id).not.toBeNull();
+    const copy = store.getState().doc.links.find((l) => l.id === id)!;
+    const original = store.getState().doc.links.find((l) => l.id === 'jA')!;
+    expect(copy).toMatchObject({ kind: 'jumper', from: 'A', to: 'CB', cable: (original as { cable: string }).cable });
+    store.getState().undo();
+    expect(store.getState().doc.links.some((l) => l.id === id)).toBe(false);
+  });
+
+  it('warns before a bond on a phase or between the cluster bar and ground, and offers a jumper', () => {
+    const store = fresh({ ...starter(), links: [] });
+    const count = () => store.getState().doc.links.length;
+    store.getState().armLinkTool('bond');
+    store.getState().tapElement('A');
+    store.getState().tapElement('CB');
+    expect(count()).toBe(0);
+    expect(store.getState().pendingBond?.caution).toMatch(/existing permanent connection.*joins a phase/);
+    expect(store.getState().settleBond('jumper')).toBe('j1');
+    expect(store.getState().doc.links[0]).toMatchObject({ kind: 'jumper', from: 'A', to: 'CB' });
+    store.getState().tapElement('CB');
+    store.getState().tapElement('N');
+    expect(store.getState().pendingBond?.caution).toMatch(/cluster bar to the neutral or to ground/);
+    store.getState().settleBond('cancel');
+    expect(count()).toBe(1);
+    // A bond between the bucket and the bar is what bonds are for: no caution.
+    store.getState().tapElement('BK');
+    store.getState().tapElement('CB');
+    expect(store.getState().pendingBond).toBeNull();
+    expect(store.getState().doc.links.at(-1)).toMatchObject({ kind: 'bond', from: 'BK', to: 'CB' });
   });
 
   it('read-only stores refuse every edit', () => {

@@ -1,6 +1,6 @@
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { findStarter } from '../../../src/lib/domain/starters';
-import type { EditorApi, SaveResult } from '../../../src/components/editor/api-client';
+import { createApi, type EditorApi, type SaveResult } from '../../../src/components/editor/api-client';
 import { createEditorStore } from '../../../src/components/editor/store';
 import { draftKey, readLocalDraft, startSync } from '../../../src/components/editor/sync';
 
@@ -87,5 +87,58 @@ describe('sync', () => {
     expect(store.getState().saveState).toBe('invalid');
     expect(store.getState().saveIssues[0].path).toBe('nodes[0].id');
     sync.stop();
+  });
+
+  it('an ended session says so, keeps the work, never retries by itself, and saves once signed in again', async () => {
+    const { store, api, storage, events, sync } = setup([{ kind: 'signed-out' }]);
+    store.getState().addNode('mat', { x: 0, y: 0 });
+    await vi.advanceTimersByTimeAsync(2000);
+    expect(store.getState().saveState).toBe('signed-out');
+    expect(storage.getItem(draftKey(7, 2))).toContain('"M1"');
+    await vi.advanceTimersByTimeAsync(60000);
+    expect(api.save).toHaveBeenCalledTimes(1);
+    // Back from the sign-in tab: the page gets the focus and saves.
+    events.dispatchEvent(new Event('focus'));
+    await vi.advanceTimersByTimeAsync(0);
+    expect(api.save).toHaveBeenCalledTimes(2);
+    expect(store.getState().saveState).toBe('saved');
+    expect(store.getState().doc.nodes.some((n) => n.id === 'M1')).toBe(true);
+    sync.stop();
+  });
+
+  it('403 and 413 are refusals with their own words, not "offline", and are not retried', async () => {
+    const forbidden = setup([{ kind: 'forbidden', message: 'Your role may not change this plan.' }]);
+    forbidden.store.getState().addNode('mat', { x: 0, y: 0 });
+    await vi.advanceTimersByTimeAsync(2000);
+    expect(forbidden.store.getState().saveState).toBe('forbidden');
+    expect(forbidden.store.getState().message).toMatch(/may not change this plan.*stay on this device/);
+    await vi.advanceTimersByTimeAsync(60000);
+    expect(forbidden.api.save).toHaveBeenCalledTimes(1);
+    forbidden.sync.stop();
+
+    const large = setup([{ kind: 'too-large', message: 'This plan is too large for the server to take.' }]);
+    large.store.getState().addNode('mat', { x: 0, y: 0 });
+    await vi.advanceTimersByTimeAsync(2000);
+    expect(large.store.getState().saveState).toBe('too-large');
+    expect(large.store.getState().message).toMatch(/too large/);
+    await vi.advanceTimersByTimeAsync(60000);
+    expect(large.api.save).toHaveBeenCalledTimes(1);
+    // A change (say, deleting elements) is tried again.
+    large.store.getState().select(['M1']);
+    large.store.getState().deleteSelection();
+    await vi.advanceTimersByTimeAsync(2000);
+    expect(large.api.save).toHaveBeenCalledTimes(2);
+    expect(large.store.getState().saveState).toBe('saved');
+    large.sync.stop();
+  });
+
+  it('the API client maps 401, 403 and 413 to refusals, not to "offline"', async () => {
+    const answer = (status: number) => vi.fn(async () => new Response(JSON.stringify({ error: { code: 'X', message: 'No.' } }), { status }));
+    const doc = findStarter('tangent-bucket')!.build();
+    expect(await createApi(answer(401)).save(1, { expectedRevision: 1, document: doc })).toEqual({ kind: 'signed-out' });
+    expect(await createApi(answer(403)).save(1, { expectedRevision: 1, document: doc })).toEqual({ kind: 'forbidden', message: 'No.' });
+    expect((await createApi(answer(413)).save(1, { expectedRevision: 1, document: doc })).kind).toBe('too-large');
+    expect(await createApi(answer(401)).check(doc)).toEqual({ kind: 'signed-out' });
+    expect((await createApi(answer(413)).check(doc)).kind).toBe('too-large');
   });
 });

@@ -1,4 +1,6 @@
 import { describe, expect, it } from 'vitest';
+import { createEditorStore } from '../../../src/components/editor/store';
+import { findStarter } from '../../../src/lib/domain/starters';
 import { cableLabel, feetFromMetres, formatLength, lengthInputValue, metresFromFeet, parseLength } from '../../../src/lib/domain/units';
 import { CABLE_SIZES } from '../../../src/lib/schemas/plan';
 
@@ -35,6 +37,20 @@ describe('lengths', () => {
   it.each([[''], ['ten feet'], ['5 ft 13 in'], ['1.2.3']])('refuses "%s" in feet', (text) => {
     expect(parseLength(text, 'imperial').ok).toBe(false);
   });
+  it('reads what a keypad shows whichever units are chosen: "6.5", "6 ft 6 in", "6\'6\"", "2 m"', () => {
+    const read = (text: string, system: 'metric' | 'imperial') => {
+      const r = parseLength(text, system);
+      return r.ok ? r.value : NaN;
+    };
+    expect(read('6.5', 'imperial')).toBeCloseTo(1.9812, 6);
+    expect(read('6 ft 6 in', 'imperial')).toBeCloseTo(1.9812, 6);
+    expect(read('6\'6"', 'imperial')).toBeCloseTo(1.9812, 6);
+    expect(read('6\u20196\u201d', 'imperial')).toBeCloseTo(1.9812, 6);
+    expect(read('2 m', 'imperial')).toBe(2);
+    expect(read('150 cm', 'imperial')).toBe(1.5);
+    expect(read('6 ft 6 in', 'metric')).toBeCloseTo(1.9812, 6);
+    expect(read('2 m', 'metric')).toBe(2);
+  });
   it('reads metres with or without the unit', () => {
     expect(parseLength('2.5', 'metric')).toEqual({ ok: true, value: 2.5 });
     expect(parseLength('2.5 m', 'metric')).toEqual({ ok: true, value: 2.5 });
@@ -64,5 +80,20 @@ describe('cable labels', () => {
     expect(cableLabel('2/0', 'metric')).toBe('2/0 AWG (67.4 mm²)');
     const areas = CABLE_SIZES.map((c) => Number(/\(([\d.]+) mm²\)/.exec(cableLabel(c, 'metric'))![1]));
     expect([...areas].sort((a, b) => a - b)).toEqual(areas);
+  });
+});
+
+describe('defaults in the units the crew works in', () => {
+  it('an 8 ft rod of 5/8 in and 10 ft leads in feet; 2.4 m, 16 mm and 3 m in metres', () => {
+    const imperial = createEditorStore({ doc: { ...findStarter('tangent-bucket')!.build(), links: [] }, units: 'imperial' });
+    const rod = imperial.getState().addNode('ground-rod', { x: 0, y: 0 });
+    const r = imperial.getState().doc.nodes.find((n) => n.id === rod) as { lengthM: number; diameterMm: number };
+    expect(formatLength(r.lengthM, 'imperial')).toBe('8 ft 0 in');
+    expect(r.diameterMm / 25.4).toBeCloseTo(0.625, 9);
+    imperial.getState().connect('jumper', 'A', 'CB');
+    expect(formatLength((imperial.getState().doc.links[0] as { lengthM: number }).lengthM, 'imperial')).toBe('10 ft 0 in');
+    const metric = createEditorStore({ doc: { ...findStarter('tangent-bucket')!.build(), links: [] }, units: 'metric' });
+    const rod2 = metric.getState().addNode('ground-rod', { x: 0, y: 0 });
+    expect(metric.getState().doc.nodes.find((n) => n.id === rod2)).toMatchObject({ lengthM: 2.4, diameterMm: 16 });
   });
 });

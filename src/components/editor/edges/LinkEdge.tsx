@@ -38,6 +38,7 @@ function SeverityBadge({ x, y, severity }: { x: number; y: number; severity: 'bl
 export const LinkEdge = memo(function LinkEdge({ id, sourceX, sourceY, targetX, targetY, data, selected }: EdgeProps<PlanLink>) {
   const severity = useEditor(selectSeverityOf(id));
   const pins = useEditor((s) => s.pins[id]);
+  const flash = useEditor((s) => (s.flashing.ids.includes(id) ? s.flashing.seq : 0));
   if (!data) return null;
   const dx = targetX - sourceX;
   const dy = targetY - sourceY;
@@ -53,9 +54,11 @@ export const LinkEdge = memo(function LinkEdge({ id, sourceX, sourceY, targetX, 
   const style =
     data.kind === 'jumper' ? { stroke: INK, strokeWidth: 5 } : data.kind === 'bond' ? { stroke: INK, strokeWidth: 1.5 } : { stroke: INK, strokeWidth: 2.5, strokeDasharray: '0.5 6', strokeLinecap: 'round' as const };
   const halo = severity ? SEVERITY_COLOUR[severity] : selected ? '#0f766e' : null;
-  const tag = data.kind === 'jumper' ? cableTag(data.cable) : data.kind === 'bond' ? 'bond' : null;
+  // The name the findings use (label, else id) is on the drawing, beside the cable size.
+  const name = data.label?.trim() || id;
+  const tag = data.kind === 'jumper' ? `${name} · ${cableTag(data.cable)}` : data.kind === 'bond' ? `${name} bond` : null;
   return (
-    <g data-testid={`link-${id}`} data-kind={data.kind} data-severity={severity ?? undefined}>
+    <g key={flash || undefined} data-testid={`link-${id}`} data-kind={data.kind} data-severity={severity ?? undefined} className={flash ? 'bm-flash' : undefined}>
       {halo && <path d={path} fill="none" stroke={halo} strokeOpacity={0.4} strokeWidth={style.strokeWidth + 8} strokeLinecap="round" />}
       <BaseEdge id={id} path={path} style={style} interactionWidth={28} />
       {isReach && <HandMark x={endX} y={endY} angle={(Math.atan2(uy, ux) * 180) / Math.PI} />}

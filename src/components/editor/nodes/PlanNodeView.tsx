@@ -44,18 +44,21 @@ export function PinMarkers({ id, className }: { id: string; className: string })
 export const PlanNodeView = memo(function PlanNodeView({ id, data, selected }: NodeProps<PlanNode>) {
   const severity = useEditor(selectSeverityOf(id));
   const linkFrom = useEditor((s) => s.linkFrom === id);
+  // A new key per "Show" restarts the flash animation.
+  const flash = useEditor((s) => (s.flashing.ids.includes(id) ? s.flashing.seq : 0));
   const material = data.kind === 'structure' || data.kind === 'crossarm' ? data.material : undefined;
   const phase = data.kind === 'phase' ? data.phase : undefined;
   const ring = severity ? SEVERITY_COLOUR[severity] : selected || linkFrom ? '#0f766e' : 'transparent';
   return (
     <div
-      className="bm-node relative flex flex-col items-center"
+      key={flash || undefined}
+      className={`bm-node relative flex flex-col items-center${flash ? ' bm-flash' : ''}`}
       data-kind={data.kind}
       data-severity={severity ?? undefined}
       aria-label={`${data.label ?? data.kind} (${id})${severity ? `, ${WORD[severity]}` : ''}`}
     >
       <div
-        className="relative flex h-14 w-14 items-center justify-center rounded-lg bg-white"
+        className="bm-glyph-box relative flex h-14 w-14 items-center justify-center rounded-lg bg-white"
         style={{ outline: `${severity ? 3 : 2}px ${severity === 'warning' ? 'dashed' : 'solid'} ${ring}`, outlineOffset: 2, boxShadow: selected ? '0 0 0 6px rgba(15,118,110,.18)' : undefined }}
       >
         <Glyph kind={data.kind} material={material} phase={phase} />

@@ -22,7 +22,8 @@ export function CautionLine() {
 
 export function Drawer({ onShow }: { onShow: (ids: string[]) => void }) {
   const [tab, setTab] = useState<Tab>('Findings');
-  const [open, setOpen] = useState(true);
+  // Folded to its strip on a phone or a short tablet screen, so the drawing keeps the room.
+  const [open, setOpen] = useState(() => typeof window === 'undefined' || (window.innerWidth >= 768 && window.innerHeight >= 820));
   const report = useEditor((s) => s.report);
   const doc = useEditor((s) => (tab === 'Jumpers' ? s.doc : null));
   const units = useEditor((s) => s.units);

@@ -15,6 +15,13 @@ export const PALETTE_GROUPS: { name: string; kinds: NodeKind[] }[] = [
   { name: 'People and equipment', kinds: ['worker', 'bucket', 'truck'] },
 ];
 
+/** One line each on what the three links are, shown under their tools. */
+export const LINK_HINTS: Record<LinkKind, string> = {
+  jumper: 'A temporary grounding lead you install; rated against the fault current.',
+  bond: 'A permanent connection already in place; never use it to ground a phase.',
+  reach: 'What a worker can touch from where they stand; carries no current.',
+};
+
 export const DRAG_TYPE = 'application/x-bondmap-kind';
 
 export function LineSample({ kind }: { kind: LinkKind }) {
@@ -72,6 +79,7 @@ export const Palette = memo(function Palette({ onPlace }: { onPlace: (kind: Node
                 <span className={linkTool === kind ? 'rounded bg-white px-0.5' : ''}><LineSample kind={kind} /></span>
                 {LINK_LABELS[kind]}
               </button>
+              <p className="px-2 pb-1 text-xs leading-snug text-note" data-testid={`tool-hint-${kind}`}>{LINK_HINTS[kind]}</p>
             </li>
           ))}
         </ul>

@@ -80,7 +80,7 @@ export function PropertiesForm({ title, fields, source, schema, units, onApply, 
               </select>
             ) : f.type === 'node' ? (
               <select className="field" {...common} value={values[f.key]} onChange={(e) => change(f.key, e.target.value)}>
-                {!nodes.some((n) => n.id === values[f.key]) && <option value={values[f.key]}>{values[f.key] || '(choose)'}</option>}
+                {!nodes.some((n) => n.id === values[f.key] && (!f.nodeFilter || f.nodeFilter(n.kind))) && <option value={values[f.key]}>{values[f.key] || '(choose)'}</option>}
                 {nodes.filter((n) => !f.nodeFilter || f.nodeFilter(n.kind)).map((n) => (
                   <option key={n.id} value={n.id}>{n.id}{n.label ? ` · ${n.label}` : ''}</option>
                 ))}

@@ -9,9 +9,13 @@ const TEXT: Record<SaveState, string> = {
   conflict: 'Conflict',
   invalid: 'Not saved — fix the plan',
   locked: 'Read only',
+  'signed-out': 'Signed out — kept on this device',
+  forbidden: 'Not allowed — kept on this device',
+  'too-large': 'Too large to save',
 };
 const TONE: Record<SaveState, string> = {
   saved: 'text-clear', unsaved: 'text-note', saving: 'text-note', offline: 'text-warning', conflict: 'text-blocker', invalid: 'text-blocker', locked: 'text-note',
+  'signed-out': 'text-blocker', forbidden: 'text-blocker', 'too-large': 'text-blocker',
 };
 
 function Shape({ state }: { state: SaveState }) {
@@ -20,7 +24,7 @@ function Shape({ state }: { state: SaveState }) {
       {state === 'saved' && <path d="M3.5 8.5l3 3 6-7" fill="none" stroke="currentColor" strokeWidth="2" strokeLinecap="round" strokeLinejoin="round" />}
       {(state === 'saving' || state === 'unsaved') && <circle cx="8" cy="8" r="5.5" fill="none" stroke="currentColor" strokeWidth="2" strokeDasharray={state === 'saving' ? '4 3' : undefined} />}
       {state === 'offline' && <path d="M2 6a9 9 0 0112 0M4.5 8.5a5.5 5.5 0 017 0M7 11a2 2 0 012 0M2 2l12 12" fill="none" stroke="currentColor" strokeWidth="1.8" strokeLinecap="round" />}
-      {(state === 'conflict' || state === 'invalid') && <path d="M8 1.5L15 14H1z M8 6v4 M8 12v.5" fill="none" stroke="currentColor" strokeWidth="1.8" strokeLinejoin="round" strokeLinecap="round" />}
+      {(state === 'conflict' || state === 'invalid' || state === 'signed-out' || state === 'forbidden' || state === 'too-large') && <path d="M8 1.5L15 14H1z M8 6v4 M8 12v.5" fill="none" stroke="currentColor" strokeWidth="1.8" strokeLinejoin="round" strokeLinecap="round" />}
       {state === 'locked' && <path d="M4 7h8v7H4zM5.5 7V5a2.5 2.5 0 015 0v2" fill="none" stroke="currentColor" strokeWidth="1.8" />}
     </svg>
   );

@@ -45,7 +45,7 @@ export function TopBar({ status, onFit, onCheck, onRetrySave, onExport, onImport
   const file = useRef<HTMLInputElement>(null);
   const [exportOpen, setExportOpen] = useState(false);
   return (
-    <div className="no-print flex flex-wrap items-center gap-2 border-b border-line bg-white px-3 py-1" data-testid="topbar">
+    <div className="no-print relative z-40 flex flex-wrap items-center gap-2 border-b border-line bg-white px-3 py-1" data-testid="topbar">
       <div className="flex min-w-[20rem] flex-1 items-center gap-3">
         <TitleField />
         <StatusBadge status={status} />

@@ -23,6 +23,9 @@ export interface FieldSpec {
   hint?: string;
 }
 
+/** What a person can stand on or in (the cluster bar stands for a climber's footing at the bar). */
+export const STANDABLE: ReadonlySet<NodeKind> = new Set<NodeKind>(['bucket', 'truck', 'mat', 'earth', 'structure', 'crossarm', 'cluster-bar']);
+
 const label: FieldSpec = { key: 'label', label: 'Label', type: 'text', optional: true };
 const groundOhms: FieldSpec = { key: 'groundOhms', label: 'Resistance to earth', type: 'number', unit: 'Ω', optional: true, hint: 'Leave blank to use the default the check reports.' };
 const material: FieldSpec = { key: 'material', label: 'Material', type: 'select', options: MATERIALS.map((m) => ({ value: m, label: m[0].toUpperCase() + m.slice(1) })) };
@@ -49,7 +52,7 @@ export const NODE_FIELDS: Record<NodeKind, FieldSpec[]> = {
   truck: [label, groundOhms],
   mat: [label],
   'pole-ground': [label],
-  worker: [label, { key: 'standsOn', label: 'Stands on', type: 'node', nodeFilter: (k) => k !== 'worker' && k !== 'supply-end' }],
+  worker: [label, { key: 'standsOn', label: 'Stands on', type: 'node', nodeFilter: (k) => STANDABLE.has(k), hint: 'What the worker stands on or in. A new worker stands nowhere until you choose.' }],
   'supply-end': [label],
 };
 

@@ -45,9 +45,10 @@ export function analyseNetwork(plan: PlanDocument): NetworkFigures {
   for (const link of plan.links) {
     if (link.kind !== 'reach') continue;
     const worker = nodeById.get(link.from);
-    const stand = worker?.kind === 'worker' ? network.indexOf.get(worker.standsOn) : undefined;
+    const stand = worker?.kind === 'worker' && worker.standsOn !== undefined ? network.indexOf.get(worker.standsOn) : undefined;
     const target = nodeById.get(link.to);
-    const surface = network.indexOf.get(target?.kind === 'worker' ? target.standsOn : link.to);
+    const surfaceId = target?.kind === 'worker' ? target.standsOn : link.to;
+    const surface = surfaceId === undefined ? undefined : network.indexOf.get(surfaceId);
     const floating = stand === undefined || surface === undefined;
     const figures: ContactFigures = { worker: link.from, surface: link.to, touchVolts: 0, bodyAmps: 0, limitAmps, worstPhase: null, status: floating ? 'floating' : 'solved', systemVoltageLimited: false };
     contacts.push(figures);

@@ -52,19 +52,22 @@ export function lineToNeutralVolts(nominalKv: number): number {
  * current injected for contacts and rods (Df·If, IEEE Std 80) and the line-to-neutral voltage.
  */
 export function computeFault(system: PlanDocument['system']): FaultFigures {
-  const durationS = faultDurationS(system.clearingCycles, system.frequencyHz);
-  const df = decrementFactor(system.xOverR, durationS, system.frequencyHz);
-  const kappa = peakFactor(system.xOverR);
-  const peakKa = kiloamps(kappa * Math.SQRT2 * system.faultKa);
+  // Missing system data (a new plan) gives NaN figures; the checker blocks on it by name.
+  const faultKa = system.faultKa ?? NaN;
+  const xOverR = system.xOverR ?? NaN;
+  const durationS = faultDurationS(system.clearingCycles ?? NaN, system.frequencyHz);
+  const df = decrementFactor(xOverR, durationS, system.frequencyHz);
+  const kappa = peakFactor(xOverR);
+  const peakKa = kiloamps(kappa * Math.SQRT2 * faultKa);
   return {
-    symmetricalKa: system.faultKa,
+    symmetricalKa: faultKa,
     durationS,
     decrementFactor: df,
-    asymmetricalKa: df * system.faultKa,
+    asymmetricalKa: df * faultKa,
     peakFactor: kappa,
     peakKa,
     peakForceNPerM: system.phaseSpacingM === undefined ? null : parallelForceNPerM(toAmps(peakKa), system.phaseSpacingM),
-    injectedKa: df * system.faultKa,
+    injectedKa: df * faultKa,
     lineToNeutralVolts: system.nominalKv === undefined ? null : lineToNeutralVolts(system.nominalKv),
   };
 }

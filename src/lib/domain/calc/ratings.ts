@@ -97,7 +97,7 @@ export function cableRating(
     return {
       ratingKa: Math.min(gradeWithstandKa(row, durationS), fuseKa),
       fusingKa: fuseKa,
-      basis: `ASTM F855 grade ${row.grade} withstand (secondhand copy, verify) converted by I²t to ${cycles} cycles of 60 Hz, capped at Onderdonk fusing`,
+      basis: `ASTM F855 grade ${row.grade} withstand, converted by I²t to ${cycles} cycles of 60 Hz, capped at Onderdonk fusing`,
     };
   }
   const grade1 = GRADES['2'] as GradeRow;

@@ -33,14 +33,16 @@ function pickChoices(correct: Candidate, wrong: Candidate[]): { choices: Candida
  * t the clearing time; the wrong answers use the other k, the other system frequency for t, and k/t.
  */
 export function bodyCurrentQuestion(plan: PlanDocument): NumbersQuestion | null {
+  const cycles = plan.system.clearingCycles;
+  if (cycles === undefined) return null;
   const kg = plan.criteria?.bodyKg ?? 50;
   const otherKg = kg === 50 ? 70 : 50;
   const f = plan.system.frequencyHz;
   const otherF = f === 60 ? 50 : 60;
-  const t = plan.system.clearingCycles / f;
-  const tWrong = plan.system.clearingCycles / otherF;
+  const t = cycles / f;
+  const tWrong = cycles / otherF;
   const k = kg === 70 ? 0.157 : 0.116;
-  const picked = pickChoices({ value: tolerableBodyAmps(t, kg), reason: `Right: k/√t with k for ${kg} kg and t = ${plan.system.clearingCycles} cycles ÷ ${f} Hz.` }, [
+  const picked = pickChoices({ value: tolerableBodyAmps(t, kg), reason: `Right: k/√t with k for ${kg} kg and t = ${cycles} cycles ÷ ${f} Hz.` }, [
     { value: tolerableBodyAmps(t, otherKg), reason: `The ${otherKg} kg constant instead of the plan's ${kg} kg.` },
     { value: tolerableBodyAmps(tWrong, kg), reason: `The clearing time counted in cycles of ${otherF} Hz instead of ${f} Hz.` },
     { value: k / Math.max(t, 0.03), reason: 'k divided by t, without the square root.' },
@@ -69,8 +71,10 @@ const neighbour = (cable: CableSize, step: number): CableSize | null => CABLE_SI
 export function cableRatingQuestion(plan: PlanDocument, linkId: string): NumbersQuestion | null {
   const link = plan.links.find((l) => l.id === linkId);
   if (!link || link.kind !== 'jumper') return null;
+  const cycles = plan.system.clearingCycles;
+  if (cycles === undefined) return null;
   const f = plan.system.frequencyHz;
-  const t = plan.system.clearingCycles / f;
+  const t = cycles / f;
   const right = cableRating(link.cable, t, f);
   const wrongT = t <= 0.25 ? 0.5 : 0.25;
   const wrong: Candidate[] = [];

@@ -37,7 +37,7 @@ export function checkCableUnderrated(ctx: RuleContext): Finding[] {
         message:
           `${capitalise(ctx.model.nameOf(jumper.id))} (${cableName(jumper.cable)}) is rated ${kiloamps(cableRatingKa)} for ${seconds(ctx.fault.durationS)} ` +
           `but must carry ${kiloamps(dutyKa)}; ${fix}.`,
-        basis: 'OSHA 29 CFR 1910.269(n)(4)(i); ASTM F855 grade table (secondhand copy; verify)',
+        basis: 'OSHA 29 CFR 1910.269(n)(4)(i); ASTM F855 grade table',
       },
     ];
   });

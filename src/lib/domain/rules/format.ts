@@ -3,6 +3,8 @@
  * always written out.
  */
 
+import { formatLength, type UnitSystem } from '../units';
+
 const fixed = (value: number, digits: number) => (Number.isFinite(value) ? value.toFixed(digits) : 'an unknown value of');
 
 /** Current in kA to one decimal: "10.5 kA". */
@@ -15,8 +17,9 @@ export const amps = (valueA: number) => `${fixed(valueA, Math.abs(valueA) >= 10 
 export const volts = (valueV: number) =>
   Math.abs(valueV) >= 1000 ? `${fixed(valueV / 1000, 1)} kV` : `${fixed(valueV, Math.abs(valueV) >= 10 ? 0 : 1)} V`;
 
-/** Length in m to one decimal: "1.8 m". */
-export const metres = (valueM: number) => `${fixed(valueM, 1)} m`;
+/** Length given in m, to one decimal ("1.8 m"), or in feet and inches for a crew working in feet ("5 ft 11 in"). */
+export const metres = (valueM: number, units: UnitSystem = 'metric') =>
+  units === 'imperial' && Number.isFinite(valueM) ? formatLength(valueM, 'imperial') : `${fixed(valueM, 1)} m`;
 
 /** Time in s, to two decimals (cycles are fractions of a second): "0.25 s". */
 export const seconds = (valueS: number) => `${fixed(valueS, 2)} s`;

@@ -37,7 +37,9 @@ import { checkSetUnknown } from './set-unknown';
 import { checkSetUsedTwice } from './set-used-twice';
 import { checkStandNotConductive } from './stand-not-conductive';
 import { checkSurfaceOutsideZone } from './surface-outside-zone';
+import { checkSystemDataMissing } from './system-data-missing';
 import type { Finding, Rule, RuleContext } from './types';
+import { checkWorkerStandsNowhere } from './worker-stands-nowhere';
 import { checkZoneUngrounded } from './zone-ungrounded';
 
 export type { Finding, Rule, RuleContext } from './types';
@@ -79,6 +81,8 @@ export const RULES: Readonly<Record<string, Rule>> = {
   'lead-bare-strands': checkLeadBareStrands,
   'supply-side-ungrounded': checkSupplySideUngrounded,
   'supply-side-single-point': checkSupplySideSinglePoint,
+  'system-data-missing': checkSystemDataMissing,
+  'worker-stands-nowhere': checkWorkerStandsNowhere,
 };
 
 /**

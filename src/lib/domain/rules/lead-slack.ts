@@ -23,7 +23,7 @@ export function checkLeadSlack(ctx: RuleContext): Finding[] {
         severity: 'warning' as const,
         elements: [jumper.id],
         message:
-          `${capitalise(ctx.model.nameOf(jumper.id))} is ${metres(lengthM)} long for a ${metres(spanM)} span; use a shorter lead or route it straight, ` +
+          `${capitalise(ctx.model.nameOf(jumper.id))} is ${metres(lengthM, ctx.units)} long for a ${metres(spanM, ctx.units)} span; use a shorter lead or route it straight, ` +
           'because coiled slack whips under fault current and adds reactance.',
         basis: 'common practice: keep leads short with no coiled slack',
       },

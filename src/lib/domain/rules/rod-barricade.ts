@@ -12,7 +12,7 @@ export function checkRodBarricade(ctx: RuleContext): Finding[] {
   return ctx.network.rods.flatMap((rod): Finding[] => {
     const node = ctx.model.node(rod.node);
     if (!node || node.kind !== 'ground-rod' || !Number.isFinite(rod.barricadeRadiusM)) return [];
-    const radius = metres(rod.barricadeRadiusM);
+    const radius = metres(rod.barricadeRadiusM, ctx.units);
     const step = Number.isFinite(rod.tolerableStepVolts) ? ` (tolerable step ${volts(rod.tolerableStepVolts)})` : '';
     const basis = `${rod.barricadeMethod || 'IEEE Std 80 step criterion'}; common practice: barricade temporary rods`;
     const inside = node.workDistanceM !== undefined && node.workDistanceM < rod.barricadeRadiusM;
@@ -23,7 +23,7 @@ export function checkRodBarricade(ctx: RuleContext): Finding[] {
           severity: 'warning' as const,
           elements: [node.id],
           message:
-            `The work position is ${metres(node.workDistanceM as number)} from ${ctx.model.nameOf(node.id)}, inside its ${radius} barricade radius${step}; ` +
+            `The work position is ${metres(node.workDistanceM as number, ctx.units)} from ${ctx.model.nameOf(node.id)}, inside its ${radius} barricade radius${step}; ` +
             'drive the rod farther from where people stand, or stand on a mat bonded to it.',
           basis,
         },

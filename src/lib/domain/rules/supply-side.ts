@@ -13,7 +13,7 @@ function workPhases(ctx: RuleContext): Set<string> {
   const work = new Set<string>();
   for (const reach of model.linksOf('reach')) {
     const target = model.reachTarget(reach);
-    if (model.node(target)?.kind === 'phase') work.add(target);
+    if (target !== undefined && model.node(target)?.kind === 'phase') work.add(target);
   }
   return work;
 }

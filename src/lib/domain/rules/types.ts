@@ -7,6 +7,7 @@ import type { FaultFigures, NetworkFigures } from '../calc/contract';
 import type { PlanModel } from '../plan-model';
 import type { SetContext } from '../sets-in-plan';
 import type { Finding } from '../report';
+import type { UnitSystem } from '../units';
 import type { ZoneMap } from '../zones';
 
 export type { Finding, Severity } from '../report';
@@ -23,6 +24,8 @@ export interface RuleContext {
   cableRatingKa(cable: CableSize): number;
   /** The grounding sets the plan names, when an inventory was given (set-* rules); `plan` then carries the sets' figures. */
   sets?: SetContext | null;
+  /** The units the findings' sentences give lengths in (the reader's choice; figures stay SI). */
+  units: UnitSystem;
 }
 
 export type Rule = (ctx: RuleContext) => Finding[];
