@@ -29,6 +29,8 @@ getDb().sequelize.addHook('beforeQuery', () => countQuery());
 
 /** No route takes more than this; each route's own, smaller limit applies while reading. */
 const MAX_BODY_BYTES = PLAN_BODY_LIMIT;
+/** Photo uploads (up to 15 MB) are measured by their own route, which refuses them by name (PHOTO_TOO_LARGE). */
+const OWN_BODY_LIMIT = /^\/api\/records\/\d+\/photos$/;
 
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 const PUBLIC_PAGES = [/^\/login\/?$/, /^\/forgot-password\/?$/, /^\/set-password\/[^/]+\/?$/, /^\/favicon/, /^\/_astro\//, /^\/fonts\//];
@@ -83,7 +85,7 @@ async function handle(ctx: Ctx, next: Next, isApi: boolean): Promise<Response> {
 
   if (!SAFE_METHODS.has(request.method)) {
     if (isCrossSite(request, url)) return json(new AppError('ORIGIN_REJECTED').toBody(), 403);
-    if (Number(request.headers.get('content-length') ?? 0) > MAX_BODY_BYTES) {
+    if (!OWN_BODY_LIMIT.test(path) && Number(request.headers.get('content-length') ?? 0) > MAX_BODY_BYTES) {
       if (!isApi) return plainPage(413, 'Too much sent', 'The request was larger than Bondmap takes, so it was not read and nothing was changed.', { connection: 'close' });
       const error = tooLarge(MAX_BODY_BYTES);
       return json(error.toBody(), 413, error.headers);

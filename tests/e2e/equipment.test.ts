@@ -5,7 +5,7 @@
 import type { Page } from 'playwright-core';
 import { expect, it } from 'vitest';
 import { BASE_URL } from '../helpers/api';
-import { useBrowser } from '../helpers/e2e';
+import { fillFaultData, useBrowser } from '../helpers/e2e';
 import { CSV_HEADER, monthsAgo } from '../helpers/equipment';
 
 const browser = useBrowser();
@@ -41,6 +41,7 @@ it('an admin imports sets; a crew lead takes one for a jumper and the check flag
   const errors: string[] = [];
   page.on('pageerror', (e) => errors.push(e.message));
   await page.goto(`${BASE_URL}/plans/new`);
+  await fillFaultData(page);
   await page.getByLabel('Title').fill(`Sets flow ${stamp}`);
   await page.getByLabel(/Tangent pole, bucket work/).check();
   await page.getByRole('button', { name: 'Create plan' }).click();
