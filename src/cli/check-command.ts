@@ -63,6 +63,16 @@ function readArgs(args: string[]): Parsed {
   return { ok: true, text: values.text ?? false, file: positionals[0], equipment: values.equipment, stage: stage as CheckStage, today: values.today };
 }
 
+/** The file's text, or null after saying on standard error why it could not be read. */
+async function readOrSay(io: CheckCommandIo, path: string): Promise<string | null> {
+  try {
+    return await io.readFile(path);
+  } catch (error) {
+    io.stderr(`cannot read ${path}: ${error instanceof Error ? error.message : String(error)}\n`);
+    return null;
+  }
+}
+
 /** Runs the command and returns its exit status; never throws for a bad file or document. */
 export async function runCheckCommand(io: CheckCommandIo): Promise<number> {
   const args = readArgs(io.args);
@@ -74,13 +84,8 @@ export async function runCheckCommand(io: CheckCommandIo): Promise<number> {
     io.stderr(`${args.problem}\n${USAGE}\n`);
     return EXIT_INVALID;
   }
-  let source: string;
-  try {
-    source = await io.readFile(args.file);
-  } catch (error) {
-    io.stderr(`cannot read ${args.file}: ${error instanceof Error ? error.message : String(error)}\n`);
-    return EXIT_INVALID;
-  }
+  const source = await readOrSay(io, args.file);
+  if (source === null) return EXIT_INVALID;
   let input: unknown;
   try {
     input = JSON.parse(source.replace(/^\uFEFF/, ''));
@@ -95,13 +100,8 @@ export async function runCheckCommand(io: CheckCommandIo): Promise<number> {
   }
   let inventory: SetRecord[] | undefined;
   if (args.equipment) {
-    let csv: string;
-    try {
-      csv = await io.readFile(args.equipment);
-    } catch (error) {
-      io.stderr(`cannot read ${args.equipment}: ${error instanceof Error ? error.message : String(error)}\n`);
-      return EXIT_INVALID;
-    }
+    const csv = await readOrSay(io, args.equipment);
+    if (csv === null) return EXIT_INVALID;
     const read = inventoryFromCsv(csv);
     if (!read.ok) {
       io.stderr(read.issues.map((issue) => `${args.equipment} ${issue.path}: ${issue.message}\n`).join(''));

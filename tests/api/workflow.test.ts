@@ -4,6 +4,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { canonicalJson } from '../../src/lib/domain/canonical-json';
+import { checkPlan } from '../../src/lib/domain/checker';
 import { createHash } from 'node:crypto';
 import { Client, signedIn } from '../helpers/api';
 import { closeTestDb, makePerson, makeTeam, planDocument, testDb, PASSWORD } from '../helpers/factories';
@@ -56,7 +57,9 @@ describe('submitting', () => {
 
   it('does not trust a stored report: a blocker hidden from the stored report still blocks', async () => {
     const plan = await createPlan(lead, blockedDocument());
-    const clean = JSON.stringify({ summary: { blockers: 0, warnings: 0, notes: 0 }, findings: [] });
+    // A well-formed report (it passes the report schema) that hides the blocker.
+    const clean = JSON.stringify(checkPlan(planDocument()));
+    expect(JSON.parse(clean).summary.blockers).toBe(0);
     await testDb().models.PlanRevision.update({ report: clean }, { where: { planId: plan.id } });
     await testDb().models.Plan.update({ blockers: 0 }, { where: { id: plan.id } });
     expect((await lead.post(`/api/plans/${plan.id}/submit`)).status).toBe(409);
