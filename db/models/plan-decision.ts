@@ -12,6 +12,11 @@ export class PlanDecision extends Model<InferAttributes<PlanDecision>, InferCrea
   /** SHA-256 of the canonical JSON of the approved document and of its report. */
   declare documentHash: string | null;
   declare reportHash: string | null;
+  /** For approvals (migration 0009): what the library shows, stored once; JSON lists. */
+  declare title: CreationOptional<string | null>;
+  declare libraryTags: CreationOptional<string | null>;
+  declare material: CreationOptional<string | null>;
+  declare fixedRules: CreationOptional<string | null>;
   declare decidedAt: CreationOptional<Date>;
 }
 
@@ -27,6 +32,10 @@ export function initPlanDecision(sequelize: Sequelize): typeof PlanDecision {
       teachingNote: { type: DataTypes.TEXT, allowNull: true },
       documentHash: { type: DataTypes.STRING(64), allowNull: true },
       reportHash: { type: DataTypes.STRING(64), allowNull: true },
+      title: { type: DataTypes.STRING(200), allowNull: true },
+      libraryTags: { type: DataTypes.TEXT, allowNull: true },
+      material: { type: DataTypes.STRING(40), allowNull: true },
+      fixedRules: { type: DataTypes.TEXT, allowNull: true },
       decidedAt: { type: DataTypes.DATE(3), allowNull: false, defaultValue: DataTypes.NOW },
     },
     { sequelize, tableName: 'plan_decisions', timestamps: false },

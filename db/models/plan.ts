@@ -9,8 +9,7 @@ export class Plan extends Model<InferAttributes<Plan>, InferCreationAttributes<P
   declare status: CreationOptional<PlanStatus>;
   declare authorId: string;
   declare currentRevision: CreationOptional<number>;
-  /** Bumped by every write to the row; writes say which version they read (optimistic locking). */
-  declare lockVersion: CreationOptional<number>;
+  // plans.lock_version (migration 0001) is left to its default: it was written and never read.
   /** Counts from the current revision's check report, kept here so lists can sort and filter. */
   declare blockers: number | null;
   declare warnings: number | null;
@@ -32,7 +31,6 @@ export function initPlan(sequelize: Sequelize): typeof Plan {
       status: { type: DataTypes.ENUM(...PLAN_STATUSES), allowNull: false, defaultValue: 'draft' },
       authorId: { type: DataTypes.STRING(32), allowNull: false },
       currentRevision: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 1 },
-      lockVersion: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
       blockers: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
       warnings: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
       submittedAt: { type: DataTypes.DATE(3), allowNull: true },

@@ -1,16 +1,17 @@
 /**
  * The library: each approved revision of the organisation's plans, with its teaching note, tags
- * and the findings that were fixed along the way (rules that fired on an earlier revision and not
- * on the approved one). Reads everything for one organisation and filters in memory: fine for
- * hundreds of approved plans; past that, store tags and fixed rules at approval time.
+ * and the findings that were fixed along the way. Those are worked out once, at approval
+ * (`storeLibraryFacts`, migration 0009), so the library reads one decision row per plan and no
+ * documents. Approvals from before the migration are filled the first time the library reads them.
  */
-import { Op } from 'sequelize';
-import { planTags, type PlanTag } from '../../src/lib/domain/plan-tags';
-import type { CheckReport } from '../../src/lib/domain/report';
-import type { PlanDocument } from '../../src/lib/schemas/plan';
+import { Op, type Transaction } from 'sequelize';
+import { libraryFacts } from '../../src/lib/domain/library-facts';
+import { PLAN_TAGS, type PlanTag } from '../../src/lib/domain/plan-tags';
+import { parseStoredReport } from '../../src/lib/schemas/report';
 import type { Db } from '../connection';
+import type { PlanDecision } from '../models';
+import { nameMap } from './names';
 import { readStoredDocument } from './plans';
-import { nameMap } from './review';
 
 export interface LibraryEntry {
   planId: number;
@@ -32,41 +33,70 @@ export interface LibraryFilters {
   fixed?: string;
 }
 
-const rulesOf = (report: string | null) => new Set(report ? (JSON.parse(report) as CheckReport).findings.filter((f) => f.severity !== 'note').map((f) => f.rule) : []);
+/**
+ * Works out and stores the library's facts on the approving decision of (plan, revision): reads
+ * that revision's document and the reports up to it. Runs inside the approval's transaction.
+ */
+export async function storeLibraryFacts(db: Db, planId: number, revision: number, transaction?: Transaction): Promise<void> {
+  const rows = await db.models.PlanRevision.findAll({ where: { planId, number: { [Op.lte]: revision } }, attributes: ['number', 'report'], transaction });
+  const approved = await db.models.PlanRevision.findOne({ where: { planId, number: revision }, attributes: ['document'], transaction });
+  if (!approved) return;
+  const document = readStoredDocument(approved.document);
+  const reportOf = (n: number) => parseStoredReport(rows.find((r) => r.number === n)?.report ?? null);
+  const earlier = rows.filter((r) => r.number < revision).map((r) => parseStoredReport(r.report));
+  const facts = libraryFacts(document, reportOf(revision), earlier);
+  await db.models.PlanDecision.update(
+    { title: document.title, libraryTags: JSON.stringify(facts.tags), material: facts.material, fixedRules: JSON.stringify(facts.fixedRules) },
+    { where: { planId, revision, decision: 'approve' }, transaction },
+  );
+}
 
-export async function listLibrary(db: Db, organizationId: number, filters: LibraryFilters = {}): Promise<LibraryEntry[]> {
-  const plans = await db.models.Plan.findAll({ where: { organizationId, approvedRevision: { [Op.ne]: null } }, attributes: ['id', 'title', 'structure', 'approvedRevision'] });
+const DECISION_COLUMNS = ['planId', 'revision', 'reviewerId', 'decidedAt', 'teachingNote', 'documentHash', 'title', 'libraryTags', 'material', 'fixedRules'] as const;
+
+const stringList = (text: string | null): string[] => (text ? (JSON.parse(text) as unknown[]).filter((v): v is string => typeof v === 'string') : []);
+const tagList = (text: string | null): PlanTag[] => stringList(text).filter((t): t is PlanTag => (PLAN_TAGS as readonly string[]).includes(t));
+
+/** The organisation's library, newest approval first; `onlyPlanId` reads one plan's entry. */
+export async function listLibrary(db: Db, organizationId: number, filters: LibraryFilters = {}, onlyPlanId?: number): Promise<LibraryEntry[]> {
+  const plans = await db.models.Plan.findAll({
+    where: { organizationId, approvedRevision: { [Op.ne]: null }, ...(onlyPlanId !== undefined ? { id: onlyPlanId } : {}) },
+    attributes: ['id', 'structure', 'approvedRevision'],
+  });
   if (!plans.length) return [];
-  const planIds = plans.map((p) => p.id);
-  const [decisions, revisions] = await Promise.all([
-    db.models.PlanDecision.findAll({ where: { planId: planIds, decision: 'approve' } }),
-    db.models.PlanRevision.findAll({ where: { planId: planIds }, attributes: ['planId', 'number', 'document', 'report'] }),
-  ]);
-  const names = await nameMap(db, decisions.map((d) => d.reviewerId));
-  const entries: LibraryEntry[] = [];
-  for (const plan of plans) {
-    const decision = decisions.find((d) => d.planId === plan.id && d.revision === plan.approvedRevision);
-    const approved = revisions.find((r) => r.planId === plan.id && r.number === plan.approvedRevision);
-    if (!decision || !approved) continue;
-    const document: PlanDocument = readStoredDocument(approved.document);
-    const now = rulesOf(approved.report);
-    const before = new Set(revisions.filter((r) => r.planId === plan.id && r.number < approved.number).flatMap((r) => [...rulesOf(r.report)]));
-    const structure = document.nodes.find((n) => n.kind === 'structure');
-    entries.push({
-      planId: plan.id,
-      revision: approved.number,
-      title: document.title,
-      structure: plan.structure,
-      material: structure && structure.kind === 'structure' ? structure.material : null,
-      tags: planTags(document),
-      reviewerName: names.get(decision.reviewerId) ?? '',
-      approvedAt: decision.decidedAt,
-      teachingNote: decision.teachingNote,
-      fixedRules: [...before].filter((r) => !now.has(r)).sort(),
-      documentHash: decision.documentHash,
-    });
+  const approvedOf = new Map(plans.map((p) => [p.id, p.approvedRevision!]));
+  const read = () => db.models.PlanDecision.findAll({ where: { planId: [...approvedOf.keys()], decision: 'approve' }, attributes: [...DECISION_COLUMNS] });
+  let decisions: PlanDecision[] = (await read()).filter((d) => approvedOf.get(d.planId) === d.revision);
+  const unfilled = decisions.filter((d) => d.libraryTags === null);
+  if (unfilled.length) {
+    for (const d of unfilled) await storeLibraryFacts(db, d.planId, d.revision);
+    decisions = (await read()).filter((d) => approvedOf.get(d.planId) === d.revision);
   }
-  return entries
-    .filter((e) => (!filters.material || e.material === filters.material) && (!filters.tag || e.tags.includes(filters.tag as PlanTag)) && (!filters.fixed || e.fixedRules.includes(filters.fixed)))
-    .sort((a, b) => b.approvedAt.getTime() - a.approvedAt.getTime() || a.planId - b.planId);
+  const names = await nameMap(db, decisions.map((d) => d.reviewerId));
+  const structureOf = new Map(plans.map((p) => [p.id, p.structure]));
+  const entries: LibraryEntry[] = decisions.map((d) => ({
+    planId: d.planId,
+    revision: d.revision,
+    title: d.title ?? '',
+    structure: structureOf.get(d.planId) ?? '',
+    material: d.material,
+    tags: tagList(d.libraryTags),
+    reviewerName: names.get(d.reviewerId) ?? '',
+    approvedAt: d.decidedAt,
+    teachingNote: d.teachingNote,
+    fixedRules: stringList(d.fixedRules),
+    documentHash: d.documentHash,
+  }));
+  return filterLibrary(entries, filters).sort((a, b) => b.approvedAt.getTime() - a.approvedAt.getTime() || a.planId - b.planId);
+}
+
+/** The library entry of one approved plan, or null when the plan is not in the library. */
+export async function libraryEntry(db: Db, organizationId: number, planId: number): Promise<LibraryEntry | null> {
+  return (await listLibrary(db, organizationId, {}, planId))[0] ?? null;
+}
+
+/** The filters of the library page, applied to entries already read. */
+export function filterLibrary(entries: LibraryEntry[], filters: LibraryFilters): LibraryEntry[] {
+  return entries.filter(
+    (e) => (!filters.material || e.material === filters.material) && (!filters.tag || e.tags.includes(filters.tag as PlanTag)) && (!filters.fixed || e.fixedRules.includes(filters.fixed)),
+  );
 }

@@ -7,7 +7,10 @@ import type { PlanStatus } from '../../src/lib/domain/plan-status';
 import { isEditable } from '../../src/lib/domain/plan-status';
 import { defaultSortDir, type ListPlansQuery } from '../../src/lib/schemas/api';
 import { pruneDeep } from '../../src/lib/schemas/depth';
+import { migratePlan } from '../../src/lib/domain/plan-migrations';
+import type { CheckReport } from '../../src/lib/domain/report';
 import { planSchema, type PlanDocument } from '../../src/lib/schemas/plan';
+import { parseStoredReport } from '../../src/lib/schemas/report';
 import type { Db } from '../connection';
 import type { Plan, PlanRevision } from '../models';
 import { recordEvent } from './audit';
@@ -27,8 +30,8 @@ export interface PlanSummary {
   updatedAt: Date;
 }
 
-/** A stored check report; its shape is the checker's contract (docs/plan-format.md). */
-export type StoredReport = { summary?: { blockers: number; warnings: number; notes: number } } & Record<string, unknown>;
+/** A stored check report, read through its schema (src/lib/schemas/report.ts). */
+export type StoredReport = CheckReport;
 
 export interface PlanDetail extends PlanSummary {
   document: PlanDocument;
@@ -65,18 +68,19 @@ function toSummary(row: PlanRow): PlanSummary {
 }
 
 /**
- * Parses a stored document with the plan schema: a corrupt row is an error, never silently used.
- * Extra fields nested deeper than the format allows (stored before the limit) are cut first.
+ * Parses a stored document with the plan schema after migrating it to the current version
+ * (`migratePlan`): a corrupt row is an error, never silently used. Extra fields nested deeper
+ * than the format allows (stored before the limit) are cut first.
  */
 export function readStoredDocument(text: string): PlanDocument {
-  return planSchema.parse(pruneDeep(JSON.parse(text)));
+  return planSchema.parse(migratePlan(pruneDeep(JSON.parse(text))));
 }
 
 function toDetail(row: PlanRow, revision: PlanRevision): PlanDetail {
   return {
     ...toSummary(row),
     document: readStoredDocument(revision.document),
-    report: revision.report ? (JSON.parse(revision.report) as StoredReport) : null,
+    report: parseStoredReport(revision.report),
     revisionCreatedAt: revision.createdAt,
     revisionCreatedBy: revision.createdBy,
   };
@@ -214,7 +218,6 @@ export async function saveDraft(db: Db, organizationId: number, planId: number, 
     await plan.update(
       {
         currentRevision: number,
-        lockVersion: plan.lockVersion + 1,
         title,
         ...(save.structure !== undefined ? { structure: save.structure } : {}),
         blockers: save.report?.summary?.blockers ?? null,

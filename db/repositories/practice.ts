@@ -33,24 +33,6 @@ export async function planExists(db: Db, organizationId: number, planId: number)
   return (await db.models.Plan.count({ where: { id: planId, organizationId } })) > 0;
 }
 
-export interface ExerciseRecord {
-  id: number;
-  planId: number;
-  revision: number;
-  planTitle: string;
-  kind: ExerciseKind;
-  gap: GapKind;
-  modifications: Modifications;
-  document: PlanDocument;
-  key: AnswerKey;
-  prompt: string;
-  teachingNote: string | null;
-  published: boolean;
-  createdBy: string;
-  createdByName: string;
-  createdAt: Date;
-}
-
 export interface NewExercise {
   planId: number;
   revision: number;
@@ -63,6 +45,13 @@ export interface NewExercise {
   teachingNote: string | null;
   published: boolean;
   createdBy: string;
+}
+
+export interface ExerciseRecord extends NewExercise {
+  id: number;
+  planTitle: string;
+  createdByName: string;
+  createdAt: Date;
 }
 
 async function toRecords(db: Db, rows: PracticeExercise[]): Promise<ExerciseRecord[]> {

@@ -1,17 +1,21 @@
 /**
  * The review workflow in the database: submit, decide, start a new revision after approval.
- * Every transition locks the plan row and checks the state inside the transaction, so two
- * racing requests can never both move a plan; the unique (plan, revision) key on decisions is
- * a second guard.
+ * Every transition locks the plan row, reads the facts inside the transaction and asks the
+ * domain's guards (src/lib/domain/review-guards.ts) what may happen, then persists that; two
+ * racing requests can never both move a plan, and the unique (plan, revision) key on decisions
+ * is a second guard.
  */
 import { Transaction, UniqueConstraintError } from 'sequelize';
-import { mailboxKey } from '../../src/lib/domain/people';
-import { isEditable, type PlanStatus } from '../../src/lib/domain/plan-status';
+import type { PlanStatus } from '../../src/lib/domain/plan-status';
+import { judgeDecision, judgeReopen, judgeSubmit, relatedToEditors, type Decision, type PersonLink } from '../../src/lib/domain/review-guards';
 import type { Db } from '../connection';
 import { recordEvent } from './audit';
+import { storeLibraryFacts } from './library';
+import { nameMap } from './names';
 import type { StoredReport } from './plans';
 
-export type Decision = 'approve' | 'return';
+export type { Decision } from '../../src/lib/domain/review-guards';
+export { nameMap } from './names';
 
 type Outcome<T extends string> = { kind: 'ok' } | { kind: T; status?: PlanStatus };
 
@@ -24,8 +28,8 @@ export type InTransaction = (transaction: Transaction, revision: number) => Prom
 
 /**
  * Moves a draft or returned plan to submitted; the caller has re-checked the current revision.
- * A returned plan submitted again without edits gets a new revision (a copy of the returned
- * document), since the returned revision keeps its decision and each revision is decided once.
+ * What may happen is `judgeSubmit`'s verdict; this function reads the facts under the row lock
+ * and persists the verdict.
  */
 export async function submitPlan(
   db: Db,
@@ -38,31 +42,27 @@ export async function submitPlan(
   return db.sequelize.transaction(locked(), async (transaction) => {
     const plan = await db.models.Plan.findOne({ where: { id: planId, organizationId }, lock: transaction.LOCK.UPDATE, transaction });
     if (!plan) return { kind: 'not-found' as const };
-    if (!isEditable(plan.status)) return { kind: 'not-submittable' as const, status: plan.status };
-    // The report is of the revision the caller read; a save since then has not been checked.
-    if (options.checkedRevision !== undefined && plan.currentRevision !== options.checkedRevision) return { kind: 'stale' as const, revision: plan.currentRevision };
-    const blockers = report.summary?.blockers ?? 0;
-    const counts = { blockers, warnings: report.summary?.warnings ?? 0 };
+    const counts = { blockers: report.summary.blockers, warnings: report.summary.warnings };
     const decided = (await db.models.PlanDecision.count({ where: { planId, revision: plan.currentRevision }, transaction })) > 0;
-    // A decided revision never changes: a blocked resubmission leaves it (and the plan) as they are.
-    if (blockers > 0) {
-      if (!decided) {
+    const verdict = judgeSubmit({ status: plan.status, currentRevision: plan.currentRevision, checkedRevision: options.checkedRevision, blockers: counts.blockers, decided });
+    if (verdict.kind === 'not-submittable') return { kind: 'not-submittable' as const, status: verdict.status };
+    if (verdict.kind === 'stale') return { kind: 'stale' as const, revision: verdict.revision };
+    if (verdict.kind === 'blocked') {
+      if (verdict.storeReport) {
         await db.models.PlanRevision.update({ report: JSON.stringify(report) }, { where: { planId, number: plan.currentRevision }, transaction });
         await plan.update(counts, { transaction });
       }
       return { kind: 'blocked' as const };
     }
-    let revision = plan.currentRevision;
-    if (decided) {
-      const current = await db.models.PlanRevision.findOne({ where: { planId, number: revision }, transaction });
-      revision += 1;
+    const { revision } = verdict;
+    if (verdict.copy) {
+      const current = await db.models.PlanRevision.findOne({ where: { planId, number: plan.currentRevision }, transaction });
       await db.models.PlanRevision.create({ planId, number: revision, document: current!.document, report: JSON.stringify(report), createdBy: actorId }, { transaction });
-      await plan.update({ currentRevision: revision, lockVersion: plan.lockVersion + 1 }, { transaction });
     } else {
       await db.models.PlanRevision.update({ report: JSON.stringify(report) }, { where: { planId, number: revision }, transaction });
     }
-    await plan.update({ ...counts, status: 'submitted', submittedAt: new Date() }, { transaction });
-    await recordEvent(db, { organizationId, actorId, action: 'plan.submitted', subjectType: 'plan', subjectId: planId, details: { revision, ...(decided ? { copiedFrom: revision - 1 } : {}) } }, transaction);
+    await plan.update({ ...counts, currentRevision: revision, status: verdict.status, submittedAt: new Date() }, { transaction });
+    await recordEvent(db, { organizationId, actorId, action: 'plan.submitted', subjectType: 'plan', subjectId: planId, details: { revision, ...(verdict.copy ? { copiedFrom: revision - 1 } : {}) } }, transaction);
     await options.then?.(transaction, revision);
     return { kind: 'ok' as const, revision };
   });
@@ -95,29 +95,41 @@ export type DecisionOutcome =
   | { kind: 'related-reviewer' }
   | { kind: 'already-decided' };
 
-/** Records one reviewer's decision on the submitted revision and moves the plan on. */
+/**
+ * Records one reviewer's decision on the submitted revision and moves the plan on, as
+ * `judgeDecision` rules; an approval also stores what the library shows of the revision.
+ */
 export async function decidePlan(db: Db, organizationId: number, planId: number, reviewerId: string, input: DecisionInput, then?: InTransaction): Promise<DecisionOutcome> {
   try {
     return await db.sequelize.transaction(locked(), async (transaction): Promise<DecisionOutcome> => {
       const plan = await db.models.Plan.findOne({ where: { id: planId, organizationId }, lock: transaction.LOCK.UPDATE, transaction });
       if (!plan) return { kind: 'not-found' };
       const editors = await planEditors(db, planId, transaction);
-      if (editors.has(reviewerId)) return { kind: 'own-plan' };
-      if (input.decision === 'approve' && (await relatedToEditors(db, organizationId, reviewerId, editors, transaction))) return { kind: 'related-reviewer' };
-      if (plan.status !== 'submitted') return { kind: 'not-submitted', status: plan.status };
-      if (plan.currentRevision !== input.revision) return { kind: 'stale', currentRevision: plan.currentRevision };
+      // The people are read only when the verdict needs them (an approval by a non-editor).
+      const people = input.decision === 'approve' && !editors.has(reviewerId) ? await peopleLinks(db, organizationId, transaction) : [];
+      const verdict = judgeDecision({
+        status: plan.status,
+        currentRevision: plan.currentRevision,
+        decision: input.decision,
+        revision: input.revision,
+        reviewerId,
+        editors,
+        related: () => relatedToEditors(people, reviewerId, editors),
+      });
+      if (verdict.kind !== 'decide') return verdict;
+      const { revision, status } = verdict;
       await db.models.PlanDecision.create(
-        { planId, revision: plan.currentRevision, decision: input.decision, reviewerId, comment: input.comment, teachingNote: input.teachingNote, documentHash: input.documentHash, reportHash: input.reportHash },
+        { planId, revision, decision: input.decision, reviewerId, comment: input.comment, teachingNote: input.teachingNote, documentHash: input.documentHash, reportHash: input.reportHash },
         { transaction },
       );
-      const status: PlanStatus = input.decision === 'approve' ? 'approved' : 'returned';
-      await plan.update({ status, submittedAt: null, ...(status === 'approved' ? { approvedRevision: plan.currentRevision } : {}) }, { transaction });
-      if (input.decision === 'return' && input.comment) {
-        await db.models.PlanComment.create({ planId, revision: plan.currentRevision, elementId: null, authorId: reviewerId, body: input.comment, resolvedAt: null, resolvedBy: null }, { transaction });
+      await plan.update({ status, submittedAt: null, ...(verdict.approvedRevision !== null ? { approvedRevision: verdict.approvedRevision } : {}) }, { transaction });
+      if (verdict.approvedRevision !== null) await storeLibraryFacts(db, planId, revision, transaction);
+      if (verdict.commentOnRevision && input.comment) {
+        await db.models.PlanComment.create({ planId, revision, elementId: null, authorId: reviewerId, body: input.comment, resolvedAt: null, resolvedBy: null }, { transaction });
       }
-      await recordEvent(db, { organizationId, actorId: reviewerId, action: status === 'approved' ? 'plan.approved' : 'plan.returned', subjectType: 'plan', subjectId: planId, details: { revision: plan.currentRevision, comment: input.comment, documentHash: input.documentHash } }, transaction);
-      await then?.(transaction, plan.currentRevision);
-      return { kind: 'ok', revision: plan.currentRevision, status };
+      await recordEvent(db, { organizationId, actorId: reviewerId, action: status === 'approved' ? 'plan.approved' : 'plan.returned', subjectType: 'plan', subjectId: planId, details: { revision, comment: input.comment, documentHash: input.documentHash } }, transaction);
+      await then?.(transaction, revision);
+      return { kind: 'ok', revision, status };
     });
   } catch (error) {
     if (error instanceof UniqueConstraintError) return { kind: 'already-decided' };
@@ -125,24 +137,10 @@ export async function decidePlan(db: Db, organizationId: number, planId: number,
   }
 }
 
-/**
- * True when the reviewer is too close to the plan's author or editors to approve it: someone in
- * the chain of people who invited the reviewer is an editor (an admin's second account, or an
- * account made by that account), or the reviewer shares a mailbox with an editor.
- */
-export async function relatedToEditors(db: Db, organizationId: number, reviewerId: string, editors: Set<string>, transaction?: Transaction): Promise<boolean> {
-  const people = await db.models.User.findAll({ where: { organizationId }, attributes: ['id', 'email', 'invitedBy'], transaction });
-  const byId = new Map(people.map((p) => [p.id, p]));
-  const reviewer = byId.get(reviewerId);
-  if (!reviewer) return false;
-  const editorMailboxes = new Set([...editors].map((id) => byId.get(id)).filter((p) => !!p).map((p) => mailboxKey(p!.email)));
-  if (editorMailboxes.has(mailboxKey(reviewer.email))) return true;
-  const seen = new Set<string>([reviewerId]);
-  for (let inviter = reviewer.invitedBy; inviter && !seen.has(inviter); inviter = byId.get(inviter)?.invitedBy ?? null) {
-    if (editors.has(inviter)) return true;
-    seen.add(inviter);
-  }
-  return false;
+/** The organisation's people as the independence rule needs them (id, mailbox, who invited them). */
+async function peopleLinks(db: Db, organizationId: number, transaction?: Transaction): Promise<PersonLink[]> {
+  const rows = await db.models.User.findAll({ where: { organizationId }, attributes: ['id', 'email', 'invitedBy'], transaction });
+  return rows.map((r) => ({ id: r.id, email: r.email, invitedBy: r.invitedBy }));
 }
 
 /** Starts a new draft revision of an approved plan (a copy of the approved document). */
@@ -150,11 +148,12 @@ export async function reopenApproved(db: Db, organizationId: number, planId: num
   return db.sequelize.transaction(locked(), async (transaction) => {
     const plan = await db.models.Plan.findOne({ where: { id: planId, organizationId }, lock: transaction.LOCK.UPDATE, transaction });
     if (!plan) return { kind: 'not-found' as const };
-    if (plan.status !== 'approved') return { kind: 'not-approved' as const, status: plan.status };
+    const verdict = judgeReopen(plan.status, plan.currentRevision);
+    if (verdict.kind === 'not-approved') return verdict;
     const current = await db.models.PlanRevision.findOne({ where: { planId, number: plan.currentRevision }, transaction });
-    const number = plan.currentRevision + 1;
+    const number = verdict.revision;
     await db.models.PlanRevision.create({ planId, number, document: current!.document, report: current!.report, createdBy: actorId }, { transaction });
-    await plan.update({ status: 'draft', currentRevision: number, lockVersion: plan.lockVersion + 1 }, { transaction });
+    await plan.update({ status: verdict.status, currentRevision: number }, { transaction });
     await recordEvent(db, { organizationId, actorId, action: 'plan.reopened', subjectType: 'plan', subjectId: planId, details: { revision: number, approvedRevision: plan.approvedRevision } }, transaction);
     return { kind: 'ok' as const, revision: number };
   });
@@ -186,11 +185,4 @@ export async function listDecisions(db: Db, planId: number): Promise<DecisionRec
     reportHash: r.reportHash,
     decidedAt: r.decidedAt,
   }));
-}
-
-export async function nameMap(db: Db, ids: string[]): Promise<Map<string, string>> {
-  const unique = [...new Set(ids)];
-  if (!unique.length) return new Map();
-  const rows = await db.models.User.findAll({ where: { id: unique }, attributes: ['id', 'name'] });
-  return new Map(rows.map((r) => [r.id, r.name]));
 }

@@ -1,6 +1,7 @@
 /** Reading revisions one by one, and the comments pinned to their elements. */
 import { Op } from 'sequelize';
 import type { PlanDocument } from '../../src/lib/schemas/plan';
+import { parseStoredReport } from '../../src/lib/schemas/report';
 import type { Db } from '../connection';
 import { recordEvent } from './audit';
 import { readStoredDocument, type StoredReport } from './plans';
@@ -33,7 +34,7 @@ export async function listRevisions(db: Db, organizationId: number, planId: numb
   const names = await nameMap(db, rows.map((r) => r.createdBy));
   const decisions = new Map((await listDecisions(db, planId)).map((d) => [d.revision, d]));
   return rows.map((r) => {
-    const summary = r.report ? (JSON.parse(r.report) as StoredReport).summary : undefined;
+    const summary = parseStoredReport(r.report)?.summary;
     return {
       number: r.number,
       createdBy: r.createdBy,
@@ -53,7 +54,7 @@ export async function getRevision(db: Db, organizationId: number, planId: number
   if (!row) return null;
   const decision = (await listDecisions(db, planId)).find((d) => d.revision === number) ?? null;
   const names = await nameMap(db, [row.createdBy]);
-  const report = row.report ? (JSON.parse(row.report) as StoredReport) : null;
+  const report = parseStoredReport(row.report);
   const state = decision
     ? decision.decision === 'approve' ? 'approved' : 'returned'
     : number === plan.currentRevision ? plan.status : 'superseded';

@@ -4,6 +4,7 @@
  * the plan is ok, 1 with any blocker, 2 for a document that cannot be read or is invalid, with
  * every problem by path on standard error, one a line.
  */
+import { parseArgs } from 'node:util';
 import { checkPlan } from '../lib/domain/checker';
 import type { SetRecord } from '../lib/domain/equipment';
 import { isCalendarDate } from '../lib/domain/equipment';
@@ -32,40 +33,49 @@ export interface CheckCommandIo {
 
 type Parsed = { ok: true; text: boolean; file: string; equipment?: string; stage: CheckStage; today?: string } | { ok: false; problem: string } | { ok: 'help' };
 
-function parseArgs(args: string[]): Parsed {
-  let text = false;
-  let equipment: string | undefined;
-  let stage: CheckStage = 'draft';
-  let today: string | undefined;
-  const files: string[] = [];
-  for (let i = 0; i < args.length; i += 1) {
-    const arg = args[i];
-    if (arg === '--') continue;
-    if (arg === '--equipment' || arg === '--stage' || arg === '--today') {
-      const value = args[i + 1];
-      if (value === undefined || value.startsWith('--')) return { ok: false, problem: `${arg} needs a value` };
-      i += 1;
-      if (arg === '--equipment') equipment = value;
-      else if (arg === '--today') {
-        if (!isCalendarDate(value)) return { ok: false, problem: '--today must be a date written YYYY-MM-DD' };
-        today = value;
-      }
-      else if ((CHECK_STAGES as readonly string[]).includes(value)) stage = value as CheckStage;
-      else return { ok: false, problem: `--stage must be one of ${CHECK_STAGES.join(', ')}` };
-      continue;
-    }
-    if (arg === '--help' || arg === '-h') return { ok: 'help' };
-    if (arg === '--text') text = true;
-    else if (arg.startsWith('-') && arg !== '-') return { ok: false, problem: `unknown option ${arg}` };
-    else files.push(arg);
+const OPTIONS = {
+  text: { type: 'boolean' },
+  help: { type: 'boolean', short: 'h' },
+  equipment: { type: 'string' },
+  stage: { type: 'string' },
+  today: { type: 'string' },
+} as const;
+
+/** Node's own parser; its errors become one short line naming the option. */
+function readArgs(args: string[]): Parsed {
+  let parsed;
+  try {
+    // A bare `--` (npm passes it through) is skipped, not an end of options.
+    parsed = parseArgs({ args: args.filter((a) => a !== '--'), options: OPTIONS, allowPositionals: true, strict: true });
+  } catch (error) {
+    const code = (error as { code?: string }).code;
+    const option = /'(-[^' ]+)/.exec(error instanceof Error ? error.message : '')?.[1] ?? 'an option';
+    if (code === 'ERR_PARSE_ARGS_INVALID_OPTION_VALUE') return { ok: false, problem: `${option} needs a value` };
+    if (code === 'ERR_PARSE_ARGS_UNKNOWN_OPTION') return { ok: false, problem: `unknown option ${option}` };
+    return { ok: false, problem: error instanceof Error ? error.message : String(error) };
   }
-  if (files.length !== 1) return { ok: false, problem: files.length === 0 ? 'no plan file given' : 'give exactly one plan file' };
-  return { ok: true, text, file: files[0], equipment, stage, today };
+  const { values, positionals } = parsed;
+  if (values.help) return { ok: 'help' };
+  if (values.today !== undefined && !isCalendarDate(values.today)) return { ok: false, problem: '--today must be a date written YYYY-MM-DD' };
+  const stage = values.stage ?? 'draft';
+  if (!(CHECK_STAGES as readonly string[]).includes(stage)) return { ok: false, problem: `--stage must be one of ${CHECK_STAGES.join(', ')}` };
+  if (positionals.length !== 1) return { ok: false, problem: positionals.length === 0 ? 'no plan file given' : 'give exactly one plan file' };
+  return { ok: true, text: values.text ?? false, file: positionals[0], equipment: values.equipment, stage: stage as CheckStage, today: values.today };
+}
+
+/** The file's text, or null after saying on standard error why it could not be read. */
+async function readOrSay(io: CheckCommandIo, path: string): Promise<string | null> {
+  try {
+    return await io.readFile(path);
+  } catch (error) {
+    io.stderr(`cannot read ${path}: ${error instanceof Error ? error.message : String(error)}\n`);
+    return null;
+  }
 }
 
 /** Runs the command and returns its exit status; never throws for a bad file or document. */
 export async function runCheckCommand(io: CheckCommandIo): Promise<number> {
-  const args = parseArgs(io.args);
+  const args = readArgs(io.args);
   if (args.ok === 'help') {
     io.stdout(`${USAGE}\n`);
     return EXIT_OK;
@@ -74,13 +84,8 @@ export async function runCheckCommand(io: CheckCommandIo): Promise<number> {
     io.stderr(`${args.problem}\n${USAGE}\n`);
     return EXIT_INVALID;
   }
-  let source: string;
-  try {
-    source = await io.readFile(args.file);
-  } catch (error) {
-    io.stderr(`cannot read ${args.file}: ${error instanceof Error ? error.message : String(error)}\n`);
-    return EXIT_INVALID;
-  }
+  const source = await readOrSay(io, args.file);
+  if (source === null) return EXIT_INVALID;
   let input: unknown;
   try {
     input = JSON.parse(source.replace(/^\uFEFF/, ''));
@@ -95,13 +100,8 @@ export async function runCheckCommand(io: CheckCommandIo): Promise<number> {
   }
   let inventory: SetRecord[] | undefined;
   if (args.equipment) {
-    let csv: string;
-    try {
-      csv = await io.readFile(args.equipment);
-    } catch (error) {
-      io.stderr(`cannot read ${args.equipment}: ${error instanceof Error ? error.message : String(error)}\n`);
-      return EXIT_INVALID;
-    }
+    const csv = await readOrSay(io, args.equipment);
+    if (csv === null) return EXIT_INVALID;
     const read = inventoryFromCsv(csv);
     if (!read.ok) {
       io.stderr(read.issues.map((issue) => `${args.equipment} ${issue.path}: ${issue.message}\n`).join(''));

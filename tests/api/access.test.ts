@@ -1,6 +1,8 @@
 /**
  * The role-by-route matrix: every API route, every kind of caller, the exact status expected.
  * "other" is a crew lead of another organisation: the plan is 404 to them, never 403.
+ * Every cell that moves a plan gets a plan of its own in the state it needs, made in the cell, so
+ * no cell's answer depends on which cells ran before it (the suite passes shuffled).
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Client, signedIn } from '../helpers/api';
@@ -11,13 +13,28 @@ const CALLERS: Caller[] = ['anonymous', 'admin', 'reviewer', 'crew_lead', 'appre
 
 const clients = {} as Record<Caller, Client>;
 let planId: number;
-let submittedId: number;
-let approvedId: number;
 let targetUserId: string;
 let commentId: number;
 let otherPlanId: number;
-// For the form routes, on plans of their own so the API rows above do not move them.
-const form = { draftId: 0, submittedId: 0, approvedId: 0, commentId: 0 };
+// For the form routes' comments, on a plan of its own.
+const form = { draftId: 0, submittedId: 0, commentId: 0 };
+
+/** A fresh plan of the crew lead's, moved to the state a cell needs. */
+async function draftPlan(): Promise<number> {
+  const created = await clients.crew_lead.post('/api/plans', { title: 'Matrix cell pole', document: planDocument() });
+  expect(created.status).toBe(201);
+  return created.body.plan.id;
+}
+async function submittedPlan(): Promise<number> {
+  const id = await draftPlan();
+  expect((await clients.crew_lead.post(`/api/plans/${id}/submit`)).status).toBe(200);
+  return id;
+}
+async function decidedPlan(decision: 'approve' | 'return'): Promise<number> {
+  const id = await submittedPlan();
+  expect((await clients.reviewer.post(`/api/plans/${id}/review`, { decision, ...(decision === 'return' ? { comment: 'Matrix return.' } : {}) })).status).toBe(200);
+  return id;
+}
 
 beforeAll(async () => {
   const team = await makeTeam();
@@ -29,24 +46,14 @@ beforeAll(async () => {
   clients.crew_lead = await signedIn(team.lead.email, PASSWORD);
   clients.apprentice = await signedIn(team.apprentice.email, PASSWORD);
   clients.other = await signedIn(other.email, PASSWORD);
-  const created = await clients.crew_lead.post('/api/plans', { title: 'Matrix pole', document: planDocument() });
-  expect(created.status).toBe(201);
-  planId = created.body.plan.id;
+  planId = await draftPlan();
+  // A second revision, for the diff row.
+  expect((await clients.crew_lead.put(`/api/plans/${planId}`, { expectedRevision: 1, document: planDocument() })).status).toBe(200);
   targetUserId = (await makePerson(team.organizationId, 'apprentice')).id;
-  const submitted = await clients.crew_lead.post('/api/plans', { title: 'Matrix review pole', document: planDocument() });
-  submittedId = submitted.body.plan.id;
-  expect((await clients.crew_lead.post(`/api/plans/${submittedId}/submit`)).status).toBe(200);
-  const approved = await clients.crew_lead.post('/api/plans', { title: 'Matrix approved pole', document: planDocument() });
-  approvedId = approved.body.plan.id;
-  expect((await clients.crew_lead.post(`/api/plans/${approvedId}/submit`)).status).toBe(200);
-  expect((await clients.reviewer.post(`/api/plans/${approvedId}/review`, { decision: 'approve' })).status).toBe(200);
   commentId = (await clients.reviewer.post(`/api/plans/${planId}/comments`, { body: 'Matrix comment.' })).body.comment.id;
   otherPlanId = (await clients.other.post('/api/plans', { title: 'Their own pole', document: planDocument() })).body.plan.id;
-  const make = async () => (await clients.crew_lead.post('/api/plans', { title: 'Form matrix pole', document: planDocument() })).body.plan.id as number;
-  [form.draftId, form.submittedId, form.approvedId] = [await make(), await make(), await make()];
-  expect((await clients.crew_lead.post(`/api/plans/${form.submittedId}/submit`)).status).toBe(200);
-  expect((await clients.crew_lead.post(`/api/plans/${form.approvedId}/submit`)).status).toBe(200);
-  expect((await clients.reviewer.post(`/api/plans/${form.approvedId}/review`, { decision: 'approve' })).status).toBe(200);
+  form.draftId = await draftPlan();
+  form.submittedId = await submittedPlan();
   form.commentId = (await clients.reviewer.post(`/api/plans/${form.draftId}/comments`, { body: 'Form matrix comment.' })).body.comment.id;
 });
 afterAll(closeTestDb);
@@ -67,11 +74,7 @@ const routes: Route[] = [
   { name: 'GET /api/plans/:id', call: (c) => c.get(`/api/plans/${planId}`), expect: { anonymous: 401, admin: 200, reviewer: 200, crew_lead: 200, apprentice: 200, other: 404 } },
   {
     name: 'PUT /api/plans/:id',
-    // Each caller saves from the revision that is current right then, so success is 200 in turn.
-    call: async (c) => {
-      const current = await clients.admin.get(`/api/plans/${planId}`);
-      return c.put(`/api/plans/${planId}`, { expectedRevision: current.body.plan.currentRevision, document: doc() });
-    },
+    call: async (c) => c.put(`/api/plans/${await draftPlan()}`, { expectedRevision: 1, document: doc() }),
     expect: { anonymous: 401, admin: 200, reviewer: 403, crew_lead: 200, apprentice: 403, other: 404 },
   },
   { name: 'POST /api/plans/:id/check', call: (c) => c.post(`/api/plans/${planId}/check`), expect: { anonymous: 401, admin: 200, reviewer: 200, crew_lead: 200, apprentice: 200, other: 404 } },
@@ -83,10 +86,12 @@ const routes: Route[] = [
     expect: { anonymous: 401, admin: 201, reviewer: 403, crew_lead: 403, apprentice: 403, other: 403 },
   },
   { name: 'PATCH /api/admin/users/:id', call: (c) => c.patch(`/api/admin/users/${targetUserId}`, { role: 'reviewer' }), expect: { anonymous: 401, admin: 200, reviewer: 403, crew_lead: 403, apprentice: 403, other: 403 } },
-  // Callers run in the order of CALLERS, so a state change by one shows in the next one's answer.
-  { name: 'POST /api/plans/:id/submit', call: (c) => c.post(`/api/plans/${planId}/submit`), expect: { anonymous: 401, admin: 200, reviewer: 403, crew_lead: 409, apprentice: 403, other: 404 } },
-  { name: 'POST /api/plans/:id/review', call: (c) => c.post(`/api/plans/${submittedId}/review`, { decision: 'return', comment: 'Show the neutral bond.' }), expect: { anonymous: 401, admin: 200, reviewer: 409, crew_lead: 403, apprentice: 403, other: 403 } },
-  { name: 'POST /api/plans/:id/reopen', call: (c) => c.post(`/api/plans/${approvedId}/reopen`), expect: { anonymous: 401, admin: 201, reviewer: 403, crew_lead: 409, apprentice: 403, other: 404 } },
+  { name: 'POST /api/plans/:id/submit', call: async (c) => c.post(`/api/plans/${await draftPlan()}/submit`), expect: { anonymous: 401, admin: 200, reviewer: 403, crew_lead: 200, apprentice: 403, other: 404 } },
+  { name: 'POST /api/plans/:id/submit (already submitted)', call: async (c) => c.post(`/api/plans/${await submittedPlan()}/submit`), expect: { anonymous: 401, admin: 409, reviewer: 403, crew_lead: 409, apprentice: 403, other: 404 } },
+  { name: 'POST /api/plans/:id/review', call: async (c) => c.post(`/api/plans/${await submittedPlan()}/review`, { decision: 'return', comment: 'Show the neutral bond.' }), expect: { anonymous: 401, admin: 200, reviewer: 200, crew_lead: 403, apprentice: 403, other: 403 } },
+  { name: 'POST /api/plans/:id/review (already decided)', call: async (c) => c.post(`/api/plans/${await decidedPlan('return')}/review`, { decision: 'return', comment: 'Again.' }), expect: { anonymous: 401, admin: 409, reviewer: 409, crew_lead: 403, apprentice: 403, other: 403 } },
+  { name: 'POST /api/plans/:id/reopen', call: async (c) => c.post(`/api/plans/${await decidedPlan('approve')}/reopen`), expect: { anonymous: 401, admin: 201, reviewer: 403, crew_lead: 201, apprentice: 403, other: 404 } },
+  { name: 'POST /api/plans/:id/reopen (a draft)', call: async (c) => c.post(`/api/plans/${await draftPlan()}/reopen`), expect: { anonymous: 401, admin: 409, reviewer: 403, crew_lead: 409, apprentice: 403, other: 404 } },
   { name: 'GET /api/plans/:id/revisions', call: (c) => c.get(`/api/plans/${planId}/revisions`), expect: { anonymous: 401, admin: 200, reviewer: 200, crew_lead: 200, apprentice: 200, other: 404 } },
   { name: 'GET /api/plans/:id/revisions/:n', call: (c) => c.get(`/api/plans/${planId}/revisions/1`), expect: { anonymous: 401, admin: 200, reviewer: 200, crew_lead: 200, apprentice: 200, other: 404 } },
   { name: 'GET /api/plans/:id/comments', call: (c) => c.get(`/api/plans/${planId}/comments`), expect: { anonymous: 401, admin: 200, reviewer: 200, crew_lead: 200, apprentice: 200, other: 404 } },
@@ -128,7 +133,7 @@ function outcome(response: { status: number; headers: Headers }): string {
   return `303 ${location.search.slice(1) || location.pathname}`;
 }
 
-const workflow = (id: () => number, fields: Record<string, string>) => (c: Client) => c.form(`/plans/${id()}/workflow`, fields);
+const workflow = (id: () => number | Promise<number>, fields: Record<string, string>) => async (c: Client) => c.form(`/plans/${await id()}/workflow`, fields);
 const formRoutes: FormRoute[] = [
   {
     name: 'POST /plans/:id/workflow resolve',
@@ -142,13 +147,23 @@ const formRoutes: FormRoute[] = [
   },
   {
     name: 'POST /plans/:id/workflow submit',
-    call: (c) => workflow(() => form.draftId, { action: 'submit' })(c),
-    expect: { anonymous: '303 sign-in', admin: '303 notice=submitted', reviewer: '303 problem=ROLE_REQUIRED', crew_lead: '303 problem=NOT_SUBMITTABLE', apprentice: '303 problem=ROLE_REQUIRED', other: '303 problem=NOT_FOUND' },
+    call: (c) => workflow(draftPlan, { action: 'submit' })(c),
+    expect: { anonymous: '303 sign-in', admin: '303 notice=submitted', reviewer: '303 problem=ROLE_REQUIRED', crew_lead: '303 notice=submitted', apprentice: '303 problem=ROLE_REQUIRED', other: '303 problem=NOT_FOUND' },
+  },
+  {
+    name: 'POST /plans/:id/workflow submit (already submitted)',
+    call: (c) => workflow(submittedPlan, { action: 'submit' })(c),
+    expect: { anonymous: '303 sign-in', admin: '303 problem=NOT_SUBMITTABLE', reviewer: '303 problem=ROLE_REQUIRED', crew_lead: '303 problem=NOT_SUBMITTABLE', apprentice: '303 problem=ROLE_REQUIRED', other: '303 problem=NOT_FOUND' },
   },
   {
     name: 'POST /plans/:id/workflow reopen',
-    call: (c) => workflow(() => form.approvedId, { action: 'reopen' })(c),
-    expect: { anonymous: '303 sign-in', admin: '303 notice=reopened', reviewer: '303 problem=ROLE_REQUIRED', crew_lead: '303 problem=NOT_APPROVED', apprentice: '303 problem=ROLE_REQUIRED', other: '303 problem=NOT_FOUND' },
+    call: (c) => workflow(() => decidedPlan('approve'), { action: 'reopen' })(c),
+    expect: { anonymous: '303 sign-in', admin: '303 notice=reopened', reviewer: '303 problem=ROLE_REQUIRED', crew_lead: '303 notice=reopened', apprentice: '303 problem=ROLE_REQUIRED', other: '303 problem=NOT_FOUND' },
+  },
+  {
+    name: 'POST /plans/:id/workflow reopen (a draft)',
+    call: (c) => workflow(draftPlan, { action: 'reopen' })(c),
+    expect: { anonymous: '303 sign-in', admin: '303 problem=NOT_APPROVED', reviewer: '303 problem=ROLE_REQUIRED', crew_lead: '303 problem=NOT_APPROVED', apprentice: '303 problem=ROLE_REQUIRED', other: '303 problem=NOT_FOUND' },
   },
   {
     name: 'POST /plans/:id/review comment',
@@ -158,8 +173,13 @@ const formRoutes: FormRoute[] = [
   },
   {
     name: 'POST /plans/:id/review decide',
-    call: (c) => c.form(`/plans/${form.submittedId}/review`, { action: 'decide', decision: 'return', comment: 'Form return.', revision: '1' }),
-    expect: { anonymous: '303 sign-in', admin: '303 /review', reviewer: '409', crew_lead: '403', apprentice: '403', other: '403' },
+    call: async (c) => c.form(`/plans/${await submittedPlan()}/review`, { action: 'decide', decision: 'return', comment: 'Form return.', revision: '1' }),
+    expect: { anonymous: '303 sign-in', admin: '303 /review', reviewer: '303 /review', crew_lead: '403', apprentice: '403', other: '403' },
+  },
+  {
+    name: 'POST /plans/:id/review decide (already decided)',
+    call: async (c) => c.form(`/plans/${await decidedPlan('return')}/review`, { action: 'decide', decision: 'return', comment: 'Form return.', revision: '1' }),
+    expect: { anonymous: '303 sign-in', admin: '409', reviewer: '409', crew_lead: '403', apprentice: '403', other: '403' },
   },
 ];
 

@@ -7,6 +7,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Client, signedIn } from '../helpers/api';
 import { closeTestDb, makeTeam, planDocument, testDb, PASSWORD } from '../helpers/factories';
+import { mailTo } from '../helpers/wait';
 
 let lead: Client;
 let reviewer: Client;
@@ -82,12 +83,7 @@ describe('returning with long comments', () => {
     expect(queued[0].textBody).toContain('"<&\'>');
     expect(queued[0].htmlBody).toContain('&#34;&#60;&#38;&#39;&#62;');
     // The caught message arrives whole (the local mail server stores what it received).
-    const deadline = Date.now() + 10_000;
-    let mail: { text: string } | undefined;
-    while (!mail && Date.now() < deadline) {
-      mail = (await admin.get(`/api/dev/mail?to=${encodeURIComponent(team.lead.email)}`)).body.messages.find((m: { subject: string }) => m.subject.includes('Much-commented pole'));
-      if (!mail) await new Promise((r) => setTimeout(r, 200));
-    }
-    expect(mail?.text).toContain('Fix what they point at');
+    const mail = await mailTo(admin, team.lead.email, 'Much-commented pole');
+    expect(mail.text).toContain('Fix what they point at');
   });
 });

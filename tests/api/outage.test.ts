@@ -6,20 +6,12 @@ import { afterAll, expect, it } from 'vitest';
 import { startDatabase, stopDatabase } from '../../db/lifecycle';
 import { Client, signedIn } from '../helpers/api';
 import { closeTestDb, makeOrganization, makePerson, PASSWORD } from '../helpers/factories';
+import { waitFor } from '../helpers/wait';
 
 afterAll(async () => {
   await startDatabase('test'); // never leave the suite without its database
   await closeTestDb();
 });
-
-async function waitFor(check: () => Promise<boolean>, timeoutMs: number): Promise<boolean> {
-  const deadline = Date.now() + timeoutMs;
-  while (Date.now() < deadline) {
-    if (await check()) return true;
-    await new Promise((r) => setTimeout(r, 250));
-  }
-  return false;
-}
 
 it('answers 503 while the database is down and recovers when it is back', async () => {
   const person = await makePerson(await makeOrganization(), 'crew_lead');
@@ -48,7 +40,7 @@ it('answers 503 while the database is down and recovers when it is back', async 
     await startDatabase('test');
   }
 
-  expect(await waitFor(async () => (await new Client().get('/api/health')).status === 200, 20_000)).toBe(true);
+  await waitFor(async () => (await new Client().get('/api/health')).status === 200, { deadline: 20_000, every: 250, what: 'the health check to pass again' });
   const again = await client.get('/api/plans');
   expect(again.status).toBe(200);
   expect((await client.get('/api/me')).body.person.id).toBe(person.id);

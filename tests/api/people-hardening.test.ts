@@ -8,6 +8,7 @@ import { createHash } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Client, signedIn } from '../helpers/api';
 import { closeTestDb, makePerson, makeTeam, planDocument, testDb, PASSWORD } from '../helpers/factories';
+import { mailTo, waitFor } from '../helpers/wait';
 
 let team: Awaited<ReturnType<typeof makeTeam>>;
 let admin: Client;
@@ -20,14 +21,7 @@ afterAll(closeTestDb);
 const unique = () => Math.random().toString(36).slice(2, 9);
 
 async function linkMailedTo(address: string, subjectPart: string, as: Client = admin): Promise<string> {
-  const deadline = Date.now() + 10_000;
-  while (Date.now() < deadline) {
-    const messages: { subject: string; text: string }[] = (await as.get(`/api/dev/mail?to=${encodeURIComponent(address)}`)).body.messages;
-    const found = messages.find((m) => m.subject.includes(subjectPart));
-    if (found) return found.text.match(/\/set-password\/([\w-]+)/)![1];
-    await new Promise((r) => setTimeout(r, 200));
-  }
-  throw new Error(`no mail to ${address} about "${subjectPart}"`);
+  return (await mailTo(as, address, subjectPart)).text.match(/\/set-password\/([\w-]+)/)![1];
 }
 
 const STRONG = 'violet ladder across the creek';
@@ -131,15 +125,11 @@ describe('setting a password', () => {
     const elsewhere = await signedIn(person.email, PASSWORD);
     await new Client().post('/api/auth/forgot', { email: person.email });
     const older = await linkMailedTo(person.email, 'Reset your Bondmap password');
-    await new Promise((r) => setTimeout(r, 50));
     await new Client().post('/api/auth/forgot', { email: person.email });
-    const deadline = Date.now() + 10_000;
-    let newer = older;
-    while (newer === older && Date.now() < deadline) {
+    const newer = await waitFor(async () => {
       const texts: string[] = (await admin.get(`/api/dev/mail?to=${encodeURIComponent(person.email)}`)).body.messages.map((m: { text: string }) => m.text);
-      newer = texts.map((t) => t.match(/\/set-password\/([\w-]+)/)![1]).find((t) => t !== older) ?? older;
-      if (newer === older) await new Promise((r) => setTimeout(r, 200));
-    }
+      return texts.map((t) => t.match(/\/set-password\/([\w-]+)/)![1]).find((t) => t !== older);
+    }, { what: 'a second reset link' });
     expect(newer).not.toBe(older);
     expect((await new Client().post('/api/auth/set-password', { token: newer, password: STRONG })).status).toBe(200);
     const stale = await new Client().post('/api/auth/set-password', { token: older, password: 'another violet ladder entirely' });

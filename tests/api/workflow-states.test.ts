@@ -7,6 +7,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { nextStatus, PLAN_STATUSES, WORKFLOW_ACTIONS, type PlanStatus, type WorkflowAction } from '../../src/lib/domain/plan-status';
 import { submitPlan } from '../../db/repositories/review';
+import { checkPlan } from '../../src/lib/domain/checker';
 import { Client, signedIn } from '../helpers/api';
 import { closeTestDb, makeTeam, planDocument, testDb, PASSWORD } from '../helpers/factories';
 
@@ -99,7 +100,8 @@ describe('the workflow state machine', () => {
     const plan = (await lead.post('/api/plans', { title: 'Raced pole', document: planDocument() })).body.plan;
     // A save lands between the submit's check of revision 1 and its transaction.
     expect((await lead.put(`/api/plans/${plan.id}`, { expectedRevision: 1, document: planDocument({ title: 'Saved meanwhile' }) })).status).toBe(200);
-    const clean = { summary: { blockers: 0, warnings: 0, notes: 0 }, findings: [] };
+    const clean = checkPlan(planDocument());
+    expect(clean.summary.blockers).toBe(0);
     const outcome = await submitPlan(testDb(), team.organizationId, plan.id, team.lead.id, clean, { checkedRevision: 1 });
     expect(outcome).toMatchObject({ kind: 'stale', revision: 2 });
     expect(await current(plan.id)).toMatchObject({ status: 'draft', currentRevision: 2 });

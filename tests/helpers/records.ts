@@ -33,13 +33,4 @@ export async function readyToInstall(client: Client, recordId: number, leadId: s
   }
 }
 
-export async function mailTo(admin: Client, address: string, subjectPart: string, timeoutMs = 10_000) {
-  const deadline = Date.now() + timeoutMs;
-  while (Date.now() < deadline) {
-    const response = await admin.get(`/api/dev/mail?to=${encodeURIComponent(address)}`);
-    const found = response.body.messages?.find((m: { subject: string }) => m.subject.includes(subjectPart));
-    if (found) return found;
-    await new Promise((r) => setTimeout(r, 200));
-  }
-  throw new Error(`no mail to ${address} about "${subjectPart}" within ${timeoutMs} ms`);
-}
+export { mailTo } from './wait';

@@ -1,4 +1,4 @@
-/** Severity as glyph + word + colour (screens.md), the React twin of SeverityMark.astro. */
+/** Severity as glyph + word + colour (screens.md); SeverityMark.astro renders this one for pages. */
 export type MarkSeverity = 'blocker' | 'warning' | 'note' | 'clear';
 
 const WORD: Record<MarkSeverity, string> = { blocker: 'Blocker', warning: 'Warning', note: 'Note', clear: 'Clear' };

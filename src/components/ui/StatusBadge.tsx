@@ -1,4 +1,4 @@
-/** A plan's status as word + shape (screens.md), the React twin of StatusBadge.astro. */
+/** A plan's status as word + shape (screens.md); StatusBadge.astro renders this one for pages. */
 import { STATUS_LABELS, type PlanStatus } from '../../lib/domain/plan-status';
 
 const STYLES: Record<PlanStatus, string> = {

@@ -1,7 +1,7 @@
 /** The messages Bondmap sends, in our own words, each with a plain-text and an HTML body. */
+import { escapeHtml } from './html';
 import type { OutgoingMail } from './mail';
 
-const escapeHtml = (text: string) => text.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
 
 export function compose(input: { to: string; subject: string; kind: string; organizationId: number | null; lines: string[]; link: { href: string; label: string } }): OutgoingMail {
   const footer = 'Bondmap is a planning aid; it does not replace your employer\'s procedures, local codes or a qualified person.';

@@ -3,6 +3,7 @@ import type { AstroGlobal } from 'astro';
 import type { Role } from '../domain/roles';
 import { roleMessage } from './guards';
 import { currentRequestId } from './log';
+import { escapeHtml } from './html';
 
 /** For a page only some roles may open: null when allowed, else a 403 page naming the role. */
 export function pageRoleRefusal(Astro: AstroGlobal, ...roles: Role[]): Response | null {
@@ -14,10 +15,6 @@ export function pageRoleRefusal(Astro: AstroGlobal, ...roles: Role[]): Response 
 export function unavailablePage(): Response {
   const id = currentRequestId();
   return plainPage(503, 'Bondmap cannot reach its database', `Nothing was changed. This page will work again as soon as the database is back; reload in a moment.${id ? ` (request ${id})` : ''}`, { 'retry-after': '5' });
-}
-
-function escapeHtml(text: string): string {
-  return text.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
 }
 
 export function plainPage(status: number, title: string, message: string, headers: Record<string, string> = {}): Response {

@@ -63,6 +63,25 @@ describe('npm run check', () => {
     expect(stdout).toContain('usage:');
   });
 
+  it('reads options in any order, after a bare --, and -h as help', async () => {
+    const source = fixture('bucket-tangent-clean.json');
+    const { code, stdout } = await run(['--', 'plan.json', '--text', '--stage=draft'], { 'plan.json': source });
+    expect(code).toBe(0);
+    expect(stdout).not.toMatch(/^\{/);
+    expect((await run(['-h'], {})).stdout).toContain('usage:');
+  });
+
+  it.each([
+    [['-x', 'a.json'], 'unknown option -x'],
+    [['--json', 'a.json'], 'unknown option --json'],
+    [['a.json', '--stage'], '--stage needs a value'],
+    [['a.json', '--stage', 'later'], '--stage must be one of'],
+  ])('names the problem with %j', async (args, problem) => {
+    const { code, stderr } = await run(args, { 'a.json': '{}' });
+    expect(code).toBe(2);
+    expect(stderr.split('\n')[0]).toContain(problem);
+  });
+
   it.each([[[]], [['a.json', 'b.json']], [['--json', 'a.json']]])('refuses arguments %j with exit 2', async (args) => {
     const { code, stderr, stdout } = await run(args, { 'a.json': '{}', 'b.json': '{}' });
     expect(code).toBe(2);
