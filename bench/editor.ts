@@ -11,7 +11,7 @@
  * frame and the next, counted only for frames in which a pointer move was handled. The interval
  * between animation frames is printed too, but it cannot fall below the display's 16.7 ms.
  *
- *   BONDMAP_TEST_URL=http://127.0.0.1:4395 npx tsx bench/editor.ts
+ *   BONDMAP_TEST_URL=http://127.0.0.1:4395 npx tsx bench/browser.ts   (this and bench/editor-tablet.ts)
  */
 import { gzipSync } from 'node:zlib';
 import type { CDPSession, Page } from 'playwright-core';
@@ -29,6 +29,8 @@ export interface EditorBenchResult {
   p95FrameMs: number;
   /** p95 of the time between drag frames, in ms (vsync-bound: never below ~16.7). */
   p95FrameIntervalMs: number;
+  /** Main-thread ms by kind of work over the whole drag (trace event names). */
+  dragBreakdown: Record<string, number>;
   editorJsGzipBytes: number;
   plansPageJsGzipBytes: number;
   plansPageScripts: string[];
@@ -69,7 +71,7 @@ export async function traceWhile(cdp: CDPSession, run: () => Promise<void>): Pro
  * a frame's work is the time top-level tasks ran within it (a task spanning two frames is split
  * between them), and only frames in which a mouse move was dispatched count.
  */
-export function frameWork(events: TraceEvent[]): { work: number[]; intervals: number[] } {
+export function frameWork(events: TraceEvent[]): { work: number[]; intervals: number[]; breakdown: Record<string, number> } {
   const mains = events.filter((e) => e.ph === 'M' && e.name === 'thread_name' && e.args?.name === 'CrRendererMain');
   const key = (e: { pid: number; tid: number }) => `${e.pid}:${e.tid}`;
   const moveThreads = new Map<string, number>();
@@ -98,8 +100,17 @@ export function frameWork(events: TraceEvent[]): { work: number[]; intervals: nu
       intervals.push((to - from) / 1000);
     }
   }
-  return { work, intervals };
+  // Where the main thread's time went over the whole drag, ms by kind of work (script nests inside
+  // event dispatch, so the two overlap; style, layout and paint do not nest in script).
+  const breakdown: Record<string, number> = {};
+  for (const e of on) if (e.ph === 'X' && e.dur && BREAKDOWN.includes(e.name)) breakdown[e.name] = (breakdown[e.name] ?? 0) + e.dur / 1000;
+  return { work, intervals, breakdown };
 }
+
+const BREAKDOWN = ['RunTask', 'EventDispatch', 'FunctionCall', 'TimerFire', 'FireAnimationFrame', 'UpdateLayoutTree', 'Layout', 'PrePaint', 'Paint', 'Layerize', 'Commit', 'HitTest', 'MajorGC', 'MinorGC'];
+
+export const formatBreakdown = (b: Record<string, number>) =>
+  Object.entries(b).sort((x, y) => y[1] - x[1]).map(([k, v]) => `${k} ${v.toFixed(0)}`).join(', ');
 
 export const p95 = (xs: number[]) => {
   const sorted = [...xs].sort((a, b) => a - b);
@@ -140,7 +151,7 @@ export async function openTimed(page: Page, planUrl: string): Promise<number> {
  * Frame work while dragging one node for 2 s, with the whole plan fitted into view (the most
  * elements drawn). Waits for the fit animation to end before picking where to grab.
  */
-export async function measureDrag(page: Page, cdp: CDPSession): Promise<{ work: number[]; intervals: number[]; moves: number }> {
+export async function measureDrag(page: Page, cdp: CDPSession): Promise<ReturnType<typeof frameWork> & { moves: number }> {
   await page.getByTestId('topbar').getByRole('button', { name: 'Fit', exact: true }).click();
   const viewport = () => page.evaluate(() => document.querySelector('.react-flow__viewport')?.getAttribute('style') ?? '');
   for (let last = '', now = await viewport(), k = 0; now !== last && k < 50; k++) {
@@ -199,6 +210,7 @@ export async function runEditorBench(baseUrl: string, elements = 1000): Promise<
       pointerMoves: frames.moves,
       p95FrameMs: Math.round(p95(frames.work) * 10) / 10,
       p95FrameIntervalMs: Math.round(p95(frames.intervals) * 10) / 10,
+      dragBreakdown: frames.breakdown,
       editorJsGzipBytes: editorJs.gzipBytes,
       plansPageJsGzipBytes: plansJs.gzipBytes,
       plansPageScripts: plansJs.files,
@@ -214,39 +226,7 @@ export function printEditorBench(r: EditorBenchResult): void {
   console.log(`  first interactive canvas   ${r.interactiveMs} ms   (target < 1500 ms)`);
   console.log(`  p95 frame while dragging   ${r.p95FrameMs} ms main-thread work over ${r.dragFrames} frames with a pointer move   (target < 16.7 ms)`);
   console.log(`  drag cadence               ${r.pointerMoves} pointer moves in 2 s, p95 ${r.p95FrameIntervalMs} ms between those frames`);
+  console.log(`  where the drag's time went ${formatBreakdown(r.dragBreakdown)} (ms, trace event names)`);
   console.log(`  editor page JavaScript     ${kb(r.editorJsGzipBytes)} gzip   (target < 250 KB)`);
   console.log(`  /plans page JavaScript     ${kb(r.plansPageJsGzipBytes)} gzip, ${r.plansPageScripts.length} file(s)${r.plansPageScripts.length ? `: ${r.plansPageScripts.join(', ')}` : ' (no island code)'}`);
-}
-
-if (import.meta.url === `file://${process.argv[1]}`) {
-  const base = process.env.BONDMAP_TEST_URL;
-  if (!base) {
-    console.error('Set BONDMAP_TEST_URL to a running Bondmap server (e.g. http://127.0.0.1:4395).');
-    process.exit(2);
-  }
-  const figures: Record<string, unknown> = { reasons: {} as Record<string, string> };
-  const reasons = figures.reasons as Record<string, string>;
-  let failed = false;
-  try {
-    const r = await runEditorBench(base);
-    printEditorBench(r);
-    Object.assign(figures, { dragP95Ms: r.p95FrameMs, editorJsKb: Math.round((r.editorJsGzipBytes / 1024) * 10) / 10 });
-  } catch (err) {
-    console.error(err);
-    failed = true;
-    for (const k of ['dragP95Ms', 'editorJsKb']) reasons[k] = `the 1,000-element editor bench failed: ${(err as Error).message}`;
-  }
-  try {
-    const { runTabletBench, printTabletBench } = await import('./editor-tablet');
-    const t = await runTabletBench(base);
-    printTabletBench(t);
-    Object.assign(figures, t.figures);
-    Object.assign(reasons, t.reasons);
-  } catch (err) {
-    console.error(err);
-    failed = true;
-    for (const k of ['tabletFirstInteractiveMs', 'tabletCheckRoundTripMs', 'tabletDragP95Ms', 'pngExportMs', 'pdfExportMs']) reasons[k] = `the tablet editor bench failed: ${(err as Error).message}`;
-  }
-  if (process.env.BONDMAP_BENCH_OUT) (await import('node:fs')).writeFileSync(process.env.BONDMAP_BENCH_OUT, JSON.stringify(figures));
-  process.exit(failed ? 1 : 0);
 }

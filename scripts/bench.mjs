@@ -53,7 +53,7 @@ try {
   console.log('');
   part('api', ['apiPlansRps', 'baselinePlansRps', 'apiPlansRatio', 'apiPlansP99Ms', 'planPageP99Ms'], ['bench/api.ts'], { ...dbEnv, BONDMAP_TEST_URL: url });
   console.log('\nEditor in headless Chromium (software rendering, no GPU):');
-  part('editor', ['dragP95Ms', 'editorJsKb', 'tabletFirstInteractiveMs', 'tabletCheckRoundTripMs', 'tabletDragP95Ms', 'pngExportMs', 'pdfExportMs'], ['bench/editor.ts'], { BONDMAP_TEST_URL: url });
+  part('editor', ['dragP95Ms', 'editorJsKb', 'tabletFirstInteractiveMs', 'tabletCheckRoundTripMs', 'tabletDragP95Ms', 'pngExportMs', 'pdfExportMs'], ['bench/browser.ts'], { BONDMAP_TEST_URL: url });
 } catch (error) {
   say(error instanceof Error ? error.message : String(error));
   code = 1;
@@ -70,7 +70,7 @@ if (wantJson) {
   for (const k of KEYS) {
     const v = figures[k];
     line[k] = typeof v === 'number' && Number.isFinite(v) ? v : null;
-    if (line[k] === null) console.error(`${k}: null — ${reasons[k] ?? figures.reasons?.[k] ?? 'not measured by this run'}`);
+    if (line[k] === null) console.error(`${k}: null — ${figures.reasons?.[k] ?? reasons[k] ?? 'not measured by this run'}`);
   }
   console.log(JSON.stringify(line));
 }
