@@ -9,7 +9,6 @@ import { defaultSortDir, type ListPlansQuery } from '../../src/lib/schemas/api';
 import { pruneDeep } from '../../src/lib/schemas/depth';
 import { planSchema, type PlanDocument } from '../../src/lib/schemas/plan';
 import type { Db } from '../connection';
-import type { Plan, PlanRevision } from '../models';
 import { recordEvent } from './audit';
 
 export interface PlanSummary {
@@ -45,25 +44,6 @@ export interface PlanPage {
   pages: number;
 }
 
-type PlanRow = Plan & { author?: { name: string } };
-
-function toSummary(row: PlanRow): PlanSummary {
-  return {
-    id: row.id,
-    title: row.title,
-    structure: row.structure,
-    status: row.status,
-    blockers: row.blockers,
-    warnings: row.warnings,
-    authorId: row.authorId,
-    authorName: row.author?.name ?? '',
-    currentRevision: row.currentRevision,
-    submittedAt: row.submittedAt ?? null,
-    createdAt: row.createdAt,
-    updatedAt: row.updatedAt,
-  };
-}
-
 /**
  * Parses a stored document with the plan schema: a corrupt row is an error, never silently used.
  * Extra fields nested deeper than the format allows (stored before the limit) are cut first.
@@ -71,18 +51,6 @@ function toSummary(row: PlanRow): PlanSummary {
 export function readStoredDocument(text: string): PlanDocument {
   return planSchema.parse(pruneDeep(JSON.parse(text)));
 }
-
-function toDetail(row: PlanRow, revision: PlanRevision): PlanDetail {
-  return {
-    ...toSummary(row),
-    document: readStoredDocument(revision.document),
-    report: revision.report ? (JSON.parse(revision.report) as StoredReport) : null,
-    revisionCreatedAt: revision.createdAt,
-    revisionCreatedBy: revision.createdBy,
-  };
-}
-
-const authorInclude = (db: Db) => ({ model: db.models.User, as: 'author', attributes: ['name'] });
 
 /** Sort keys to columns (fixed strings: nothing from the request reaches the SQL text). */
 const SORT_COLUMNS: Record<ListPlansQuery['sort'], string> = {
@@ -178,11 +146,22 @@ export async function countPlansByStatus(db: Db, organizationId: number, authorI
   return counts;
 }
 
+/** A plan with its current revision: the plan, its author and the revision in one query. */
 export async function getPlan(db: Db, organizationId: number, id: number): Promise<PlanDetail | null> {
-  const row = (await db.models.Plan.findOne({ where: { id, organizationId }, include: [authorInclude(db)] })) as PlanRow | null;
+  const [row] = await db.sequelize.query<SummaryRow & { document: string; report: string | null; revisionCreatedAt: Date | string; revisionCreatedBy: string }>(
+    `SELECT ${SUMMARY_COLUMNS}, r.document, r.report, r.created_at AS revisionCreatedAt, r.created_by AS revisionCreatedBy
+     FROM plans p LEFT JOIN users u ON u.id = p.author_id JOIN plan_revisions r ON r.plan_id = p.id AND r.number = p.current_revision
+     WHERE p.id = ? AND p.organization_id = ?`,
+    { replacements: [id, organizationId], type: QueryTypes.SELECT },
+  );
   if (!row) return null;
-  const revision = await db.models.PlanRevision.findOne({ where: { planId: id, number: row.currentRevision } });
-  return revision ? toDetail(row, revision) : null;
+  return {
+    ...rowToSummary(row),
+    document: readStoredDocument(row.document),
+    report: row.report ? (JSON.parse(row.report) as StoredReport) : null,
+    revisionCreatedAt: toDate(row.revisionCreatedAt),
+    revisionCreatedBy: row.revisionCreatedBy,
+  };
 }
 
 export interface NewPlan {

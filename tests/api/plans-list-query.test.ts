@@ -1,15 +1,16 @@
 /**
  * The plan list's single query (db/repositories/plans.ts) gives exactly what the earlier
  * Sequelize `findAndCountAll` gave: the same items in the same order, the same totals, the same
- * JSON bytes on the wire, for every sort, direction, filter, search and a page past the end.
+ * JSON bytes on the wire, for every sort, direction, filter, search and a page past the end; and
+ * one plan read in one query gives what the earlier two queries gave.
  */
 import { Op, type Order, type WhereOptions } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { listPlans } from '../../db/repositories/plans';
+import { getPlan, listPlans, readStoredDocument } from '../../db/repositories/plans';
 import type { Plan } from '../../db/models';
 import { PLAN_SORTS, defaultSortDir, listPlansQuery, type ListPlansQuery } from '../../src/lib/schemas/api';
 import type { PlanStatus } from '../../src/lib/domain/plan-status';
-import { summaryJson } from '../../src/lib/server/plan-json';
+import { planJson, summaryJson } from '../../src/lib/server/plan-json';
 import { Client, signedIn } from '../helpers/api';
 import { closeTestDb, makePerson, makeTeam, planDocument, testDb, PASSWORD } from '../helpers/factories';
 
@@ -78,5 +79,37 @@ describe('the plan list query', () => {
     const response = await lead.get('/api/plans?sort=blockers&pageSize=5&page=2');
     expect(response.status).toBe(200);
     expect(response.text).toBe(wire(await referenceList(organizationId, listPlansQuery.parse({ sort: 'blockers', pageSize: 5, page: 2 }))));
+  });
+});
+
+/** One plan as it was read before: the plan with its author, then its current revision. */
+async function referencePlan(id: number) {
+  const db = testDb();
+  const r = (await db.models.Plan.findOne({ where: { id, organizationId }, include: [{ model: db.models.User, as: 'author', attributes: ['name'] }] })) as (Plan & { author?: { name: string } }) | null;
+  if (!r) return null;
+  const revision = await db.models.PlanRevision.findOne({ where: { planId: id, number: r.currentRevision } });
+  if (!revision) return null;
+  return {
+    id: r.id, title: r.title, structure: r.structure, status: r.status, blockers: r.blockers, warnings: r.warnings, authorId: r.authorId,
+    authorName: r.author?.name ?? '', currentRevision: r.currentRevision, submittedAt: r.submittedAt ?? null, createdAt: r.createdAt, updatedAt: r.updatedAt,
+    document: readStoredDocument(revision.document), report: revision.report ? JSON.parse(revision.report) : null,
+    revisionCreatedAt: revision.createdAt, revisionCreatedBy: revision.createdBy,
+  };
+}
+
+describe('one plan', () => {
+  it('reads each plan, a later revision and a revision without a report exactly as the two queries did', async () => {
+    const plans = await testDb().models.Plan.findAll({ where: { organizationId }, order: [['id', 'ASC']] });
+    const saved = await lead.put(`/api/plans/${plans[0].id}`, { expectedRevision: 1, title: 'Bravo pole, second go', document: planDocument() });
+    expect(saved.status).toBe(200);
+    await testDb().models.PlanRevision.update({ report: null }, { where: { planId: plans[5].id } });
+    for (const plan of plans) {
+      const mine = await getPlan(testDb(), organizationId, plan.id);
+      const theirs = await referencePlan(plan.id);
+      expect(mine && JSON.stringify(planJson(mine)), String(plan.id)).toBe(theirs && JSON.stringify(planJson(theirs)));
+      expect(JSON.stringify(mine), String(plan.id)).toBe(JSON.stringify(theirs));
+    }
+    expect((await getPlan(testDb(), organizationId, plans[0].id))?.currentRevision).toBe(2);
+    expect(await getPlan(testDb(), organizationId + 1000000, plans[0].id)).toBeNull();
   });
 });
