@@ -11,7 +11,7 @@
  * frame and the next, counted only for frames in which a pointer move was handled. The interval
  * between animation frames is printed too, but it cannot fall below the display's 16.7 ms.
  *
- *   BONDMAP_TEST_URL=http://127.0.0.1:4395 npx tsx bench/editor.ts
+ *   BONDMAP_TEST_URL=http://127.0.0.1:4395 npx tsx bench/browser.ts   (this and bench/editor-tablet.ts)
  */
 import { gzipSync } from 'node:zlib';
 import type { CDPSession, Page } from 'playwright-core';
@@ -29,6 +29,8 @@ export interface EditorBenchResult {
   p95FrameMs: number;
   /** p95 of the time between drag frames, in ms (vsync-bound: never below ~16.7). */
   p95FrameIntervalMs: number;
+  /** Main-thread ms by kind of work over the whole drag (trace event names). */
+  dragBreakdown: Record<string, number>;
   editorJsGzipBytes: number;
   plansPageJsGzipBytes: number;
   plansPageScripts: string[];
@@ -48,7 +50,7 @@ async function collectScripts(page: Page, url: string): Promise<{ files: string[
 
 interface TraceEvent { name: string; ph: string; ts: number; dur?: number; pid: number; tid: number; args?: { name?: string; data?: { type?: string } } }
 
-async function traceWhile(cdp: CDPSession, run: () => Promise<void>): Promise<TraceEvent[]> {
+export async function traceWhile(cdp: CDPSession, run: () => Promise<void>): Promise<TraceEvent[]> {
   const events: TraceEvent[] = [];
   const onData = (e: { value: object[] }) => events.push(...(e.value as TraceEvent[]));
   cdp.on('Tracing.dataCollected', onData);
@@ -69,7 +71,7 @@ async function traceWhile(cdp: CDPSession, run: () => Promise<void>): Promise<Tr
  * a frame's work is the time top-level tasks ran within it (a task spanning two frames is split
  * between them), and only frames in which a mouse move was dispatched count.
  */
-function frameWork(events: TraceEvent[]): { work: number[]; intervals: number[] } {
+export function frameWork(events: TraceEvent[]): { work: number[]; intervals: number[]; breakdown: Record<string, number> } {
   const mains = events.filter((e) => e.ph === 'M' && e.name === 'thread_name' && e.args?.name === 'CrRendererMain');
   const key = (e: { pid: number; tid: number }) => `${e.pid}:${e.tid}`;
   const moveThreads = new Map<string, number>();
@@ -98,90 +100,117 @@ function frameWork(events: TraceEvent[]): { work: number[]; intervals: number[] 
       intervals.push((to - from) / 1000);
     }
   }
-  return { work, intervals };
+  // Where the main thread's time went over the whole drag, ms by kind of work (script nests inside
+  // event dispatch, so the two overlap; style, layout and paint do not nest in script).
+  const breakdown: Record<string, number> = {};
+  for (const e of on) if (e.ph === 'X' && e.dur && BREAKDOWN.includes(e.name)) breakdown[e.name] = (breakdown[e.name] ?? 0) + e.dur / 1000;
+  return { work, intervals, breakdown };
 }
 
-const p95 = (xs: number[]) => {
+const BREAKDOWN = ['RunTask', 'EventDispatch', 'FunctionCall', 'TimerFire', 'FireAnimationFrame', 'UpdateLayoutTree', 'Layout', 'PrePaint', 'Paint', 'Layerize', 'Commit', 'HitTest', 'MajorGC', 'MinorGC'];
+
+export const formatBreakdown = (b: Record<string, number>) =>
+  Object.entries(b).sort((x, y) => y[1] - x[1]).map(([k, v]) => `${k} ${v.toFixed(0)}`).join(', ');
+
+export const p95 = (xs: number[]) => {
   const sorted = [...xs].sort((a, b) => a - b);
   return sorted[Math.min(sorted.length - 1, Math.floor(sorted.length * 0.95))] ?? NaN;
 };
+
+/** Signs the bench's browser in as the demo crew lead. */
+export async function signIn(page: Page, baseUrl: string): Promise<void> {
+  await page.goto(`${baseUrl}/login`);
+  await page.getByLabel('E-mail').fill(process.env.BONDMAP_BENCH_USER ?? 'lead@demo.test');
+  await page.getByLabel('Password').fill(process.env.BONDMAP_BENCH_PASSWORD ?? 'bondmap-demo');
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL((u) => u.pathname !== '/login');
+}
+
+/** Stores a generated plan of about `elements` elements through the API; returns its page and size. */
+export async function createBenchPlan(page: Page, baseUrl: string, elements: number, seed: number): Promise<{ url: string; count: number }> {
+  const planDoc = generatePlan({ elements, seed });
+  const created = await page.evaluate(async (doc) => {
+    const res = await fetch('/api/plans', { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ title: `Bench ${doc.nodes.length + doc.links.length} elements`, document: doc }) });
+    return { status: res.status, body: await res.json() };
+  }, { ...planDoc, title: 'Editor bench plan' });
+  if (created.status !== 201) throw new Error(`creating the bench plan failed: ${created.status} ${JSON.stringify(created.body).slice(0, 300)}`);
+  return { url: `${baseUrl}/plans/${created.body.plan.id}`, count: planDoc.nodes.length + planDoc.links.length };
+}
+
+/**
+ * Time to the first interactive canvas: from navigation start until the nodes are drawn and the
+ * canvas answers a pointer (React Flow has measured them, so they are draggable).
+ */
+export async function openTimed(page: Page, planUrl: string): Promise<number> {
+  await page.goto(planUrl);
+  await page.waitForFunction(() => document.querySelectorAll('.react-flow__node').length > 0 && !!document.querySelector('.react-flow__node[style*="visibility: visible"], .react-flow__node:not([style*="visibility: hidden"])'));
+  return Math.round(await page.evaluate(() => performance.now()));
+}
+
+/**
+ * Frame work while dragging one node for 2 s, with the whole plan fitted into view (the most
+ * elements drawn). Waits for the fit animation to end before picking where to grab.
+ */
+export async function measureDrag(page: Page, cdp: CDPSession): Promise<ReturnType<typeof frameWork> & { moves: number }> {
+  await page.getByTestId('topbar').getByRole('button', { name: 'Fit', exact: true }).click();
+  const viewport = () => page.evaluate(() => document.querySelector('.react-flow__viewport')?.getAttribute('style') ?? '');
+  for (let last = '', now = await viewport(), k = 0; now !== last && k < 50; k++) {
+    await page.waitForTimeout(300);
+    [last, now] = [now, await viewport()];
+  }
+  // The first node the pointer really hits well inside the canvas, so the moves below stay in
+  // the canvas and clear of the edges where React Flow pans by itself.
+  const grab = (await page.evaluate(`(() => {
+    const c = document.querySelector('[data-testid="canvas"]').getBoundingClientRect();
+    for (const el of document.querySelectorAll('.react-flow__node')) {
+      const r = el.getBoundingClientRect();
+      const x = r.x + r.width / 2, y = r.y + Math.min(r.height / 2, 20);
+      if (x < c.left + 200 || x > c.right - 200 || y < c.top + 150 || y > c.bottom - 150) continue;
+      if (document.elementFromPoint(x, y)?.closest('.react-flow__node') === el) return { id: el.dataset.id, x, y, style: el.style.transform };
+    }
+    return null;
+  })()`)) as { id: string; x: number; y: number; style: string } | null;
+  if (!grab) throw new Error('no node inside the canvas to drag');
+  const viewportBefore = await viewport();
+  let moves = 0;
+  await page.mouse.move(grab.x, grab.y);
+  await page.mouse.down();
+  const events = await traceWhile(cdp, async () => {
+    const start = Date.now();
+    while (Date.now() - start < 2000) {
+      moves++;
+      await page.mouse.move(grab.x + 120 * Math.sin(moves / 10), grab.y + 80 * Math.cos(moves / 13));
+    }
+  });
+  await page.mouse.up();
+  const after = (await page.evaluate(`document.querySelector('.react-flow__node[data-id="${grab.id}"]')?.style.transform ?? null`)) as string | null;
+  if (!after || after === grab.style) throw new Error(`the drag did not move node ${grab.id}`);
+  if ((await viewport()) !== viewportBefore) throw new Error('the viewport moved during the drag: that was a pan, not a node drag');
+  return { ...frameWork(events), moves };
+}
 
 export async function runEditorBench(baseUrl: string, elements = 1000): Promise<EditorBenchResult> {
   const browser = await launchBrowser();
   try {
     const context = await browser.newContext({ viewport: { width: 1366, height: 900 } });
     const page = await context.newPage();
-    await page.goto(`${baseUrl}/login`);
-    await page.getByLabel('E-mail').fill(process.env.BONDMAP_BENCH_USER ?? 'lead@demo.test');
-    await page.getByLabel('Password').fill(process.env.BONDMAP_BENCH_PASSWORD ?? 'bondmap-demo');
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.waitForURL((u) => u.pathname !== '/login');
-
-    const planDoc = generatePlan({ elements, seed: 20240611 });
-    const count = planDoc.nodes.length + planDoc.links.length;
-    const created = await page.evaluate(async (doc) => {
-      const res = await fetch('/api/plans', { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ title: `Bench ${doc.nodes.length + doc.links.length} elements`, document: doc }) });
-      return { status: res.status, body: await res.json() };
-    }, { ...planDoc, title: 'Editor bench plan' });
-    if (created.status !== 201) throw new Error(`creating the bench plan failed: ${created.status} ${JSON.stringify(created.body).slice(0, 300)}`);
-    const planUrl = `${baseUrl}/plans/${created.body.plan.id}`;
-
-    // Time to the first interactive canvas: from navigation start until the nodes are drawn and
-    // the canvas answers a pointer (React Flow has measured them, so they are draggable).
-    await page.goto(planUrl);
-    await page.waitForFunction(() => document.querySelectorAll('.react-flow__node').length > 0 && !!document.querySelector('.react-flow__node[style*="visibility: visible"], .react-flow__node:not([style*="visibility: hidden"])'));
-    const interactiveMs = await page.evaluate(() => performance.now());
-
-    // Frame times while dragging one node for 2 s, with the whole plan fitted into view (the most
-    // elements drawn). Wait for the fit animation to end before picking where to grab.
-    await page.getByTestId('topbar').getByRole('button', { name: 'Fit', exact: true }).click();
-    const viewport = () => page.evaluate(() => document.querySelector('.react-flow__viewport')?.getAttribute('style') ?? '');
-    for (let last = '', now = await viewport(); now !== last; ) {
-      await page.waitForTimeout(300);
-      [last, now] = [now, await viewport()];
-    }
-    // The first node the pointer really hits well inside the canvas, so the moves below stay in
-    // the canvas and clear of the edges where React Flow pans by itself.
-    const grab = (await page.evaluate(`(() => {
-      const c = document.querySelector('[data-testid="canvas"]').getBoundingClientRect();
-      for (const el of document.querySelectorAll('.react-flow__node')) {
-        const r = el.getBoundingClientRect();
-        const x = r.x + r.width / 2, y = r.y + Math.min(r.height / 2, 20);
-        if (x < c.left + 200 || x > c.right - 200 || y < c.top + 150 || y > c.bottom - 150) continue;
-        if (document.elementFromPoint(x, y)?.closest('.react-flow__node') === el) return { id: el.dataset.id, x, y, style: el.style.transform };
-      }
-      return null;
-    })()`)) as { id: string; x: number; y: number; style: string } | null;
-    if (!grab) throw new Error('no node inside the canvas to drag');
-    const viewportBefore = await viewport();
+    await signIn(page, baseUrl);
+    const plan = await createBenchPlan(page, baseUrl, elements, 20240611);
+    const interactiveMs = await openTimed(page, plan.url);
     const cdp = await context.newCDPSession(page);
-    let moves = 0;
-    await page.mouse.move(grab.x, grab.y);
-    await page.mouse.down();
-    const events = await traceWhile(cdp, async () => {
-      const start = Date.now();
-      while (Date.now() - start < 2000) {
-        moves++;
-        await page.mouse.move(grab.x + 120 * Math.sin(moves / 10), grab.y + 80 * Math.cos(moves / 13));
-      }
-    });
-    await page.mouse.up();
+    const frames = await measureDrag(page, cdp);
     await cdp.detach();
-    const after = (await page.evaluate(`document.querySelector('.react-flow__node[data-id="${grab.id}"]')?.style.transform ?? null`)) as string | null;
-    if (!after || after === grab.style) throw new Error(`the drag did not move node ${grab.id}`);
-    if ((await viewport()) !== viewportBefore) throw new Error('the viewport moved during the drag: that was a pan, not a node drag');
-    const frames = frameWork(events);
-
-    const editorJs = await collectScripts(page, planUrl);
+    const editorJs = await collectScripts(page, plan.url);
     const plansJs = await collectScripts(page, `${baseUrl}/plans`);
     await context.close();
     return {
-      elements: count,
-      interactiveMs: Math.round(interactiveMs),
+      elements: plan.count,
+      interactiveMs,
       dragFrames: frames.work.length,
-      pointerMoves: moves,
+      pointerMoves: frames.moves,
       p95FrameMs: Math.round(p95(frames.work) * 10) / 10,
       p95FrameIntervalMs: Math.round(p95(frames.intervals) * 10) / 10,
+      dragBreakdown: frames.breakdown,
       editorJsGzipBytes: editorJs.gzipBytes,
       plansPageJsGzipBytes: plansJs.gzipBytes,
       plansPageScripts: plansJs.files,
@@ -197,18 +226,7 @@ export function printEditorBench(r: EditorBenchResult): void {
   console.log(`  first interactive canvas   ${r.interactiveMs} ms   (target < 1500 ms)`);
   console.log(`  p95 frame while dragging   ${r.p95FrameMs} ms main-thread work over ${r.dragFrames} frames with a pointer move   (target < 16.7 ms)`);
   console.log(`  drag cadence               ${r.pointerMoves} pointer moves in 2 s, p95 ${r.p95FrameIntervalMs} ms between those frames`);
+  console.log(`  where the drag's time went ${formatBreakdown(r.dragBreakdown)} (ms, trace event names)`);
   console.log(`  editor page JavaScript     ${kb(r.editorJsGzipBytes)} gzip   (target < 250 KB)`);
   console.log(`  /plans page JavaScript     ${kb(r.plansPageJsGzipBytes)} gzip, ${r.plansPageScripts.length} file(s)${r.plansPageScripts.length ? `: ${r.plansPageScripts.join(', ')}` : ' (no island code)'}`);
-}
-
-if (import.meta.url === `file://${process.argv[1]}`) {
-  const base = process.env.BONDMAP_TEST_URL;
-  if (!base) {
-    console.error('Set BONDMAP_TEST_URL to a running Bondmap server (e.g. http://127.0.0.1:4395).');
-    process.exit(2);
-  }
-  runEditorBench(base).then(printEditorBench, (err) => {
-    console.error(err);
-    process.exit(1);
-  });
 }

@@ -3,6 +3,7 @@
  * reports heap growth, and compares the sparse solver with dense Gaussian elimination on the same
  * networks. Prints a table; asserts nothing (timings belong to the machine, not to the tests).
  */
+import { writeFileSync } from 'node:fs';
 import { setFlagsFromString } from 'node:v8';
 import { runInNewContext } from 'node:vm';
 import type { PlanDocument } from '../src/lib/schemas/plan';
@@ -127,7 +128,12 @@ async function main() {
   console.log(`Whole check (${name}), median over several runs, this machine:`);
   table(['elements', 'nodes', 'links', 'median ms', 'best ms', 'heap +MB'], rows);
   const growth = (timesBySize.get(10000) as number) / (timesBySize.get(1000) as number);
-  console.log(`growth 1,000 → 10,000 elements: ${growth.toFixed(1)}× (linear 10×, quadratic 100×, cubic 1000×)`);
+  console.log(`growth 1,000 → 10,000 elements: ${growth.toFixed(1)}× (linear 10×, quadratic 100×, cubic 1000×; goal ≤ 15×)`);
+  console.log(`1,000-element check: ${(timesBySize.get(1000) as number).toFixed(2)} ms median (goal < 20 ms)`);
+  if (process.env.BONDMAP_BENCH_OUT) {
+    const round = (x: number) => Math.round(x * 100) / 100;
+    writeFileSync(process.env.BONDMAP_BENCH_OUT, JSON.stringify({ check1kMs: round(timesBySize.get(1000) as number), check10kMs: round(timesBySize.get(10000) as number), checkGrowth: round(growth) }));
+  }
   console.log(`peak resident set: ${(process.resourceUsage().maxRSS / 1024).toFixed(0)} MB\n`);
   console.log('Solver alone: factor + every right-hand side the analysis solves (phases and contacts):');
   table(['elements', 'unknowns', 'rhs', 'sparse ms', 'dense ms', 'ratio', 'dense'], solverRows);

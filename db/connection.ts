@@ -18,7 +18,7 @@ export function createDb(config: DbConfig): Db {
     dialect: 'mariadb',
     logging: false,
     timezone: '+00:00',
-    pool: { max: config.poolMax, min: 0, acquire: 4000, idle: 10000, evict: 5000 },
+    pool: { max: config.poolMax, min: Math.min(2, config.poolMax), acquire: 4000, idle: 60000, evict: 5000 },
     dialectOptions: { connectTimeout: 2000 },
     define: { underscored: true, timestamps: true },
     retry: { max: 0 },

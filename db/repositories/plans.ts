@@ -2,7 +2,7 @@
  * Plans and their revisions. Every function takes the organisation id: a plan of another
  * organisation is simply not found. Revisions are only ever inserted.
  */
-import { Op, Transaction, type Order, type WhereOptions } from 'sequelize';
+import { QueryTypes, Transaction } from 'sequelize';
 import type { PlanStatus } from '../../src/lib/domain/plan-status';
 import { isEditable } from '../../src/lib/domain/plan-status';
 import { defaultSortDir, type ListPlansQuery } from '../../src/lib/schemas/api';
@@ -12,7 +12,6 @@ import type { CheckReport } from '../../src/lib/domain/report';
 import { planSchema, type PlanDocument } from '../../src/lib/schemas/plan';
 import { parseStoredReport } from '../../src/lib/schemas/report';
 import type { Db } from '../connection';
-import type { Plan, PlanRevision } from '../models';
 import { recordEvent } from './audit';
 
 export interface PlanSummary {
@@ -48,25 +47,6 @@ export interface PlanPage {
   pages: number;
 }
 
-type PlanRow = Plan & { author?: { name: string } };
-
-function toSummary(row: PlanRow): PlanSummary {
-  return {
-    id: row.id,
-    title: row.title,
-    structure: row.structure,
-    status: row.status,
-    blockers: row.blockers,
-    warnings: row.warnings,
-    authorId: row.authorId,
-    authorName: row.author?.name ?? '',
-    currentRevision: row.currentRevision,
-    submittedAt: row.submittedAt ?? null,
-    createdAt: row.createdAt,
-    updatedAt: row.updatedAt,
-  };
-}
-
 /**
  * Parses a stored document with the plan schema after migrating it to the current version
  * (`migratePlan`): a corrupt row is an error, never silently used. Extra fields nested deeper
@@ -76,47 +56,81 @@ export function readStoredDocument(text: string): PlanDocument {
   return planSchema.parse(migratePlan(pruneDeep(JSON.parse(text))));
 }
 
-function toDetail(row: PlanRow, revision: PlanRevision): PlanDetail {
-  return {
-    ...toSummary(row),
-    document: readStoredDocument(revision.document),
-    report: parseStoredReport(revision.report),
-    revisionCreatedAt: revision.createdAt,
-    revisionCreatedBy: revision.createdBy,
-  };
-}
-
+/** Sort keys to columns (fixed strings: nothing from the request reaches the SQL text). */
 const SORT_COLUMNS: Record<ListPlansQuery['sort'], string> = {
-  updated: 'updatedAt',
-  created: 'createdAt',
+  updated: 'updated_at',
+  created: 'created_at',
   title: 'title',
   status: 'status',
   blockers: 'blockers',
   warnings: 'warnings',
   structure: 'structure',
-  submitted: 'submittedAt',
+  submitted: 'submitted_at',
 };
 
-const authorInclude = (db: Db) => ({ model: db.models.User, as: 'author', attributes: ['name'] });
+const SUMMARY_COLUMNS = `p.id, p.title, p.structure, p.status, p.blockers, p.warnings, p.author_id AS authorId, u.name AS authorName,
+  p.current_revision AS currentRevision, p.submitted_at AS submittedAt, p.created_at AS createdAt, p.updated_at AS updatedAt`;
 
-/** One page of the organisation's plans, filtered and sorted (ties broken by id for stable paging). */
-export async function listPlans(db: Db, organizationId: number, query: ListPlansQuery & { authorId?: string; statuses?: PlanStatus[] }): Promise<PlanPage> {
-  const where: WhereOptions = { organizationId };
-  if (query.status) Object.assign(where, { status: query.status });
-  else if (query.statuses) Object.assign(where, { status: { [Op.in]: query.statuses } });
-  if (query.authorId) Object.assign(where, { authorId: query.authorId });
-  if (query.q) Object.assign(where, { title: { [Op.like]: `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%` } });
-  const dir = (query.dir ?? defaultSortDir(query.sort)).toUpperCase() as 'ASC' | 'DESC';
-  const order: Order = [[SORT_COLUMNS[query.sort], dir], ['id', dir]];
-  const { rows, count } = await db.models.Plan.findAndCountAll({
-    where,
-    order,
-    include: [authorInclude(db)],
-    limit: query.pageSize,
-    offset: (query.page - 1) * query.pageSize,
-  });
+type SummaryRow = Omit<PlanSummary, 'authorName'> & { authorName: string | null; total?: number | bigint };
+
+const toDate = (v: Date | string) => (v instanceof Date ? v : new Date(`${v.replace(' ', 'T')}Z`));
+
+function rowToSummary(row: SummaryRow): PlanSummary {
   return {
-    items: (rows as PlanRow[]).map(toSummary),
+    id: Number(row.id),
+    title: row.title,
+    structure: row.structure,
+    status: row.status,
+    blockers: row.blockers === null ? null : Number(row.blockers),
+    warnings: row.warnings === null ? null : Number(row.warnings),
+    authorId: row.authorId,
+    authorName: row.authorName ?? '',
+    currentRevision: Number(row.currentRevision),
+    submittedAt: row.submittedAt === null ? null : toDate(row.submittedAt),
+    createdAt: toDate(row.createdAt),
+    updatedAt: toDate(row.updatedAt),
+  };
+}
+
+/**
+ * One page of the organisation's plans, filtered and sorted (ties broken by id for stable paging).
+ * One query: the page and, through a window count, the total. Only a page past the end (no rows,
+ * so no total) costs a second, counting query. Plain rows: a list needs no model instances and
+ * never reads a document.
+ */
+export async function listPlans(db: Db, organizationId: number, query: ListPlansQuery & { authorId?: string; statuses?: PlanStatus[] }): Promise<PlanPage> {
+  const where = ['p.organization_id = ?'];
+  const values: unknown[] = [organizationId];
+  if (query.status) {
+    where.push('p.status = ?');
+    values.push(query.status);
+  } else if (query.statuses) {
+    if (query.statuses.length === 0) where.push('FALSE');
+    else {
+      where.push(`p.status IN (${query.statuses.map(() => '?').join(', ')})`);
+      values.push(...query.statuses);
+    }
+  }
+  if (query.authorId) {
+    where.push('p.author_id = ?');
+    values.push(query.authorId);
+  }
+  if (query.q) {
+    where.push('p.title LIKE ?'); // backslash is LIKE's escape character by default
+    values.push(`%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`);
+  }
+  const dir = (query.dir ?? defaultSortDir(query.sort)) === 'asc' ? 'ASC' : 'DESC';
+  const filter = where.join(' AND ');
+  const sql = `SELECT ${SUMMARY_COLUMNS}, COUNT(*) OVER () AS total FROM plans p LEFT JOIN users u ON u.id = p.author_id
+    WHERE ${filter} ORDER BY p.${SORT_COLUMNS[query.sort]} ${dir}, p.id ${dir} LIMIT ? OFFSET ?`;
+  const rows = await db.sequelize.query<SummaryRow>(sql, { replacements: [...values, query.pageSize, (query.page - 1) * query.pageSize], type: QueryTypes.SELECT });
+  let count = rows.length ? Number(rows[0].total) : 0;
+  if (!rows.length && query.page > 1) {
+    const [counted] = await db.sequelize.query<{ n: number | bigint }>(`SELECT COUNT(*) AS n FROM plans p WHERE ${filter}`, { replacements: values, type: QueryTypes.SELECT });
+    count = Number(counted.n);
+  }
+  return {
+    items: rows.map(rowToSummary),
     total: count,
     page: query.page,
     pageSize: query.pageSize,
@@ -136,11 +150,22 @@ export async function countPlansByStatus(db: Db, organizationId: number, authorI
   return counts;
 }
 
+/** A plan with its current revision: the plan, its author and the revision in one query. */
 export async function getPlan(db: Db, organizationId: number, id: number): Promise<PlanDetail | null> {
-  const row = (await db.models.Plan.findOne({ where: { id, organizationId }, include: [authorInclude(db)] })) as PlanRow | null;
+  const [row] = await db.sequelize.query<SummaryRow & { document: string; report: string | null; revisionCreatedAt: Date | string; revisionCreatedBy: string }>(
+    `SELECT ${SUMMARY_COLUMNS}, r.document, r.report, r.created_at AS revisionCreatedAt, r.created_by AS revisionCreatedBy
+     FROM plans p LEFT JOIN users u ON u.id = p.author_id JOIN plan_revisions r ON r.plan_id = p.id AND r.number = p.current_revision
+     WHERE p.id = ? AND p.organization_id = ?`,
+    { replacements: [id, organizationId], type: QueryTypes.SELECT },
+  );
   if (!row) return null;
-  const revision = await db.models.PlanRevision.findOne({ where: { planId: id, number: row.currentRevision } });
-  return revision ? toDetail(row, revision) : null;
+  return {
+    ...rowToSummary(row),
+    document: readStoredDocument(row.document),
+    report: parseStoredReport(row.report),
+    revisionCreatedAt: toDate(row.revisionCreatedAt),
+    revisionCreatedBy: row.revisionCreatedBy,
+  };
 }
 
 export interface NewPlan {

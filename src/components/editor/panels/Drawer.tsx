@@ -71,7 +71,7 @@ export function Drawer({ onShow }: { onShow: (ids: string[]) => void }) {
           <button type="button" className="btn" onClick={() => setOpen(!open)} aria-expanded={open}>{open ? 'Hide' : 'Show'}</button>
         </span>
       </div>
-      {open && <div className="max-h-56 min-h-[6rem] overflow-y-auto px-4 py-2" role="tabpanel" aria-label={tab}>{body}</div>}
+      {open && <div className="max-h-56 min-h-[6rem] overflow-y-auto px-4 py-2" role="tabpanel" aria-label={tab} tabIndex={0}>{body}</div>}
       <CautionLine />
     </section>
   );
