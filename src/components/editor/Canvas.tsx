@@ -16,6 +16,8 @@ import type { Point } from './plan-ops';
 
 export interface CanvasProps {
   onInit: (rf: ReactFlowInstance) => void;
+  /** When given, a tap on a node (no link tool armed) calls this instead of selecting it: once per gesture. */
+  onTapNode?: (id: string) => void;
 }
 
 interface MenuState { x: number; y: number; id: string | null }
@@ -32,7 +34,7 @@ const MULTI_SELECT_KEYS = ['Meta', 'Control', 'Shift'];
 const FIT_VIEW_OPTIONS = { padding: 0.2, maxZoom: 1.2 };
 const PRO_OPTIONS = { hideAttribution: true };
 
-export function Canvas({ onInit }: CanvasProps) {
+export function Canvas({ onInit, onTapNode }: CanvasProps) {
   const store = useEditorStore();
   const doc = useEditor((s) => s.doc);
   const selection = useEditor((s) => s.selection);
@@ -42,6 +44,8 @@ export function Canvas({ onInit }: CanvasProps) {
   const rf = useRef<ReactFlowInstance | null>(null);
   const onInitRef = useRef(onInit);
   onInitRef.current = onInit;
+  const onTapNodeRef = useRef(onTapNode);
+  onTapNodeRef.current = onTapNode;
   const wrapper = useRef<HTMLDivElement>(null);
   const [menu, setMenu] = useState<MenuState | null>(null);
   const press = useRef<{ timer: ReturnType<typeof setTimeout>; x: number; y: number } | null>(null);
@@ -157,6 +161,7 @@ export function Canvas({ onInit }: CanvasProps) {
     if (nodeIdAt(document.elementFromPoint(e.clientX, e.clientY)) !== t.node) return;
     const s = store.getState();
     if (s.linkTool) s.tapElement(t.node, e.shiftKey);
+    else if (onTapNodeRef.current) onTapNodeRef.current(t.node);
     else if (!e.shiftKey && !e.ctrlKey && !e.metaKey) s.select([t.node]);
   };
   useEffect(() => cancelPress, []);

@@ -15,12 +15,15 @@ export function MarkElements({ exercise, onSubmit, busy }: { exercise: LearnerEx
   const selection = useStore(store, (s) => s.selection);
   const toggle = (id: string) => setMarked((m) => (m.includes(id) ? m.filter((x) => x !== id) : [...m, id]));
 
-  // A tap selects in React Flow; here it toggles the mark and the selection is cleared again.
+  // A tap on a symbol arrives once, through the canvas's tap handler, and toggles its mark. Links
+  // are picked through React Flow's selection: it toggles them and the selection is cleared again
+  // (node selections are left alone, since React Flow's own click would toggle a node twice).
+  const isLink = (id: string) => doc.links.some((l) => l.id === id);
   useEffect(() => {
-    if (!selection.length) return;
-    const picked = selection;
+    const links = selection.filter(isLink);
+    if (!links.length) return;
     store.setState({ selection: [] });
-    setMarked((m) => picked.reduce((acc, id) => (acc.includes(id) ? acc.filter((x) => x !== id) : [...acc, id]), m));
+    setMarked((m) => links.reduce((acc, id) => (acc.includes(id) ? acc.filter((x) => x !== id) : [...acc, id]), m));
   }, [selection, store]);
   useEffect(() => {
     store.setState({ pins: Object.fromEntries(marked.map((id, i) => [id, [i + 1]])) });
@@ -28,7 +31,7 @@ export function MarkElements({ exercise, onSubmit, busy }: { exercise: LearnerEx
 
   const ids = [...doc.nodes.map((n) => n.id), ...doc.links.map((l) => l.id)];
   return (
-    <PracticeCanvas store={store} label="Drawing: tap to mark">
+    <PracticeCanvas store={store} label="Drawing: tap to mark" onTapNode={toggle}>
       <aside className="w-full space-y-3 lg:w-80">
         <p className="font-semibold" aria-live="polite" data-testid="marked-count">{marked.length} marked</p>
         <ul className="max-h-[50vh] space-y-1 overflow-auto" aria-label="Elements">

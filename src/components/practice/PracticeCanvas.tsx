@@ -11,7 +11,7 @@ import { EditorStoreContext } from '../editor/selectors';
 import { createEditorStore, type EditorStore } from '../editor/store';
 import type { PlanDocument } from '../../lib/schemas/plan';
 
-export function PracticeCanvas({ store, children, label }: { store: EditorStore; children?: ReactNode; label: string }) {
+export function PracticeCanvas({ store, children, label, onTapNode }: { store: EditorStore; children?: ReactNode; label: string; onTapNode?: (id: string) => void }) {
   const rf = useRef<ReactFlowInstance | null>(null);
   useEffect(() => {
     const fit = () => rf.current?.fitView({ padding: 0.2 });
@@ -23,7 +23,7 @@ export function PracticeCanvas({ store, children, label }: { store: EditorStore;
       <ReactFlowProvider>
         <div className="bm-editor flex flex-col gap-3 lg:flex-row" aria-label={label}>
           <div className="h-[60vh] min-h-[420px] flex-1 rounded-lg border border-line bg-paper" data-testid="practice-canvas">
-            <Canvas onInit={(inst) => { rf.current = inst; }} />
+            <Canvas onInit={(inst) => { rf.current = inst; }} onTapNode={onTapNode} />
           </div>
           {children}
         </div>
