@@ -86,6 +86,8 @@ describe('the field record offline', () => {
     await context.setOffline(true);
     await page.reload();
     await expect.poll(() => heading(page)).toBe('Sign on the crew');
+    // The page came from the worker; the island has run once it reads the device's copy.
+    await expect.poll(() => page.getByTestId('in-step').textContent()).toMatch(/^In step with the server at/);
     await upToTheTest(page);
     await putOn(page, 'LV-101');
     await putOn(page, 'LV-102');
@@ -137,6 +139,28 @@ describe('the field record offline', () => {
 });
 
 
+describe('signing out', () => {
+  it("empties the person's page cache and record copies on the device", async () => {
+    const { page } = await browser.signIn('lead@demo.test');
+    await openRecordOnline(page);
+    const held = () => page.evaluate(async () => {
+      const pages = (await caches.keys()).includes('bondmap-person-pages');
+      const copies = await new Promise<number>((resolve) => {
+        const open = indexedDB.open('bondmap-field');
+        open.onsuccess = () => {
+          const request = open.result.transaction('records').objectStore('records').count();
+          request.onsuccess = () => resolve(request.result);
+        };
+      });
+      return `${pages}/${copies}`;
+    });
+    await expect.poll(held).toBe('true/1');
+    await page.getByRole('button', { name: 'Sign out' }).click();
+    await page.waitForURL(/\/login$/);
+    await expect.poll(held).toBe('false/0');
+  });
+});
+
 describe('two devices on one record', () => {
   it('merges the entries of a device that was offline, and keeps a refusal beside its entry', async () => {
     const tablet = await browser.signIn('lead@demo.test');
@@ -147,6 +171,8 @@ describe('two devices on one record', () => {
     const phone = await browser.signIn('admin@demo.test', PHONE);
     await phone.page.goto(url);
     await expect.poll(() => heading(phone.page)).toMatch(/^Set on: /);
+    // In step is said only by the island once it runs: what is pressed before would be lost.
+    await expect.poll(() => phone.page.getByTestId('in-step').textContent()).toMatch(/^In step with the server at/);
     await phone.context.setOffline(true);
     const first = await putOn(phone.page, 'LV-108');
     await phone.page.getByText('Deviation or note', { exact: true }).click();
@@ -156,6 +182,7 @@ describe('two devices on one record', () => {
 
     // Meanwhile the tablet, online, puts a set on the same jumper first.
     expect(await putOn(tablet.page, 'LV-110')).toBe(first);
+    await expect.poll(() => waiting(tablet.page), { timeout: 20_000 }).toBe('0/0');
     await phone.context.setOffline(false);
     await expect.poll(() => waiting(phone.page), { timeout: 20_000 }).toBe('0/0');
     const refused = phone.page.getByTestId('entry-refused');
