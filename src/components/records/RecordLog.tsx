@@ -1,4 +1,7 @@
-/** The record's log in the order it was kept, each flag beside its entry, and the photos. */
+/**
+ * The record's log in the order things were done (each entry's device time, so the entries of a
+ * device that was offline merge in among the others'), each flag beside its entry, and the photos.
+ */
 import { BRIEFING_LABELS } from '../../lib/domain/field-record';
 import type { CrewPerson, EntryView, RecordView } from './types';
 
@@ -31,7 +34,7 @@ export function RecordLog({ record, people, onDismiss }: { record: RecordView; p
       <h2 className="text-lg font-semibold">Log</h2>
       {record.entries.length === 0 ? <p className="text-note">Nothing recorded yet.</p> : (
         <ol className="divide-y divide-line rounded-lg border border-line bg-white" data-testid="record-log">
-          {record.entries.map((e) => (
+          {[...record.entries].sort((a, b) => a.at.localeCompare(b.at)).map((e) => (
             <li key={e.clientId} className="px-3 py-2" data-type={e.type} data-client-id={e.clientId}>
               <span className="num mr-2 text-note">{time(e.at)}</span>
               <span className={e.type === 'voltage-test' && Object.values(e.phases).includes('present') ? 'font-bold text-blocker' : ''}>{describe(e, name)}</span>

@@ -193,6 +193,10 @@ describe('two devices on one record', () => {
     expect(entries.filter((e) => e.type === 'note')).toHaveLength(1);
     await tablet.page.reload();
     await expect.poll(() => tablet.page.getByTestId('record-log').textContent()).toContain('Phone: crossarm brace cracked');
+    // The phone's note was made before the tablet's set went on: the log shows it first.
+    const log = await tablet.page.getByTestId('record-log').locator('li').evaluateAll((items) => items.map((li) => li.getAttribute('data-type')));
+    expect(log.slice(-2)).toEqual(['note', 'install']);
+    expect(entries.slice(-2).map((e) => e.type)).toEqual(['install', 'note']);
     await expect.poll(() => phone.page.getByTestId('count-on').textContent()).toBe('1');
   });
 });
