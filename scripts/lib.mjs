@@ -69,6 +69,7 @@ export function ensureBuild() {
   }
   say('building the app…');
   run('npx', ['astro', 'build']);
+  run(process.execPath, [join(ROOT, 'scripts', 'build-worker.mjs')]);
 }
 
 /** Starts the built server; resolves once /api/health answers 200. */

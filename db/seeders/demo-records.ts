@@ -5,10 +5,11 @@
  */
 import { randomUUID } from 'node:crypto';
 import sharp from 'sharp';
-import { freeTextSetStatus, judgeAppend, judgeCloseOut, type EntryBody, type FieldEntry } from '../../src/lib/domain/field-record';
+import { inventorySetStatus, judgeAppend, judgeCloseOut, type EntryBody, type FieldEntry } from '../../src/lib/domain/field-record';
 import { objectStoreSettings } from '../../src/lib/server/object-store';
 import { putPhotoObjects } from '../../src/lib/server/photos';
 import type { Db } from '../connection';
+import { allSets } from '../repositories/equipment';
 import { addEntry, addPhoto, closeRecord, createRecord } from '../repositories/field-records';
 
 /** A drawn scene: a pole, a crossarm with three conductors, a cluster bar and ground leads. */
@@ -43,11 +44,14 @@ export async function seedDemoRecords(db: Db, organizationId: number, planId: nu
     if (outcome.kind !== 'ok') throw new Error(`demo record cannot be opened: ${outcome.kind}`);
     return outcome.record.id;
   };
+  // Judged against the demo inventory (seeded first), as the server judges: a tag here that is not
+  // an in-date set of the co-operative stops the seed rather than leave a record no crew could make.
+  const sets = inventorySetStatus(await allSets(db, organizationId), today.toISOString().slice(0, 10));
   const write = async (recordId: number, day: Date, bodies: EntryBody[]) => {
     let minute = 0;
     for (const body of bodies) {
       const entry = { ...body, clientId: randomUUID(), at: at(day, (minute += 4)), actorId: leadId } as FieldEntry;
-      const outcome = await addEntry(db, organizationId, recordId, entry, (document, entries, closed) => judgeAppend(document, entries, closed, freeTextSetStatus));
+      const outcome = await addEntry(db, organizationId, recordId, entry, (document, entries, closed) => judgeAppend(document, entries, closed, sets));
       if (outcome.kind !== 'created') throw new Error(`demo entry ${body.type} was not recorded: ${outcome.kind}`);
     }
   };
@@ -69,7 +73,7 @@ export async function seedDemoRecords(db: Db, organizationId: number, planId: nu
   const closedId = await open(lastWeek, 'HOLD-DEMO-0117');
   await write(closedId, lastWeek, [
     ...start,
-    on('jN', 'LV-03'), on('jA', 'LV-07'), on('jB', 'LV-11'), on('jC', 'LV-12'), on('jBK', 'LV-15'),
+    on('jN', 'LV-104'), on('jA', 'LV-101'), on('jB', 'LV-102'), on('jC', 'LV-103'), on('jBK', 'LV-107'),
     { type: 'deviation', text: 'Bucket lead rerouted around the street-light arm; same cluster bar.' },
     { type: 'remove', link: 'jBK' }, { type: 'remove', link: 'jC' }, { type: 'remove', link: 'jA' }, { type: 'remove', link: 'jB' }, { type: 'remove', link: 'jN' },
   ]);
@@ -78,7 +82,7 @@ export async function seedDemoRecords(db: Db, organizationId: number, planId: nu
   if (closed.kind !== 'ok') throw new Error(`demo record cannot be closed: ${closed.kind}`);
 
   const openId = await open(today, 'HOLD-DEMO-0123');
-  await write(openId, today, [...start, on('jN', 'LV-03'), on('jA', 'LV-07'), on('jB', 'LV-11')]);
+  await write(openId, today, [...start, on('jN', 'LV-106'), on('jA', 'LV-105'), on('jB', 'LV-109')]);
   await photo(openId, 35, 2, 'Neutral, A and B on; C next (drawn for the demo)');
   return 2;
 }

@@ -6,6 +6,7 @@ import { extractText, getDocumentProxy } from 'unpdf';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Client, signedIn } from '../helpers/api';
 import { closeTestDb, makeOrganization, makePerson, makeTeam, planDocument, PASSWORD } from '../helpers/factories';
+import { monthsAgo, setBody } from '../helpers/equipment';
 import { approvedPlan, entry, JUMPERS, mailTo, passingTest, readyToInstall } from '../helpers/records';
 
 let team: Awaited<ReturnType<typeof makeTeam>>;
@@ -20,8 +21,16 @@ beforeAll(async () => {
   lead = await signedIn(team.lead.email, PASSWORD);
   reviewer = await signedIn(team.reviewer.email, PASSWORD);
   admin = await signedIn(team.admin.email, PASSWORD);
-  other = await signedIn((await makePerson(await makeOrganization('Elsewhere Invented Co-operative'), 'crew_lead')).email, PASSWORD);
+  const elsewhere = await makeOrganization('Elsewhere Invented Co-operative');
+  other = await signedIn((await makePerson(elsewhere, 'crew_lead')).email, PASSWORD);
+  const otherAdmin = await signedIn((await makePerson(elsewhere, 'admin')).email, PASSWORD);
+  expect((await otherAdmin.post('/api/equipment', setBody({ tag: 'ELSEWHERE-1' }))).status).toBe(201);
   planId = await approvedPlan(lead, reviewer);
+  // The record takes only sets of the organisation's inventory that are in service and in date.
+  for (const tag of ['S1', 'S2', 'S5', ...JUMPERS.map((link) => `SET-${link}`)]) expect((await admin.post('/api/equipment', setBody({ tag }))).status).toBe(201);
+  expect((await admin.post('/api/equipment', setBody({ tag: 'OLD-1', lastTestedOn: monthsAgo(13) }))).status).toBe(201);
+  expect((await admin.post('/api/equipment', setBody({ tag: 'OUT-1', status: 'out-of-service', statusReason: 'Jacket cut' }))).status).toBe(201);
+  expect((await admin.post('/api/equipment', setBody({ tag: 'GONE-1', status: 'retired', statusReason: 'Scrapped' }))).status).toBe(201);
 });
 afterAll(closeTestDb);
 
@@ -115,6 +124,26 @@ describe('refusals', () => {
     expect([twice.status, twice.body.error.code]).toEqual([409, 'SET_ALREADY_ON']);
     expect((await post(id, entry('install', { link: 'jB', setTag: 's1', groundEndFirst: true }))).body.error).toMatchObject({ code: 'SET_TAG_IN_USE', items: ['jA'] });
     expect((await post(id, entry('remove', { link: 'jC' }))).body.error.code).toBe('SET_NOT_ON');
+  });
+
+  it('a set the inventory does not know, one out of service or retired, one past its test date', async () => {
+    const id = await openRecord();
+    await readyToInstall(lead, id, team.lead.id);
+    for (const [tag, detail] of [['ELSEWHERE-1', 'ELSEWHERE-1 is not in your organisation'], ['VISITOR-7', 'VISITOR-7 is not in your organisation'], ['OUT-1', 'OUT-1 is out of service: Jacket cut'], ['GONE-1', 'GONE-1 is retired: Scrapped'], ['OLD-1', 'OLD-1 was due for its test on']]) {
+      const refused = await post(id, entry('install', { link: 'jA', setTag: tag, groundEndFirst: true }));
+      expect([refused.status, refused.body.error.code, tag]).toEqual([409, 'SET_NOT_USABLE', tag]);
+      expect(refused.body.error.message).toContain(detail);
+    }
+    expect((await post(id, entry('install', { link: 'jA', setTag: 's2', groundEndFirst: true }))).status).toBe(201);
+  });
+
+  it("the open record carries the organisation's sets for the device, and another organisation's are not among them", async () => {
+    const id = await openRecord();
+    const { inventory } = (await lead.get(`/api/records/${id}`)).body.record;
+    expect(inventory.today).toMatch(/^\d{4}-\d{2}-\d{2}$/);
+    expect(inventory.sets.map((s: { tag: string }) => s.tag)).toEqual(expect.arrayContaining(['S1', 'OLD-1', 'OUT-1', 'GONE-1']));
+    expect(inventory.sets.find((s: { tag: string }) => s.tag === 'OUT-1')).toMatchObject({ status: 'out-of-service', statusReason: 'Jacket cut' });
+    expect(inventory.sets.every((s: { tag: string }) => !s.tag.startsWith('ELSEWHERE'))).toBe(true);
   });
 
   it('close with a set on lists it; a closed record refuses every write', async () => {

@@ -15,6 +15,40 @@ function record(next: NextStep, over: Partial<RecordView> = {}): RecordView {
   };
 }
 
+const future = '2999-01-01';
+const inventory = {
+  today: '2026-05-04',
+  sets: [
+    { tag: 'LV-07', description: 'Invented phase set', status: 'in-service' as const, testDueOn: future },
+    { tag: 'LV-08', description: 'Invented phase set', status: 'in-service' as const, testDueOn: future },
+    { tag: 'LV-09', description: 'Invented overdue set', status: 'in-service' as const, testDueOn: '2026-01-01' },
+    { tag: 'LV-10', description: 'Invented faulted set', status: 'out-of-service' as const, testDueOn: future, statusReason: 'Carried fault current' },
+    { tag: 'LV-11', description: 'Invented retired set', status: 'retired' as const, testDueOn: future },
+  ],
+};
+const withPlanned = (tag: string) => ({ links: [{ id: 'jA', kind: 'jumper', from: 'a', to: 'b', equipmentId: tag }] }) as unknown as RecordView['document'];
+
+describe('the set picker', () => {
+  it('offers only the sets fit to go on and not already on, searchable by tag', async () => {
+    render(<StepPanel record={record({ kind: 'install', link: 'jA' }, { inventory, setsOn: [{ link: 'jB', setTag: 'lv-08', at: '', by: 'u1' }] })} people={[me]} me={me} busy={false} submit={vi.fn()} onClose={() => undefined} />);
+    expect(screen.getAllByRole('radio').map((r) => r.closest('label')!.textContent)).toEqual(['LV-07Invented phase set']);
+    await userEvent.type(screen.getByLabelText('Find a set by tag'), 'zz');
+    expect(screen.queryAllByRole('radio')).toHaveLength(0);
+  });
+
+  it("chooses the plan's own set first", () => {
+    render(<StepPanel record={record({ kind: 'install', link: 'jA' }, { inventory, document: withPlanned('lv-07') })} people={[me]} me={me} busy={false} submit={vi.fn()} onClose={() => undefined} />);
+    expect(screen.getByRole('radio', { name: /LV-07/ })).toBeChecked();
+    expect(screen.getByText(/named in the plan/)).toBeTruthy();
+  });
+
+  it('says why the set the plan names cannot go on, and chooses none', () => {
+    render(<StepPanel record={record({ kind: 'install', link: 'jA' }, { inventory, document: withPlanned('LV-10') })} people={[me]} me={me} busy={false} submit={vi.fn()} onClose={() => undefined} />);
+    expect(screen.getByTestId('planned-set-unfit').textContent).toContain('LV-10 is out of service: Carried fault current');
+    expect(screen.getAllByRole('radio').every((r) => !(r as HTMLInputElement).checked)).toBe(true);
+  });
+});
+
 describe('the next-step panel', () => {
   it('records a voltage test only when every phase has a result and the detector was proved before and after', async () => {
     const submit = vi.fn();
@@ -30,11 +64,15 @@ describe('the next-step panel', () => {
     expect(submit).toHaveBeenCalledWith({ type: 'voltage-test', detector: 'Detector 7', detectorCheckedBefore: true, detectorCheckedAfter: true, phases: { A: 'absent', B: 'present' } });
   });
 
-  it('puts a set on only with a tag and the ground-end-first confirmation', async () => {
+  it('puts a set on only with a set picked and the ground-end-first confirmation', async () => {
     const submit = vi.fn();
-    render(<StepPanel record={record({ kind: 'install', link: 'jA' })} people={[me]} me={me} busy={false} submit={submit} onClose={() => undefined} />);
+    render(<StepPanel record={record({ kind: 'install', link: 'jA' }, { inventory })} people={[me]} me={me} busy={false} submit={submit} onClose={() => undefined} />);
     const button = screen.getByRole('button', { name: 'Set on' });
-    await userEvent.type(screen.getByLabelText('Set tag'), 'LV-07');
+    await userEvent.click(screen.getByLabelText(/Ground end on first/));
+    expect(button).toBeDisabled();
+    await userEvent.click(screen.getByRole('radio', { name: /LV-07/ }));
+    expect(button).toBeEnabled();
+    await userEvent.click(screen.getByLabelText(/Ground end on first/));
     expect(button).toBeDisabled();
     await userEvent.click(screen.getByLabelText(/Ground end on first/));
     await userEvent.click(button);

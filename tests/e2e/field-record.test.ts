@@ -47,10 +47,22 @@ describe('the field record on a phone', () => {
     await page.getByRole('button', { name: 'Record test' }).click();
 
     let on = 0;
+    // Sets come from the demo inventory: in-date ones are offered, the overdue LV-117 and the
+    // faulted LV-118 are not.
+    const tags = ['LV-101', 'LV-102', 'LV-103', 'LV-104', 'LV-107'];
+    const used: Record<string, string> = {};
     await expect.poll(heading).toMatch(/^Set on: /);
+    for (const unfit of ['LV-117', 'LV-118']) {
+      await page.getByLabel('Find a set by tag').fill(unfit);
+      await expect.poll(() => next.getByRole('radio').count()).toBe(0);
+    }
     while ((await heading())?.startsWith('Set on: ')) {
       const link = (await heading())!.slice('Set on: '.length);
-      await page.getByLabel('Set tag').fill(`LV-${link}`);
+      used[link] = tags[on];
+      await page.getByLabel('Find a set by tag').fill(tags[on]);
+      const choice = next.getByRole('radio', { name: new RegExp(`^${tags[on]}(?!\\d)`) });
+      expect((await choice.locator('xpath=..').boundingBox())!.height).toBeGreaterThanOrEqual(44);
+      await choice.check();
       await page.getByLabel(/Ground end on first/).check();
       await page.getByRole('button', { name: 'Set on' }).click();
       on += 1;
@@ -81,7 +93,7 @@ describe('the field record on a phone', () => {
     const bytes = new Uint8Array(readFileSync((await download.path())!));
     const { text } = await extractText(await getDocumentProxy(bytes), { mergePages: true });
     const flat = text.replace(/\s+/g, ' ');
-    for (const part of ['Pole 14 on Wren Hollow Road', 'Invented detector 7', 'ON jA with set LV-jA', 'OFF jA', 'Photos', 'Every set on', 'Closed by Casimir Abernethy', 'approved detector']) expect(flat).toContain(part);
+    for (const part of ['Pole 14 on Wren Hollow Road', 'Invented detector 7', `ON jA with set ${used.jA}`, 'OFF jA', 'Photos', 'Every set on', 'Closed by Casimir Abernethy', 'approved detector']) expect(flat).toContain(part);
   });
 });
 

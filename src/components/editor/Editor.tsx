@@ -29,6 +29,7 @@ import { nearestInDirection, readingOrder } from './plan-ops';
 import { EditorStoreContext } from './selectors';
 import { createEditorStore, GRID, hasUnsavedWork, type EditorStore } from './store';
 import { readLocalDraft, startSync, type SyncHandle } from './sync';
+import type { DraftStorage } from './draft-store';
 
 export interface EditorProps {
   plan: { id: number; title: string; status: PlanStatus; currentRevision: number; document: PlanDocument; report: CheckReport | null; structure?: string; preparer?: string; date?: string };
@@ -42,15 +43,19 @@ export interface EditorProps {
   canSubmit?: boolean;
   /** Element id → what it does in the zone, shown when it is selected (the library's Explain). */
   explanations?: Record<string, string[]>;
+  /** Where unsaved work is kept on the device (EditorIsland passes IndexedDB's); localStorage when not given. */
+  drafts?: DraftStorage | null;
 }
 
-function initStore(plan: EditorProps['plan'], readOnly: boolean, pins: EditorProps['pins'], explanations: EditorProps['explanations']): { store: EditorStore; restored: boolean } {
+function initStore(plan: EditorProps['plan'], readOnly: boolean, pins: EditorProps['pins'], explanations: EditorProps['explanations'], drafts: DraftStorage | null): { store: EditorStore; restored: boolean } {
   const store = createEditorStore({ doc: plan.document, baseRevision: plan.currentRevision, readOnly, report: plan.report, pins, explanations });
-  if (readOnly || typeof localStorage === 'undefined') return { store, restored: false };
-  const draft = readLocalDraft(localStorage, plan.id);
-  if (!draft || draft.baseRevision > plan.currentRevision) return { store, restored: false };
+  if (readOnly || !drafts) return { store, restored: false };
+  const draft = readLocalDraft(drafts, plan.id);
+  if (!draft) return { store, restored: false };
   const s = store.getState();
-  store.setState({ doc: draft.doc, version: s.version + 1, saveState: 'unsaved' });
+  // A draft edited from a later revision than the page shows means the page is an older copy (the
+  // worker's, offline): the draft and its revision stand, and the save checks them with the server.
+  store.setState({ doc: draft.doc, version: s.version + 1, saveState: 'unsaved', ...(draft.baseRevision > plan.currentRevision ? { baseRevision: draft.baseRevision } : {}) });
   if (draft.baseRevision < plan.currentRevision) {
     store.setState({ baseRevision: draft.baseRevision, saveState: 'conflict', conflict: { currentRevision: plan.currentRevision, document: plan.document } });
   }
@@ -58,8 +63,9 @@ function initStore(plan: EditorProps['plan'], readOnly: boolean, pins: EditorPro
   return { store, restored: true };
 }
 
-export default function Editor({ plan, readOnly, approval = null, pins, canSubmit = false, explanations }: EditorProps) {
-  const [{ store, restored }] = useState(() => initStore(plan, readOnly, pins, explanations));
+export default function Editor({ plan, readOnly, approval = null, pins, canSubmit = false, explanations, drafts: given }: EditorProps) {
+  const [drafts] = useState(() => (given !== undefined ? given : typeof localStorage === 'undefined' ? null : localStorage));
+  const [{ store, restored }] = useState(() => initStore(plan, readOnly, pins, explanations, drafts));
   const rf = useRef<ReactFlowInstance | null>(null);
   const sync = useRef<SyncHandle | null>(null);
   const sheet = useRef<HTMLDivElement>(null);
@@ -91,10 +97,12 @@ export default function Editor({ plan, readOnly, approval = null, pins, canSubmi
   }, []);
 
   useEffect(() => {
-    const handle = startSync(store, { planId: plan.id, api: createApi(), storage: readOnly ? null : localStorage, target: window, checkNow: restored || !plan.report });
+    const handle = startSync(store, { planId: plan.id, api: createApi(), storage: readOnly ? null : drafts, target: window, checkNow: restored || !plan.report });
     sync.current = handle;
+    // Restored work is sent at once (offline, it waits for the connection like any change).
+    if (restored && store.getState().saveState === 'unsaved') void handle.saveNow();
     return () => handle.stop();
-  }, [store, plan.id, plan.report, readOnly, restored]);
+  }, [store, plan.id, plan.report, readOnly, restored, drafts]);
 
   useEffect(() => {
     const warn = (e: BeforeUnloadEvent) => {

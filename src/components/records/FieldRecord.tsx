@@ -3,9 +3,13 @@
  * expected step as the primary action, the drawing above the log on a tablet, one column on a
  * phone. Every write goes through record-client; the record is reloaded after each answer.
  */
-import { useCallback, useState } from 'react';
+import { useEffect, useState } from 'react';
+import { registerWorker } from '../offline/register-worker';
 import type { EntryBody } from '../../lib/domain/field-record';
-import { closeRecord, fetchRecord, send, stampEntry, uploadPhoto, type ApiFailure, type ApiResult } from './record-client';
+import { judgeOnDevice, withPending } from './offline/local-view';
+import { SyncBar } from './offline/SyncBar';
+import { useFieldSync } from './offline/use-field-sync';
+import { closeRecord, stampEntry, type ApiFailure, type ApiResult } from './record-client';
 import { FieldDrawing } from './FieldDrawing';
 import { RecordLog } from './RecordLog';
 import { PRIMARY, SECONDARY, StepPanel } from './StepPanel';
@@ -19,7 +23,9 @@ export interface FieldRecordProps {
 }
 
 export default function FieldRecord({ initial, people, me, canWrite }: FieldRecordProps) {
-  const [record, setRecord] = useState(initial);
+  const sync = useFieldSync(initial, me);
+  const record = withPending(sync.record, sync.pending, me);
+  useEffect(() => void registerWorker(), []);
   const [busy, setBusy] = useState(false);
   const [problem, setProblem] = useState<ApiFailure | null>(null);
   const [text, setText] = useState('');
@@ -27,22 +33,29 @@ export default function FieldRecord({ initial, people, me, canWrite }: FieldReco
   const [file, setFile] = useState<File | null>(null);
   const open = record.status === 'open' && canWrite;
 
-  const reload = useCallback(async () => {
-    const fresh = await fetchRecord<RecordView>(record.id);
-    if (fresh.ok) setRecord(fresh.body.record);
-  }, [record.id]);
-
   const act = async (work: () => Promise<ApiResult<unknown>>) => {
     setBusy(true);
     setProblem(null);
     const result = await work();
     if (!result.ok) setProblem(result);
-    await reload();
+    await sync.reload();
     setBusy(false);
     return result.ok;
   };
-  const submit = (body: EntryBody) => void act(() => send(record.id, stampEntry(body)));
-  const onClose = () => void act(() => closeRecord(record.id));
+  /** Judged here first (the same rules and words as the server), then kept in the outbox and sent. */
+  const submit = (body: EntryBody) => {
+    const stamped = stampEntry(body);
+    const refusal = judgeOnDevice(record, { ...stamped, actorId: me.id } as Parameters<typeof judgeOnDevice>[1]);
+    setProblem(refusal ? { ok: false, status: 409, code: refusal.code, message: refusal.message, items: refusal.items } : null);
+    if (!refusal) void sync.addEntry(stamped);
+  };
+  // The server closes out only when every set is off there: what waits here goes first.
+  const onClose = () =>
+    void act(async () => {
+      const waiting = await sync.sendAll();
+      if (waiting) return { ok: false, status: 0, code: 'OFFLINE', message: `${waiting} entries or photos still wait to be sent. Close out once they have gone (it needs a connection).` };
+      return closeRecord(record.id);
+    });
 
   return (
     <div className="mx-auto max-w-3xl space-y-4" data-testid="field-record" data-status={record.status}>
@@ -50,6 +63,8 @@ export default function FieldRecord({ initial, people, me, canWrite }: FieldReco
         <p className="rounded-lg bg-white p-2 text-center"><span className="block text-3xl font-bold num" data-testid="count-on">{record.counts.on}</span> sets on now</p>
         <p className="rounded-lg bg-white p-2 text-center"><span className="block text-3xl font-bold num" data-testid="count-off">{record.counts.removed}</span> off of {record.counts.installed}</p>
       </div>
+
+      <SyncBar pending={sync.pending} inStepAt={sync.inStepAt} sending={sync.sending} />
 
       {problem && (
         <div className="rounded-lg border-2 border-blocker bg-white p-3 text-lg" role="alert" data-testid="problem">
@@ -80,7 +95,7 @@ export default function FieldRecord({ initial, people, me, canWrite }: FieldReco
           <summary className="min-h-[56px] cursor-pointer text-lg font-semibold leading-[56px]">Add a photo</summary>
           <label className="block text-lg">Photo<input type="file" accept="image/jpeg,image/png,image/webp" capture="environment" className="mt-1 block min-h-[56px] w-full" onChange={(e) => setFile(e.target.files?.[0] ?? null)} /></label>
           <label className="block text-lg">Caption<input className="mt-1 min-h-[56px] w-full rounded-lg border-2 border-line px-3" value={caption} onChange={(e) => setCaption(e.target.value)} /></label>
-          <button type="button" className={`${PRIMARY} mt-3`} disabled={busy || !file} onClick={() => file && void act(() => uploadPhoto(record.id, file, caption)).then((ok) => ok && (setFile(null), setCaption('')))}>Upload photo</button>
+          <button type="button" className={`${PRIMARY} mt-3`} disabled={busy || !file} onClick={() => file && void sync.addPhoto(file, caption).then(() => (setFile(null), setCaption('')))}>Upload photo</button>
         </details>
       )}
 
@@ -98,7 +113,7 @@ export default function FieldRecord({ initial, people, me, canWrite }: FieldReco
 
       <a className={`${SECONDARY} flex items-center justify-center`} href={`/api/records/${record.id}/pdf`} download data-testid="pdf-link">Download PDF</a>
 
-      <RecordLog record={record} people={people} />
+      <RecordLog record={record} people={people} onDismiss={sync.dismiss} />
     </div>
   );
 }

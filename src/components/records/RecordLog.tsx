@@ -1,4 +1,7 @@
-/** The record's log in the order it was kept, each flag beside its entry, and the photos. */
+/**
+ * The record's log in the order things were done (each entry's device time, so the entries of a
+ * device that was offline merge in among the others'), each flag beside its entry, and the photos.
+ */
 import { BRIEFING_LABELS } from '../../lib/domain/field-record';
 import type { CrewPerson, EntryView, RecordView } from './types';
 
@@ -23,7 +26,7 @@ function describe(e: EntryView, name: (id: string) => string): string {
   }
 }
 
-export function RecordLog({ record, people }: { record: RecordView; people: CrewPerson[] }) {
+export function RecordLog({ record, people, onDismiss }: { record: RecordView; people: CrewPerson[]; onDismiss?: (clientId: string) => void }) {
   const names = new Map(people.map((p) => [p.id, p.name]));
   const name = (id: string) => names.get(id) ?? id;
   return (
@@ -31,11 +34,14 @@ export function RecordLog({ record, people }: { record: RecordView; people: Crew
       <h2 className="text-lg font-semibold">Log</h2>
       {record.entries.length === 0 ? <p className="text-note">Nothing recorded yet.</p> : (
         <ol className="divide-y divide-line rounded-lg border border-line bg-white" data-testid="record-log">
-          {record.entries.map((e) => (
-            <li key={e.id} className="px-3 py-2" data-type={e.type}>
+          {[...record.entries].sort((a, b) => a.at.localeCompare(b.at)).map((e) => (
+            <li key={e.clientId} className="px-3 py-2" data-type={e.type} data-client-id={e.clientId}>
               <span className="num mr-2 text-note">{time(e.at)}</span>
               <span className={e.type === 'voltage-test' && Object.values(e.phases).includes('present') ? 'font-bold text-blocker' : ''}>{describe(e, name)}</span>
               <span className="ml-2 text-sm text-note">{e.actorName}</span>
+              {e.waiting && !e.refused && <span className="ml-2 text-sm font-semibold text-note" data-testid="entry-waiting">waiting to send</span>}
+              {e.refused && <span className="mt-1 block font-semibold text-blocker" data-testid="entry-refused">Refused by the server: {e.refused.message}{e.refused.items?.length ? ` (${e.refused.items.join(', ')})` : ''}</span>}
+              {e.refused && onDismiss && <button type="button" className="mt-1 min-h-[44px] rounded-lg border-2 border-line px-3" onClick={() => onDismiss(e.clientId)}>Read; remove from this device</button>}
               {e.flags.map((f) => <span key={f.code} className="mt-1 block font-semibold text-warning" data-testid="flag">⚑ {f.message}</span>)}
             </li>
           ))}

@@ -4,6 +4,7 @@
  */
 import { useState, type ReactNode } from 'react';
 import { BRIEFING_LABELS, type EntryBody } from '../../lib/domain/field-record';
+import { firstChoice, SetChoice } from './SetChoice';
 import type { CrewPerson, RecordView } from './types';
 
 const BIG = 'min-h-[56px] w-full rounded-lg px-4 text-lg font-semibold';
@@ -88,12 +89,12 @@ function VoltageTest({ record, busy, submit }: StepProps) {
 function Install({ record, busy, submit }: StepProps) {
   const link = (record.next as { link: string }).link;
   const jumper = record.plan.jumpers.find((j) => j.id === link);
-  const [tag, setTag] = useState('');
+  const [tag, setTag] = useState(() => firstChoice(record, link));
   const [groundFirst, setGroundFirst] = useState(false);
   return (
     <Card title={`Set on: ${link}`}>
       <p className="text-lg text-note">{jumper?.label}</p>
-      <label className="block text-lg">Set tag<input className="mt-1 min-h-[56px] w-full rounded-lg border-2 border-line px-3" value={tag} onChange={(e) => setTag(e.target.value)} /></label>
+      <SetChoice record={record} link={link} value={tag} onChange={setTag} />
       <label className={CHECK}><input type="checkbox" className="h-7 w-7" checked={groundFirst} onChange={(e) => setGroundFirst(e.target.checked)} /> Ground end on first; line end with a live-line tool</label>
       <button type="button" className={PRIMARY} disabled={busy || !tag.trim() || !groundFirst} onClick={() => { submit({ type: 'install', link, setTag: tag.trim(), groundEndFirst: true }); setTag(''); setGroundFirst(false); }}>Set on</button>
     </Card>

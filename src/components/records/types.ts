@@ -1,8 +1,9 @@
 /** The record as GET /api/records/:id answers it (the parts the field screen reads). */
-import type { BriefingItem, Flag, NextStep, RecordPlan, SetOn, FieldEntry } from '../../lib/domain/field-record';
+import type { BriefingItem, Flag, NextStep, RecordPlan, SetOn, FieldEntry, InventorySet } from '../../lib/domain/field-record';
 import type { PlanDocument } from '../../lib/schemas/plan';
 
-export type EntryView = FieldEntry & { id: number; actorName: string; flags: Flag[]; recordedAt: string };
+/** An entry of the log; `waiting` while it is only on this device, `refused` when the server said no. */
+export type EntryView = FieldEntry & { id: number; actorName: string; flags: Flag[]; recordedAt: string; waiting?: boolean; refused?: { code: string; message: string; items?: string[] } };
 
 export interface RecordView {
   id: number;
@@ -28,6 +29,8 @@ export interface RecordView {
   document: PlanDocument;
   entries: EntryView[];
   photos: { id: number; caption: string; width: number; height: number; url: string }[];
+  /** The organisation's sets and the server's day, sent with an open record (the device judges installs by them). */
+  inventory?: { today: string; sets: (InventorySet & { description: string })[] };
 }
 
 export interface CrewPerson {

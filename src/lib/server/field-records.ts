@@ -4,9 +4,11 @@
  */
 import { getDb } from '../../../db/connection';
 import { addEntry, approvingReviewer, closeRecord, createRecord, getRecord, type Judge, type RecordDetail, type StoredEntry } from '../../../db/repositories/field-records';
-import { freeTextSetStatus, judgeAppend, judgeCloseOut, nextStep, recordPlanFrom, replay, type FieldEntry, type Refusal, type SetStatusLookup } from '../domain/field-record';
+import { allSets } from '../../../db/repositories/equipment';
+import { inventorySetStatus, judgeAppend, judgeCloseOut, nextStep, recordPlanFrom, replay, type FieldEntry, type InventorySet, type Refusal, type SetStatusLookup } from '../domain/field-record';
 import type { Person } from '../domain/people';
 import type { EntryInput } from '../schemas/field-record';
+import { today } from './equipment-http';
 import { AppError } from './errors';
 import { roleMessage } from './guards';
 import { queueMail } from './mail';
@@ -15,14 +17,25 @@ import { publicUrl } from './settings';
 
 export const RECORD_WRITERS = ['crew_lead', 'admin'] as const;
 
+/** The organisation's sets as the record needs them, with the day they are judged on. */
+export interface InventoryCopy {
+  today: string;
+  sets: (InventorySet & { description: string })[];
+}
+
 /**
- * THE SEAM FOR THE EQUIPMENT INVENTORY. Until the organisation's inventory exists, a set tag is
- * free text and every tag is usable. At merge, build a lookup from the organisation's sets here
- * (out of service, or past their test date → not usable); the rules call it on every install.
+ * Every set of the organisation (retired ones too, so the device can name why a tag is refused).
+ * The record's GET carries this copy so the device judges an install offline as the server does.
  */
-export async function setStatusLookupFor(organizationId: number): Promise<SetStatusLookup> {
-  void organizationId;
-  return freeTextSetStatus;
+export async function inventoryCopy(organizationId: number, now = new Date()): Promise<InventoryCopy> {
+  const sets = (await allSets(getDb(), organizationId)).map((s) => ({ tag: s.tag, description: s.description, status: s.status, testDueOn: s.testDueOn, statusReason: s.statusReason }));
+  return { today: today(now), sets };
+}
+
+/** Is a set fit to go on: a tag of the organisation's inventory, in service, not past its test date. */
+export async function setStatusLookupFor(organizationId: number, now = new Date()): Promise<SetStatusLookup> {
+  const copy = await inventoryCopy(organizationId, now);
+  return inventorySetStatus(copy.sets, copy.today);
 }
 
 function refusalError(refusal: Refusal): AppError {
@@ -105,7 +118,7 @@ export async function closeOut(person: Person, recordId: number, requestUrl?: UR
 }
 
 /** The record as the API answers it: entries in order, counts, the sets on now and the next step. */
-export function recordJson(record: RecordDetail) {
+export function recordJson(record: RecordDetail, inventory?: InventoryCopy) {
   const plan = recordPlanFrom(record.document);
   const state = replay(plan, record.entries.map((e) => e.entry), record.status === 'closed');
   return {
@@ -132,6 +145,7 @@ export function recordJson(record: RecordDetail) {
     document: record.document,
     entries: record.entries.map(entryJson),
     photos: record.photos.map((p) => ({ id: p.id, caption: p.caption, mime: p.mime, bytes: p.bytes, width: p.width, height: p.height, createdAt: p.createdAt, url: `/api/records/${record.id}/photos/${p.id}` })),
+    ...(inventory ? { inventory } : {}),
   };
 }
 

@@ -1,0 +1,48 @@
+/** The device's view of a record: waiting entries replayed by the shared rules, judged with the server's words. */
+import { describe, expect, it } from 'vitest';
+import { judgeOnDevice, withPending } from '../../src/components/records/offline/local-view';
+import type { Pending } from '../../src/components/records/offline/outbox';
+import type { RecordView } from '../../src/components/records/types';
+import { REFUSALS, recordPlanFrom, type EntryBody } from '../../src/lib/domain/field-record';
+import { planDocument } from '../helpers/factories';
+
+const me = { id: 'u1', name: 'Invented Lead' };
+const document = planDocument();
+const plan = recordPlanFrom(document);
+const base: RecordView = {
+  id: 1, planId: 1, planTitle: 'Invented pole', revision: 1, status: 'open', workDate: '2026-05-04', structure: '', location: '', clearanceRef: '', detector: '',
+  lead: me, closedAt: null, closedBy: null, counts: { on: 0, installed: 0, removed: 0 }, setsOn: [], voltageFound: false, testPassed: false, briefing: {}, next: { kind: 'sign-on' },
+  plan, document, entries: [], photos: [],
+  inventory: { today: '2026-05-04', sets: [{ tag: 'INV-1', description: 'x', status: 'in-service', testDueOn: '2999-01-01' }, { tag: 'INV-2', description: 'x', status: 'in-service', testDueOn: '2026-01-01' }] },
+};
+let seq = 0;
+const waiting = (body: EntryBody, refused?: Pending['refused']): Pending => ({ kind: 'entry', key: `k${(seq += 1)}`, personId: 'u1', recordId: 1, seq, entry: { ...body, clientId: `k${seq}`, at: `2026-05-04T07:${String(seq).padStart(2, '0')}:00.000Z` }, ...(refused ? { refused } : {}) });
+const test = (): EntryBody => ({ type: 'voltage-test', detector: 'D7', detectorCheckedBefore: true, detectorCheckedAfter: true, phases: Object.fromEntries(plan.phases.map((p) => [p, 'absent'])) });
+const link = plan.jumpers[0].id;
+const install = (setTag: string): EntryBody => ({ type: 'install', link, setTag, groundEndFirst: true });
+const stamp = (body: EntryBody) => ({ ...body, clientId: 'new', at: '2026-05-04T08:00:00.000Z', actorId: 'u1' }) as Parameters<typeof judgeOnDevice>[1];
+
+describe('the record on the device', () => {
+  it('counts waiting entries as the server would, and shows them as waiting', () => {
+    const view = withPending(base, [waiting({ type: 'sign-on', people: ['u1'], visitors: [] }), waiting(test()), waiting(install('INV-1'))], me);
+    expect(view.counts).toEqual({ on: 1, installed: 1, removed: 0 });
+    expect(view.entries.map((e) => e.waiting)).toEqual([true, true, true]);
+    expect(view.entries[2].flags.map((f) => f.code)).toEqual(['installed-before-briefing']);
+  });
+
+  it('leaves a refused entry out of the counts but keeps it in the log with the refusal', () => {
+    const refused = { code: 'SET_ALREADY_ON', message: REFUSALS.SET_ALREADY_ON };
+    const view = withPending(base, [waiting({ type: 'sign-on', people: ['u1'], visitors: [] }), waiting(test()), waiting(install('INV-1'), refused)], me);
+    expect(view.counts.on).toBe(0);
+    expect(view.entries[2].refused).toEqual(refused);
+  });
+
+  it('refuses on the device with the server\'s code and words: no test yet, an overdue set, an unknown tag', () => {
+    const signedOn = withPending(base, [waiting({ type: 'sign-on', people: ['u1'], visitors: [] })], me);
+    expect(judgeOnDevice(signedOn, stamp(install('INV-1')))).toMatchObject({ code: 'VOLTAGE_TEST_REQUIRED', message: REFUSALS.VOLTAGE_TEST_REQUIRED });
+    const tested = withPending(base, [waiting({ type: 'sign-on', people: ['u1'], visitors: [] }), waiting(test())], me);
+    expect(judgeOnDevice(tested, stamp(install('INV-2')), new Date('2026-05-04T09:00:00Z'))?.message).toContain('INV-2 was due for its test on 2026-01-01');
+    expect(judgeOnDevice(tested, stamp(install('VISITING-3')))?.code).toBe('SET_NOT_USABLE');
+    expect(judgeOnDevice(tested, stamp(install('INV-1')))).toBeNull();
+  });
+});
