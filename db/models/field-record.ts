@@ -35,9 +35,11 @@ export class FieldRecordEntry extends Model<InferAttributes<FieldRecordEntry>, I
   declare recordedAt: CreationOptional<Date>;
 }
 
+/** A photo's objects and facts; (record, clientId) is unique, null for photos from before clientIds. */
 export class FieldRecordPhoto extends Model<InferAttributes<FieldRecordPhoto>, InferCreationAttributes<FieldRecordPhoto>> {
   declare id: CreationOptional<number>;
   declare recordId: number;
+  declare clientId: CreationOptional<string | null>;
   declare objectKey: string;
   declare mime: string;
   declare bytes: number;
@@ -88,6 +90,7 @@ export function initFieldRecords(sequelize: Sequelize) {
     {
       id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
       recordId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+      clientId: { type: DataTypes.CHAR(36), allowNull: true },
       objectKey: { type: DataTypes.STRING(120), allowNull: false },
       mime: { type: DataTypes.STRING(40), allowNull: false },
       bytes: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },

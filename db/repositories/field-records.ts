@@ -44,6 +44,8 @@ export interface StoredEntry {
 
 export interface PhotoRow {
   id: number;
+  /** The id the device gave the photo (null for photos stored before devices sent one). */
+  clientId: string | null;
   objectKey: string;
   mime: string;
   bytes: number;
@@ -218,15 +220,38 @@ export async function keepsPhotoLocation(db: Db, organizationId: number): Promis
   return Boolean(rows[0]?.keep);
 }
 
-/** Adds a photo row, only while the record is open (checked under the record's lock). */
-export async function addPhoto(db: Db, organizationId: number, recordId: number, photo: Omit<PhotoRow, 'id' | 'createdAt'>): Promise<{ kind: 'ok'; photo: PhotoRow } | { kind: 'not-found' } | { kind: 'closed' }> {
-  return db.sequelize.transaction(locked(), async (transaction) => {
-    const record = await db.models.FieldRecord.findOne({ where: { id: recordId, organizationId }, lock: transaction.LOCK.UPDATE, transaction });
-    if (!record) return { kind: 'not-found' as const };
-    if (record.status === 'closed') return { kind: 'closed' as const };
-    const row = await db.models.FieldRecordPhoto.create({ recordId, ...photo }, { transaction });
-    return { kind: 'ok' as const, photo: row.get({ plain: true }) as PhotoRow };
-  });
+/** The photo a device already stored under this clientId, if any. */
+export async function photoByClientId(db: Db, organizationId: number, recordId: number, clientId: string): Promise<PhotoRow | null> {
+  const record = await db.models.FieldRecord.findOne({ where: { id: recordId, organizationId }, attributes: ['id'] });
+  if (!record) return null;
+  const row = await db.models.FieldRecordPhoto.findOne({ where: { recordId, clientId } });
+  return row ? (row.get({ plain: true }) as PhotoRow) : null;
+}
+
+export type AddPhotoOutcome = { kind: 'ok' | 'repeat'; photo: PhotoRow } | { kind: 'not-found' } | { kind: 'closed' };
+
+/**
+ * Adds a photo row, only while the record is open (checked under the record's lock). A clientId
+ * already stored answers with that photo (kind 'repeat'), also when two first sends race.
+ */
+export async function addPhoto(db: Db, organizationId: number, recordId: number, photo: Omit<PhotoRow, 'id' | 'createdAt' | 'clientId'> & { clientId?: string | null }): Promise<AddPhotoOutcome> {
+  const attempt = () =>
+    db.sequelize.transaction(locked(), async (transaction): Promise<AddPhotoOutcome> => {
+      const record = await db.models.FieldRecord.findOne({ where: { id: recordId, organizationId }, lock: transaction.LOCK.UPDATE, transaction });
+      if (!record) return { kind: 'not-found' };
+      const existing = photo.clientId ? await db.models.FieldRecordPhoto.findOne({ where: { recordId, clientId: photo.clientId }, transaction }) : null;
+      if (existing) return { kind: 'repeat', photo: existing.get({ plain: true }) as PhotoRow };
+      if (record.status === 'closed') return { kind: 'closed' };
+      const row = await db.models.FieldRecordPhoto.create({ recordId, ...photo }, { transaction });
+      return { kind: 'ok', photo: row.get({ plain: true }) as PhotoRow };
+    });
+  try {
+    return await attempt();
+  } catch (error) {
+    // Two first sends of one clientId racing past the check: the key lets one in; the other reads it.
+    if (error instanceof UniqueConstraintError) return attempt();
+    throw error;
+  }
 }
 
 export async function getPhoto(db: Db, organizationId: number, recordId: number, photoId: number): Promise<PhotoRow | null> {

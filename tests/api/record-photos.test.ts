@@ -3,48 +3,16 @@
  * here with sharp, the type judged by content, the size limit enforced before anything is stored,
  * nothing left behind when an upload fails halfway, location kept only where the organisation allows.
  */
-import { ListObjectsV2Command, S3Client } from '@aws-sdk/client-s3';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { BASE_URL, Client, signedIn } from '../helpers/api';
+import { jpegWithLocation, storedKeys, upload } from '../helpers/photos';
 import { closeTestDb, makeOrganization, makePerson, makeTeam, PASSWORD, testDb } from '../helpers/factories';
 import { approvedPlan } from '../helpers/records';
-
-const s3 = new S3Client({
-  endpoint: process.env.BONDMAP_S3_ENDPOINT,
-  region: 'us-east-1',
-  forcePathStyle: true,
-  credentials: { accessKeyId: process.env.BONDMAP_S3_ACCESS_KEY_ID ?? '', secretAccessKey: process.env.BONDMAP_S3_SECRET_ACCESS_KEY ?? '' },
-  requestChecksumCalculation: 'WHEN_REQUIRED',
-  responseChecksumValidation: 'WHEN_REQUIRED',
-});
-const bucket = process.env.BONDMAP_S3_BUCKET ?? '';
-
-async function storedKeys(recordId: number): Promise<string[]> {
-  const out = await s3.send(new ListObjectsV2Command({ Bucket: bucket, Prefix: `records/${recordId}/` }));
-  return (out.Contents ?? []).map((c) => c.Key!).sort();
-}
 
 let team: Awaited<ReturnType<typeof makeTeam>>;
 let lead: Client;
 let recordId: number;
-
-/** A noisy photo-like JPEG with location in its EXIF (so it has real size and metadata). */
-async function jpegWithLocation(width = 1200, height = 900): Promise<Buffer> {
-  const noise = Buffer.alloc(width * height * 3);
-  for (let i = 0; i < noise.length; i += 1) noise[i] = (i * 7919) % 251;
-  return sharp(noise, { raw: { width, height, channels: 3 } }).jpeg({ quality: 90 }).withExif({ IFD3: { GPSLatitudeRef: 'N', GPSLatitude: '45/1 30/1 0/1' } }).toBuffer();
-}
-
-async function upload(client: Client, id: number, bytes: Buffer, name: string, type: string, caption?: string) {
-  const form = new FormData();
-  form.set('photo', new Blob([new Uint8Array(bytes)], { type }), name);
-  if (caption !== undefined) form.set('caption', caption);
-  const request = new Request(`${BASE_URL}/api/records/${id}/photos`, { method: 'POST', body: form });
-  // A browser sends its origin with a form post; Astro refuses cross-site form posts without one.
-  const headers = { ...Object.fromEntries(request.headers.entries()), origin: client.baseUrl };
-  return client.request('POST', `/api/records/${id}/photos`, { body: new Uint8Array(await request.arrayBuffer()), headers });
-}
 
 async function download(client: Client, path: string): Promise<{ status: number; type: string | null; bytes: Buffer }> {
   const response = await client.getRaw(path);

@@ -32,17 +32,19 @@ const offline: ApiResult<unknown> = { ok: false, status: 0, code: 'OFFLINE', mes
 
 function server(answers: Record<string, ApiResult<unknown>[]> = {}) {
   const received: string[] = [];
+  const photoIds: string[] = [];
   const transport: Transport = {
     entry: async (_id, entry) => {
       received.push(entry.clientId);
       return answers[entry.clientId]?.shift() ?? ok;
     },
-    photo: async (_id, _file, caption) => {
+    photo: async (_id, _file, caption, clientId) => {
       received.push(`photo:${caption}`);
+      photoIds.push(clientId);
       return answers[`photo:${caption}`]?.shift() ?? ok;
     },
   };
-  return { transport, received };
+  return { transport, received, photoIds };
 }
 
 describe('the outbox', () => {
@@ -56,6 +58,17 @@ describe('the outbox', () => {
     await box.addEntry(note(3));
     expect(await box.flush()).toBe('done');
     expect(received).toEqual(['c1', 'photo:cluster bar', 'c3']);
+    expect(await box.items()).toEqual([]);
+  });
+
+  it('sends a photo with its own id as the clientId, the same id again after a lost answer', async () => {
+    const { clock, advance } = fakeClock();
+    const { transport, photoIds } = server({ 'photo:cluster bar': [offline] });
+    const box = new Outbox(memoryStore(), transport, 'p1', 7, clock);
+    await box.addPhoto(new Blob(['x']), 'cluster bar', '2026-05-04T07:02:00.000Z', '3f1c2b8e-5d4a-4c1e-9b7a-2e6f0d9c8a11');
+    expect(await box.flush()).toBe('waiting');
+    await advance(FIRST_RETRY_MS);
+    expect(photoIds).toEqual(['3f1c2b8e-5d4a-4c1e-9b7a-2e6f0d9c8a11', '3f1c2b8e-5d4a-4c1e-9b7a-2e6f0d9c8a11']);
     expect(await box.items()).toEqual([]);
   });
 

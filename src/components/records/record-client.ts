@@ -46,9 +46,11 @@ export function closeRecord<T>(recordId: number): Promise<ApiResult<{ record: T 
   return call(`/api/records/${recordId}/close`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: '{}' });
 }
 
-export function uploadPhoto(recordId: number, file: File, caption: string): Promise<ApiResult<{ id: number }>> {
+/** Uploads a photo; the clientId makes a repeat (after a lost answer) get the stored photo back. */
+export function uploadPhoto(recordId: number, file: File, caption: string, clientId?: string): Promise<ApiResult<{ id: number }>> {
   const form = new FormData();
   form.set('photo', file);
   if (caption) form.set('caption', caption);
+  if (clientId) form.set('clientId', clientId);
   return call(`/api/records/${recordId}/photos`, { method: 'POST', body: form });
 }

@@ -56,4 +56,9 @@ export const photoSizeQuery = z.object({
 });
 
 export const photoCaption = str(300).optional();
+/** The fields of a photo upload besides the file; clientId makes a repeated upload answer the stored photo. */
+export const photoFormFields = z.object({
+  caption: photoCaption,
+  clientId: common.clientId.optional(),
+});
 

@@ -10,9 +10,9 @@ import type { APIContext } from 'astro';
 import { fileTypeFromBuffer } from 'file-type';
 import sharp from 'sharp';
 import { getDb } from '../../../db/connection';
-import { addPhoto, keepsPhotoLocation, type PhotoRow } from '../../../db/repositories/field-records';
+import { addPhoto, keepsPhotoLocation, photoByClientId, type PhotoRow } from '../../../db/repositories/field-records';
 import type { Person } from '../domain/people';
-import { photoCaption } from '../schemas/field-record';
+import { photoFormFields } from '../schemas/field-record';
 import { AppError } from './errors';
 import { parseWith } from './http';
 import { deleteObjects, ObjectStoreUnavailable, putObject } from './object-store';
@@ -46,8 +46,14 @@ async function readBody(request: Request): Promise<Buffer> {
   return Buffer.concat(chunks);
 }
 
-/** Reads `photo` (a file) and `caption` from a multipart body, refusing anything over the limit. */
-export async function readPhotoForm(ctx: APIContext): Promise<{ bytes: Buffer; caption: string }> {
+export interface PhotoForm {
+  bytes: Buffer;
+  caption: string;
+  clientId: string | null;
+}
+
+/** Reads `photo` (a file), `caption` and `clientId` from a multipart body, refusing anything over the limit. */
+export async function readPhotoForm(ctx: APIContext): Promise<PhotoForm> {
   const type = ctx.request.headers.get('content-type') ?? '';
   if (!/^multipart\/form-data\b/i.test(type)) throw new AppError('VALIDATION', { issues: [{ path: '(body)', message: 'must be multipart/form-data with the file in the field "photo"' }] });
   const raw = await readBody(ctx.request);
@@ -60,8 +66,8 @@ export async function readPhotoForm(ctx: APIContext): Promise<{ bytes: Buffer; c
   const file = form.get('photo');
   if (!file || typeof file === 'string') throw new AppError('VALIDATION', { issues: [{ path: 'photo', message: 'is required: attach the photo as a file' }] });
   if (file.size > PHOTO_LIMIT_BYTES) throw new AppError('PHOTO_TOO_LARGE', { extra: { limitBytes: PHOTO_LIMIT_BYTES } });
-  const caption = parseWith(photoCaption, form.get('caption') ?? undefined) ?? '';
-  return { bytes: Buffer.from(await file.arrayBuffer()), caption };
+  const fields = parseWith(photoFormFields, { caption: form.get('caption') ?? undefined, clientId: form.get('clientId') ?? undefined });
+  return { bytes: Buffer.from(await file.arrayBuffer()), caption: fields.caption ?? '', clientId: fields.clientId ?? null };
 }
 
 
@@ -122,15 +128,26 @@ function storeError(error: unknown): unknown {
   return error;
 }
 
-/** Stores a photo and its two sizes, then its row; if the row cannot be added, the objects go. */
-export async function storePhoto(person: Person, recordId: number, bytes: Buffer, caption: string): Promise<PhotoRow> {
+/**
+ * Stores a photo and its two sizes, then its row (open records only); if the row cannot be added, the objects go. A
+ * clientId already stored answers with that photo (created: false) and stores nothing: checked
+ * before the objects are put, and again by the unique key, when the objects just put are removed.
+ */
+export async function storePhoto(person: Person, record: { id: number; status: string }, form: PhotoForm): Promise<{ created: boolean; photo: PhotoRow }> {
   const db = getDb();
-  const objects = await putPhotoObjects(recordId, bytes, await keepsPhotoLocation(db, person.organizationId));
+  const recordId = record.id;
+  const earlier = form.clientId ? await photoByClientId(db, person.organizationId, recordId, form.clientId) : null;
+  if (earlier) return { created: false, photo: earlier };
+  // A closed record still answers a photo sent again (above), but takes no new one.
+  if (record.status === 'closed') throw new AppError('RECORD_CLOSED');
+  const objects = await putPhotoObjects(recordId, form.bytes, await keepsPhotoLocation(db, person.organizationId));
   try {
-    const outcome = await addPhoto(db, person.organizationId, recordId, { objectKey: objects.base, mime: objects.mime, bytes: objects.bytes, width: objects.width, height: objects.height, caption, createdBy: person.id });
+    const row = { clientId: form.clientId, objectKey: objects.base, mime: objects.mime, bytes: objects.bytes, width: objects.width, height: objects.height, caption: form.caption, createdBy: person.id };
+    const outcome = await addPhoto(db, person.organizationId, recordId, row);
     if (outcome.kind === 'not-found') throw new AppError('NOT_FOUND');
     if (outcome.kind === 'closed') throw new AppError('RECORD_CLOSED');
-    return outcome.photo;
+    if (outcome.kind === 'repeat') await removeObjects(objects.keys);
+    return { created: outcome.kind === 'ok', photo: outcome.photo };
   } catch (error) {
     await removeObjects(objects.keys);
     throw error;

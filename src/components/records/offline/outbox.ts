@@ -37,7 +37,8 @@ export interface OutboxStore {
 
 export interface Transport {
   entry(recordId: number, entry: StampedEntry): Promise<ApiResult<unknown>>;
-  photo(recordId: number, file: Blob, caption: string): Promise<ApiResult<unknown>>;
+  /** Sends a photo with its outbox key as the clientId, so a repeat stores nothing new. */
+  photo(recordId: number, file: Blob, caption: string, clientId: string): Promise<ApiResult<unknown>>;
 }
 
 export interface Clock {
@@ -118,7 +119,7 @@ export class Outbox {
     this.stop();
     for (const item of await this.items()) {
       if (item.refused) continue;
-      const result = item.kind === 'entry' ? await this.transport.entry(this.recordId, item.entry) : await this.transport.photo(this.recordId, item.file, item.caption);
+      const result = item.kind === 'entry' ? await this.transport.entry(this.recordId, item.entry) : await this.transport.photo(this.recordId, item.file, item.caption, item.key);
       if (result.ok) {
         await this.store.remove(item.key);
         this.failures = 0;

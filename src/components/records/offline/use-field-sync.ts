@@ -9,7 +9,7 @@ import type { CrewPerson, EntryView, RecordView } from '../types';
 import { Outbox, realClock, type FlushOutcome, type Pending, type StampedEntry, type Transport } from './outbox';
 import { cachedRecord, idbOutboxStore, keepRecord } from './store';
 
-const sendPhoto: Transport['photo'] = (recordId, file, caption) => uploadPhoto(recordId, file instanceof File ? file : new File([file], 'photo', { type: file.type }), caption);
+const sendPhoto: Transport['photo'] = (recordId, file, caption, clientId) => uploadPhoto(recordId, file instanceof File ? file : new File([file], 'photo', { type: file.type }), caption, clientId);
 
 export function useFieldSync(initial: RecordView, me: CrewPerson) {
   const [record, setRecord] = useState(initial);
