@@ -9,7 +9,9 @@ import fc from 'fast-check';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { BASE_URL, Client, signedIn } from '../helpers/api';
 import { closeTestDb, makePerson, makeTeam, PASSWORD, planDocument, testDb } from '../helpers/factories';
+import { setBody, uniqueTag } from '../helpers/equipment';
 import { documents, formBodies, jsonBodies, type FuzzBody } from '../helpers/fuzz-bodies';
+import { approvedPlan } from '../helpers/practice';
 
 const RUNS = Number(process.env.FUZZ_RUNS ?? 1000);
 const BATCH = 50;
@@ -24,7 +26,7 @@ const ORIGIN = new URL(BASE_URL).origin;
 type Role = 'anonymous' | 'apprentice' | 'lead' | 'reviewer' | 'admin';
 const ROLES: Role[] = ['anonymous', 'apprentice', 'lead', 'reviewer', 'admin'];
 let clients: Record<Role, Client>;
-let ids: { draft: number; submitted: number; comment: number; spare: string };
+let ids: { draft: number; submitted: number; comment: number; spare: string; approved: number; set: number; record: number; exercise: number };
 
 beforeAll(async () => {
   const team = await makeTeam();
@@ -40,7 +42,12 @@ beforeAll(async () => {
   await clients.lead.post(`/api/plans/${submitted}/submit`);
   const comment = (await clients.reviewer.post(`/api/plans/${submitted}/comments`, { body: 'Invented comment' })).body.comment?.id ?? 1;
   const spare = (await makePerson(team.organizationId, 'apprentice')).id;
-  ids = { draft, submitted, comment, spare };
+  // The later routes: a grounding set, an open field record on an approved plan, a published exercise.
+  const set = (await clients.admin.post('/api/equipment', setBody({ tag: uniqueTag('FZ') }))).body.set?.id ?? (await clients.admin.get('/api/equipment')).body.items[0]?.id ?? 1;
+  const approved = await approvedPlan(clients.lead, clients.reviewer);
+  const record = (await clients.lead.post(`/api/plans/${approved.id}/records`, {})).body.id ?? 1;
+  const exercise = (await clients.reviewer.post('/api/exercises', { planId: approved.id, revision: approved.revision, kind: 'find', prompt: 'Invented fuzz exercise', removeLinks: ['jBK'] })).body.exercise?.id ?? 1;
+  ids = { draft, submitted, comment, spare, approved: approved.id, set, record, exercise };
 });
 afterAll(closeTestDb);
 
@@ -79,9 +86,21 @@ const routes: Record<string, Route> = {
   'POST /plans/:id/workflow': { method: 'POST', path: () => `/plans/${ids.draft}/workflow`, bodies: () => formBodies(['action', 'commentId'], { action: fc.constantFrom('submit', 'reopen', 'resolve', 'unresolve'), commentId: fc.constant(String(ids?.comment ?? 1)) }) },
   'POST /admin/users': { method: 'POST', path: () => '/admin/users', bodies: () => formBodies(['action', 'email', 'name', 'role', 'id'], { action: fc.constantFrom('invite', 'role', 'disable', 'enable'), id: fc.constant(ids?.spare ?? 'x') }) },
   'POST /logout': { method: 'POST', path: () => '/logout', bodies: () => formBodies([]), skip: ['apprentice', 'lead', 'reviewer', 'admin'] },
+  'POST /api/equipment': { method: 'POST', path: () => '/api/equipment', bodies: () => jsonBodies(['tag', 'description', 'cable', 'lengthM', 'clampKind', 'clampKa', 'clampCycles', 'connection', 'inServiceOn', 'status', 'notes']) },
+  'PATCH /api/equipment/:id': { method: 'PATCH', path: () => `/api/equipment/${ids.set}`, bodies: () => jsonBodies(['description', 'status', 'statusReason', 'faultOn', 'notes']) },
+  'POST /api/equipment/:id/tests': { method: 'POST', path: () => `/api/equipment/${ids.set}/tests`, bodies: () => jsonBodies(['testedOn', 'resistanceMilliohms', 'limitMilliohms', 'passed', 'notes']) },
+  'POST /api/equipment/import': { method: 'POST', path: () => '/api/equipment/import', bodies: () => fc.oneof(fc.string({ maxLength: 400 }).map((t) => ({ contentType: 'text/csv', body: `tag,cable\n${t}` })), jsonBodies(['tag'])) },
+  'PUT /api/equipment/settings': { method: 'PUT', path: () => '/api/equipment/settings', bodies: () => jsonBodies(['testIntervalMonths', 'limits']) },
+  'POST /api/plans/:id/records': { method: 'POST', path: () => `/api/plans/${ids.draft}/records`, bodies: () => jsonBodies(['workDate', 'location', 'clearanceRef', 'detector']) },
+  'POST /api/records/:id/entries': { method: 'POST', path: () => `/api/records/${ids.record}/entries`, bodies: () => jsonBodies(['clientId', 'at', 'type', 'people', 'visitors', 'item', 'by', 'detector', 'phases', 'link', 'setTag', 'groundEndFirst', 'text'], { type: fc.constantFrom('sign-on', 'briefing', 'voltage-test', 'install', 'remove', 'deviation', 'note', 'x') }) },
+  'POST /api/records/:id/close': { method: 'POST', path: () => `/api/records/${ids.record}/close`, bodies: () => jsonBodies([]) },
+  'POST /api/exercises': { method: 'POST', path: () => '/api/exercises', bodies: () => jsonBodies(['planId', 'revision', 'kind', 'removeLinks', 'changeLinks', 'prompt', 'teachingNote', 'published']) },
+  'POST /api/exercises/propose': { method: 'POST', path: () => '/api/exercises/propose', bodies: () => jsonBodies(['planId', 'revision']) },
+  'PATCH /api/exercises/:id': { method: 'PATCH', path: () => `/api/exercises/${ids.exercise}`, bodies: () => jsonBodies(['published']) },
+  'POST /api/exercises/:id/attempts': { method: 'POST', path: () => `/api/exercises/${ids.exercise}/attempts`, bodies: () => jsonBodies(['answer']) },
 };
 
-const COUNTED = ['organizations', 'users', 'plans', 'plan_revisions', 'plan_comments', 'plan_decisions', 'password_tokens'];
+const COUNTED = ['organizations', 'users', 'plans', 'plan_revisions', 'plan_comments', 'plan_decisions', 'password_tokens', 'grounding_sets', 'set_tests', 'set_events', 'organization_settings', 'field_records', 'field_record_entries', 'practice_exercises', 'practice_attempts'];
 
 /** Row counts and a checksum of the plans and revisions, as one comparable string. */
 async function snapshot(): Promise<string> {
