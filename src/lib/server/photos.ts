@@ -14,7 +14,7 @@ import { addPhoto, keepsPhotoLocation, photoByClientId, type PhotoRow } from '..
 import type { Person } from '../domain/people';
 import { photoFormFields } from '../schemas/field-record';
 import { AppError } from './errors';
-import { parseWith } from './http';
+import { parseWith, readLimitedBytes } from './http';
 import { deleteObjects, ObjectStoreUnavailable, putObject } from './object-store';
 
 export const PHOTO_LIMIT_BYTES = 15 * 1024 * 1024;
@@ -26,24 +26,14 @@ export type PhotoSize = keyof typeof PHOTO_SIZES | 'original';
 
 export const photoKey = (base: string, size: PhotoSize) => `${base}/${size}`;
 
+/** The upload's bytes through the shared limited reader; past the limit it is refused by name. */
 async function readBody(request: Request): Promise<Buffer> {
-  const declared = Number(request.headers.get('content-length') ?? 0);
-  if (declared > BODY_LIMIT_BYTES) throw new AppError('PHOTO_TOO_LARGE', { extra: { limitBytes: PHOTO_LIMIT_BYTES } });
-  if (!request.body) return Buffer.alloc(0);
-  const reader = request.body.getReader();
-  const chunks: Uint8Array[] = [];
-  let total = 0;
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    total += value.byteLength;
-    if (total > BODY_LIMIT_BYTES) {
-      await reader.cancel();
-      throw new AppError('PHOTO_TOO_LARGE', { extra: { limitBytes: PHOTO_LIMIT_BYTES } });
-    }
-    chunks.push(value);
+  try {
+    return await readLimitedBytes(request, BODY_LIMIT_BYTES);
+  } catch (error) {
+    if (error instanceof AppError && error.code === 'BODY_TOO_LARGE') throw new AppError('PHOTO_TOO_LARGE', { extra: { limitBytes: PHOTO_LIMIT_BYTES }, headers: error.headers });
+    throw error;
   }
-  return Buffer.concat(chunks);
 }
 
 export interface PhotoForm {
