@@ -1,5 +1,5 @@
 /**
- * Keeps the editor and the server in step: the live check ~400 ms after a change, autosave
+ * Keeps the editor and the server in step: the live check ~150 ms after changes pause, autosave
  * ~1.5 s after changes stop, a copy of unsaved work in localStorage (keyed by plan id and base
  * revision) so a reload or a lost connection loses nothing, and a retry when the connection
  * returns. Framework-free: takes the store, the API and the browser objects it needs.
@@ -62,7 +62,7 @@ export interface SyncHandle {
 }
 
 export function startSync(store: EditorStore, opts: SyncOptions): SyncHandle {
-  const { planId, api, storage = null, target = null, checkDelayMs = 400, saveDelayMs = 1500, retryMs = 10000 } = opts;
+  const { planId, api, storage = null, target = null, checkDelayMs = 150, saveDelayMs = 1500, retryMs = 10000 } = opts;
   let checkTimer: ReturnType<typeof setTimeout> | undefined;
   let saveTimer: ReturnType<typeof setTimeout> | undefined;
   let localTimer: ReturnType<typeof setTimeout> | undefined;

@@ -31,17 +31,19 @@ beforeEach(() => vi.useFakeTimers());
 afterEach(() => vi.useRealTimers());
 
 describe('sync', () => {
-  it('checks ~400 ms after a change and saves ~1.5 s after changes stop', async () => {
+  it('checks ~150 ms after changes pause and saves ~1.5 s after changes stop', async () => {
     const { store, api, sync } = setup([]);
     store.getState().addNode('mat', { x: 0, y: 0 });
-    await vi.advanceTimersByTimeAsync(300);
+    await vi.advanceTimersByTimeAsync(100);
     expect(api.check).not.toHaveBeenCalled();
     store.getState().addNode('truck', { x: 200, y: 0 });
-    await vi.advanceTimersByTimeAsync(450);
+    await vi.advanceTimersByTimeAsync(100);
+    expect(api.check).not.toHaveBeenCalled();
+    await vi.advanceTimersByTimeAsync(100);
     expect(api.check).toHaveBeenCalledTimes(1);
     expect(store.getState().report).toBe(report);
     expect(api.save).not.toHaveBeenCalled();
-    await vi.advanceTimersByTimeAsync(1200);
+    await vi.advanceTimersByTimeAsync(1400);
     expect(api.save).toHaveBeenCalledTimes(1);
     expect(vi.mocked(api.save).mock.calls[0][1].expectedRevision).toBe(2);
     expect(store.getState()).toMatchObject({ saveState: 'saved', baseRevision: 3 });
