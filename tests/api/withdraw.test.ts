@@ -35,6 +35,10 @@ describe('withdraw', () => {
 
   it('another crew lead may not withdraw it, and after a decision nobody can', async () => {
     const id = await submitted();
+    // The plan page offers the button (asking first) to the author only.
+    const own = await lead.get(`/plans/${id}`);
+    expect(own.text).toMatch(/data-testid="withdraw-form"[\s\S]*?data-confirm="Withdraw this plan from review\?/);
+    expect((await otherLead.get(`/plans/${id}`)).text).not.toContain('data-testid="withdraw-form"');
     const refused = await otherLead.post(`/api/plans/${id}/withdraw`);
     expect(refused.status).toBe(403);
     expect(refused.body.error.code).toBe('NOT_AUTHOR');
