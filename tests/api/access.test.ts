@@ -92,6 +92,8 @@ const routes: Route[] = [
   { name: 'POST /api/plans/:id/review (already decided)', call: async (c) => c.post(`/api/plans/${await decidedPlan('return')}/review`, { decision: 'return', comment: 'Again.' }), expect: { anonymous: 401, admin: 409, reviewer: 409, crew_lead: 403, apprentice: 403, other: 403 } },
   { name: 'POST /api/plans/:id/reopen', call: async (c) => c.post(`/api/plans/${await decidedPlan('approve')}/reopen`), expect: { anonymous: 401, admin: 201, reviewer: 403, crew_lead: 201, apprentice: 403, other: 404 } },
   { name: 'POST /api/plans/:id/reopen (a draft)', call: async (c) => c.post(`/api/plans/${await draftPlan()}/reopen`), expect: { anonymous: 401, admin: 409, reviewer: 403, crew_lead: 409, apprentice: 403, other: 404 } },
+  { name: 'POST /api/plans/:id/withdraw', call: async (c) => c.post(`/api/plans/${await submittedPlan()}/withdraw`), expect: { anonymous: 401, admin: 200, reviewer: 403, crew_lead: 200, apprentice: 403, other: 404 } },
+  { name: 'POST /api/plans/:id/withdraw (a draft)', call: async (c) => c.post(`/api/plans/${await draftPlan()}/withdraw`), expect: { anonymous: 401, admin: 409, reviewer: 403, crew_lead: 409, apprentice: 403, other: 404 } },
   { name: 'GET /api/plans/:id/revisions', call: (c) => c.get(`/api/plans/${planId}/revisions`), expect: { anonymous: 401, admin: 200, reviewer: 200, crew_lead: 200, apprentice: 200, other: 404 } },
   { name: 'GET /api/plans/:id/revisions/:n', call: (c) => c.get(`/api/plans/${planId}/revisions/1`), expect: { anonymous: 401, admin: 200, reviewer: 200, crew_lead: 200, apprentice: 200, other: 404 } },
   { name: 'GET /api/plans/:id/comments', call: (c) => c.get(`/api/plans/${planId}/comments`), expect: { anonymous: 401, admin: 200, reviewer: 200, crew_lead: 200, apprentice: 200, other: 404 } },
@@ -166,6 +168,11 @@ const formRoutes: FormRoute[] = [
     expect: { anonymous: '303 sign-in', admin: '303 problem=NOT_APPROVED', reviewer: '303 problem=ROLE_REQUIRED', crew_lead: '303 problem=NOT_APPROVED', apprentice: '303 problem=ROLE_REQUIRED', other: '303 problem=NOT_FOUND' },
   },
   {
+    name: 'POST /plans/:id/workflow withdraw',
+    call: (c) => workflow(submittedPlan, { action: 'withdraw' })(c),
+    expect: { anonymous: '303 sign-in', admin: '303 notice=withdrawn', reviewer: '303 problem=ROLE_REQUIRED', crew_lead: '303 notice=withdrawn', apprentice: '303 problem=ROLE_REQUIRED', other: '303 problem=NOT_FOUND' },
+  },
+  {
     name: 'POST /plans/:id/review comment',
     call: (c) => c.form(`/plans/${form.submittedId}/review`, { action: 'comment', body: 'A form comment.' }),
     // "other" is a crew lead: refused for the role before the plan is looked up.
@@ -221,7 +228,8 @@ it('names the role needed in a 403', async () => {
 });
 
 it('lists only the caller\'s own organisation\'s plans', async () => {
-  const mine = await clients.crew_lead.get('/api/plans?pageSize=100');
+  // Oldest first: the matrix cells make more than a page of plans after planId.
+  const mine = await clients.crew_lead.get('/api/plans?pageSize=100&sort=created&dir=asc');
   const theirs = await clients.other.get('/api/plans?pageSize=100');
   const mineIds = new Set(mine.body.items.map((p: { id: number }) => p.id));
   expect(mineIds.has(planId)).toBe(true);

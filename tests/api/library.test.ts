@@ -54,7 +54,11 @@ describe('the library', () => {
     const page = await apprentice.get(`/library/${id}`);
     expect(page.status).toBe(200);
     expect(page.text).toContain('Library pole, as approved');
-    expect((await apprentice.get('/library?fixed=stand-not-conductive')).text).toContain('Library pole, as approved');
+    const filtered = (await apprentice.get('/library?fixed=stand-not-conductive')).text;
+    expect(filtered).toContain('Library pole, as approved');
+    // The crew reads the finding's title; the rule id stays only in the filter's value.
+    expect(filtered).toContain('Fixed on the way: Worker stands on something that does not conduct');
+    expect(filtered.replace(/value="[^"]*"|href="[^"]*"/g, '')).not.toContain('stand-not-conductive');
   });
 
   it('fills an approval made before the stored facts on first read, with the same result', async () => {

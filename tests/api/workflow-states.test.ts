@@ -40,6 +40,8 @@ function act(planId: number, action: WorkflowAction, revision: number) {
       return reviewer.post(`/api/plans/${planId}/review`, { decision: 'return', comment: 'Walked back once more.', revision });
     case 'reopen':
       return lead.post(`/api/plans/${planId}/reopen`);
+    case 'withdraw':
+      return lead.post(`/api/plans/${planId}/withdraw`);
   }
 }
 
@@ -51,7 +53,7 @@ describe('the workflow state machine', () => {
     const taken = new Set<string>();
     const allowedEdges = PLAN_STATUSES.flatMap((s) => WORKFLOW_ACTIONS.filter((a) => nextStatus(s, a)).map((a) => `${s}:${a}`));
     // The unchanged resubmission is the case that used to leave a plan undecidable for good.
-    const script: WorkflowAction[] = ['submit', 'return', 'submit', 'return', 'submit', 'approve', 'reopen', 'save', 'submit', 'return', 'save', 'submit', 'approve', 'reopen', 'submit', 'return', 'submit', 'approve'];
+    const script: WorkflowAction[] = ['submit', 'withdraw', 'save', 'submit', 'return', 'submit', 'return', 'submit', 'approve', 'reopen', 'save', 'submit', 'return', 'save', 'submit', 'approve', 'reopen', 'submit', 'return', 'submit', 'approve'];
 
     for (const step of script) {
       const before = await current(planId);

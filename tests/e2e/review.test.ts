@@ -53,6 +53,19 @@ it('submit, return with a pinned comment, fix, resubmit, approve, and read in th
   await reviewer.getByTestId('pin-jN').waitFor({ state: 'attached' });
   await reviewer.getByLabel('Return to the crew lead').check();
   await reviewer.getByLabel('Comment (needed to return)').fill('Fix the neutral lead, then send it back.');
+  // Returning asks first: a No keeps the reviewer on the form, a Yes returns the plan.
+  const reviewerAsked: string[] = [];
+  let answer = false;
+  reviewer.on('dialog', (d) => {
+    reviewerAsked.push(d.message());
+    void (answer ? d.accept() : d.dismiss());
+  });
+  await reviewer.getByRole('button', { name: 'Record decision' }).click();
+  await expect.poll(() => reviewerAsked.length).toBe(1);
+  expect(reviewerAsked[0]).toMatch(/^Return revision \d+ to the crew lead\?/);
+  expect(reviewer.url()).toMatch(/\/plans\/\d+\/review$/);
+  expect(await reviewer.getByTestId('decision-form').isVisible()).toBe(true);
+  answer = true;
   await reviewer.getByRole('button', { name: 'Record decision' }).click();
   await reviewer.waitForURL(`${BASE_URL}/review`);
 

@@ -3,6 +3,7 @@ import { canonicalHash, canonicalJson } from '../../src/lib/domain/canonical-jso
 import { explainPlan } from '../../src/lib/domain/explain';
 import { checkPlan } from '../../src/lib/domain/checker';
 import { diffPlans } from '../../src/lib/domain/plan-diff';
+import { diffInWords } from '../../src/lib/domain/plan-diff-words';
 import { planTags } from '../../src/lib/domain/plan-tags';
 import { bucketLinks, bucketNodes, makePlan } from '../helpers/plan-factory';
 import type { PlanDocument } from '../../src/lib/schemas/plan';
@@ -56,5 +57,32 @@ describe('explain', () => {
     expect(phase.lines.join(' ')).toMatch(/In zone \d+ .* grounded/);
     const jumper = explained.find((e) => doc.links.find((l) => l.id === e.id)?.kind === 'jumper')!;
     expect(jumper.lines.join(' ')).toMatch(/Impedance [\d.]+ mΩ; fault duty [\d.]+ kA/);
+  });
+});
+
+describe('plan diff in words', () => {
+  it('shows before → after values with units and names, never field names', () => {
+    const before = plan();
+    const jumper = before.links.find((l) => l.kind === 'jumper')!;
+    const after: PlanDocument = {
+      ...before,
+      system: { ...before.system, faultKa: 12 },
+      links: before.links.map((l) => (l.id === jumper.id && l.kind === 'jumper' ? { ...l, lengthM: l.lengthM + 1.5, clampKa: 27 } : l)),
+    };
+    const words = diffInWords(before, after);
+    expect(words).toContainEqual({ kind: 'changed', what: 'The plan', changes: [`available fault current ${before.system.faultKa} kA → 12 kA`] });
+    const changed = words.find((w) => w.what.includes(jumper.id))!;
+    expect(changed.changes).toEqual([`clamp rating ${jumper.kind === 'jumper' && jumper.clampKa !== undefined ? `${jumper.clampKa} kA` : 'none'} → 27 kA`, `length ${jumper.kind === 'jumper' ? jumper.lengthM : ''} m → ${jumper.kind === 'jumper' ? jumper.lengthM + 1.5 : ''} m`]);
+    expect(JSON.stringify(words)).not.toMatch(/lengthM|clampKa|faultKa/);
+  });
+
+  it('names the surface a worker now stands on, and a move as a move', () => {
+    const before = plan();
+    const worker = before.nodes.find((n) => n.kind === 'worker')!;
+    const other = before.nodes.find((n) => n.kind === 'cluster-bar' || n.kind === 'hardware')!;
+    const after: PlanDocument = { ...before, nodes: before.nodes.map((n) => (n.id === worker.id && n.kind === 'worker' ? { ...n, standsOn: other.id, position: { x: 1, y: 2 } } : n)) };
+    const [change] = diffInWords(before, after);
+    expect(change.changes).toContain('moved on the drawing');
+    expect(change.changes.find((c) => c.startsWith('stands on'))).toMatch(new RegExp(`→ .*${other.id}`));
   });
 });

@@ -1,4 +1,7 @@
-/** Plan workflow states: draft → submitted → approved, or → returned → (edited) → submitted. */
+/**
+ * Plan workflow states: draft → submitted → approved, or → returned → (edited) → submitted; a
+ * submitted plan can be withdrawn by its author back to a draft before anyone decides it.
+ */
 export const PLAN_STATUSES = ['draft', 'submitted', 'returned', 'approved'] as const;
 export type PlanStatus = (typeof PLAN_STATUSES)[number];
 
@@ -19,7 +22,7 @@ export function isEditable(status: PlanStatus): boolean {
 }
 
 /** Everything a person can do to move a plan, and what each does from each state (null: refused). */
-export const WORKFLOW_ACTIONS = ['save', 'submit', 'approve', 'return', 'reopen'] as const;
+export const WORKFLOW_ACTIONS = ['save', 'submit', 'approve', 'return', 'reopen', 'withdraw'] as const;
 export type WorkflowAction = (typeof WORKFLOW_ACTIONS)[number];
 
 const TRANSITIONS: Record<PlanStatus, Partial<Record<WorkflowAction, PlanStatus>>> = {
@@ -27,7 +30,8 @@ const TRANSITIONS: Record<PlanStatus, Partial<Record<WorkflowAction, PlanStatus>
   draft: { save: 'draft', submit: 'submitted' },
   // Submitting a returned plan unchanged makes a new revision (a copy), so it can be decided again.
   returned: { save: 'returned', submit: 'submitted' },
-  submitted: { approve: 'approved', return: 'returned' },
+  // Withdrawing keeps the revision (it was never decided) and hands it back as a draft.
+  submitted: { approve: 'approved', return: 'returned', withdraw: 'draft' },
   // Reopening copies the approved document into a new draft revision.
   approved: { reopen: 'draft' },
 };

@@ -110,3 +110,27 @@ export function judgeReopen(status: PlanStatus, currentRevision: number): Reopen
   return { kind: 'reopen', revision: currentRevision + 1, status: next };
 }
 
+
+export interface WithdrawFacts {
+  status: PlanStatus;
+  currentRevision: number;
+  authorId: string;
+  actorId: string;
+  actorIsAdmin: boolean;
+}
+
+export type WithdrawVerdict =
+  | { kind: 'not-author' }
+  | { kind: 'not-submitted'; status: PlanStatus }
+  | { kind: 'withdraw'; revision: number; status: PlanStatus };
+
+/**
+ * Only the plan's author (or an admin) takes a submitted plan back before a decision; it returns
+ * to a draft at the same revision, which no one has decided.
+ */
+export function judgeWithdraw(facts: WithdrawFacts): WithdrawVerdict {
+  if (facts.authorId !== facts.actorId && !facts.actorIsAdmin) return { kind: 'not-author' };
+  const status = nextStatus(facts.status, 'withdraw');
+  if (!status) return { kind: 'not-submitted', status: facts.status };
+  return { kind: 'withdraw', revision: facts.currentRevision, status };
+}

@@ -53,6 +53,8 @@ export const ERRORS = {
   INTERNAL: { status: 500, message: 'Something went wrong on our side; nothing was changed. Try again, and tell your admin if it keeps happening.' },
   EXERCISE_NO_GAP: { status: 409, message: 'The modified plan has no blocker the approved one lacks, so there is nothing to find: an exercise must have a gap. Remove or change another link.' },
   REVISION_NOT_APPROVED: { status: 409, message: 'Exercises are made from approved revisions only, and this one is not approved. Pick a plan from the library.' },
+  NOT_WITHDRAWABLE: { status: 409, message: 'Only a plan waiting for review can be withdrawn; this one is not (it may have been decided a moment ago). Reload it.' },
+  NOT_AUTHOR: { status: 403, message: 'Only the author of this plan (or an admin) can withdraw it.' },
 } as const satisfies Record<string, { status: number; message: string }>;
 
 export type ErrorCode = keyof typeof ERRORS;

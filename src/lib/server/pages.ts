@@ -5,11 +5,15 @@ import { roleMessage } from './guards';
 import { currentRequestId } from './log';
 import { escapeHtml } from './html';
 
-/** For a page only some roles may open: null when allowed, else a 403 page naming the role. */
-export function pageRoleRefusal(Astro: AstroGlobal, ...roles: Role[]): Response | null {
+/**
+ * For a page only some roles may open: null when allowed, else the 403 page naming the roles, in
+ * the app's shell for a signed-in person (src/pages/not-for-your-role.astro).
+ */
+export async function pageRoleRefusal(Astro: AstroGlobal, ...roles: Role[]): Promise<Response | null> {
   const person = Astro.locals.person;
   if (person && roles.includes(person.role)) return null;
-  return plainPage(403, 'Not for your role', roleMessage(roles));
+  if (!person) return plainPage(403, 'Not for your role', roleMessage(roles));
+  return Astro.rewrite(`/not-for-your-role?need=${roles.join(',')}`);
 }
 
 export function unavailablePage(): Response {

@@ -5,6 +5,7 @@
 import { getDb } from '../../../db/connection';
 import { getPlan, type PlanDetail } from '../../../db/repositories/plans';
 import { decidePlan, reopenApproved, submitPlan, type Decision } from '../../../db/repositories/review';
+import { withdrawPlan } from '../../../db/repositories/withdraw';
 import { canonicalHash } from '../domain/canonical-json';
 import type { Person } from '../domain/people';
 import { checkForOrganization } from './checking';
@@ -92,5 +93,14 @@ export async function reopen(person: Person, planId: number): Promise<PlanDetail
   const outcome = await reopenApproved(getDb(), person.organizationId, planId, person.id);
   if (outcome.kind === 'not-found') throw new AppError('NOT_FOUND');
   if (outcome.kind === 'not-approved') throw new AppError('NOT_APPROVED', { extra: { status: outcome.status } });
+  return (await getPlan(getDb(), person.organizationId, planId))!;
+}
+
+/** Takes a submitted plan back to a draft at the same revision, before a reviewer decides it. */
+export async function withdraw(person: Person, planId: number): Promise<PlanDetail> {
+  const outcome = await withdrawPlan(getDb(), person.organizationId, planId, { id: person.id, isAdmin: person.role === 'admin' });
+  if (outcome.kind === 'not-found') throw new AppError('NOT_FOUND');
+  if (outcome.kind === 'not-author') throw new AppError('NOT_AUTHOR');
+  if (outcome.kind === 'not-submitted') throw new AppError('NOT_WITHDRAWABLE', { extra: { status: outcome.status } });
   return (await getPlan(getDb(), person.organizationId, planId))!;
 }

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { PLAN_STATUSES, nextStatus } from '../../../src/lib/domain/plan-status';
-import { judgeDecision, judgeReopen, judgeSubmit, relatedToEditors, type DecisionFacts } from '../../../src/lib/domain/review-guards';
+import { judgeDecision, judgeReopen, judgeWithdraw, judgeSubmit, relatedToEditors, type DecisionFacts } from '../../../src/lib/domain/review-guards';
 
 describe('judgeSubmit', () => {
   const base = { status: 'draft' as const, currentRevision: 3, blockers: 0, decided: false };
@@ -92,5 +92,17 @@ describe('relatedToEditors', () => {
   it('ends on an invitation loop and on an unknown reviewer', () => {
     expect(relatedToEditors(people, 'loop-a', new Set(['stranger']))).toBe(false);
     expect(relatedToEditors(people, 'nobody', new Set(['admin']))).toBe(false);
+  });
+});
+
+describe('judgeWithdraw', () => {
+  const facts = { status: 'submitted' as const, currentRevision: 3, authorId: 'lead', actorId: 'lead', actorIsAdmin: false };
+  it('the author or an admin takes a submitted plan back to a draft at the same revision', () => {
+    expect(judgeWithdraw(facts)).toEqual({ kind: 'withdraw', revision: 3, status: 'draft' });
+    expect(judgeWithdraw({ ...facts, actorId: 'admin', actorIsAdmin: true })).toEqual({ kind: 'withdraw', revision: 3, status: 'draft' });
+  });
+  it('refuses anyone else, and any plan not waiting for review', () => {
+    expect(judgeWithdraw({ ...facts, actorId: 'other lead' })).toEqual({ kind: 'not-author' });
+    for (const status of ['draft', 'returned', 'approved'] as const) expect(judgeWithdraw({ ...facts, status })).toEqual({ kind: 'not-submitted', status });
   });
 });

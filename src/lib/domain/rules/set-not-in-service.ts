@@ -13,7 +13,7 @@ export function checkSetNotInService(ctx: RuleContext): Finding[] {
       rule: SET_NOT_IN_SERVICE,
       severity: 'blocker' as const,
       elements: [jumper],
-      message: `Set ${use.set?.tag} on ${ctx.model.nameOf(jumper)} is ${use.set?.status}; take an in-service set instead.`,
+      message: `Set ${use.set?.tag} on ${ctx.model.nameOf(jumper)} is ${use.set?.status.replace(/-/g, ' ')}; take an in-service set instead.`,
       basis: 'Common practice: a set that carried fault current or failed its in-service test is not used until it passes one (ASTM F2249 in-service tests, from memory; the employer decides)',
     }));
   });

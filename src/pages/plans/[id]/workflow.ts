@@ -5,11 +5,11 @@ import { setCommentResolved } from '../../../../db/repositories/revisions';
 import { hasRole } from '../../../lib/server/guards';
 import { idParam } from '../../../lib/schemas/api';
 import { AppError } from '../../../lib/server/errors';
-import { reopen, submitForReview } from '../../../lib/server/workflow';
+import { reopen, submitForReview, withdraw } from '../../../lib/server/workflow';
 
 /**
  * The plan page's workflow buttons post here as plain forms (no JavaScript needed): submit,
- * reopen an approved plan, resolve or reopen a comment. Answers with a redirect back to the plan
+ * withdraw a submitted one, reopen an approved plan, resolve or reopen a comment. Answers with a redirect back to the plan
  * carrying what happened; the same rules as the JSON API apply, through the same functions.
  */
 export const POST: APIRoute = async (ctx) => {
@@ -28,6 +28,10 @@ export const POST: APIRoute = async (ctx) => {
     if (action === 'reopen' && hasRole(person, 'crew_lead', 'admin')) {
       await reopen(person, id.data);
       return back('notice=reopened');
+    }
+    if (action === 'withdraw' && hasRole(person, 'crew_lead', 'admin')) {
+      await withdraw(person, id.data);
+      return back('notice=withdrawn');
     }
     if ((action === 'resolve' || action === 'unresolve') && hasRole(person, 'crew_lead', 'admin', 'reviewer')) {
       const commentId = idParam.safeParse(form.get('commentId'));
