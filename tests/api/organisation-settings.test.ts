@@ -1,0 +1,52 @@
+/** The organisation's time zone, paper size and units: saved by an admin, by field on error, used for times on pages. */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { Client, signedIn } from '../helpers/api';
+import { closeTestDb, makeTeam, PASSWORD, planDocument } from '../helpers/factories';
+
+let admin: Client;
+let lead: Client;
+beforeAll(async () => {
+  const team = await makeTeam();
+  admin = await signedIn(team.admin.email, PASSWORD);
+  lead = await signedIn(team.lead.email, PASSWORD);
+});
+afterAll(closeTestDb);
+
+describe('organisation settings', () => {
+  it('starts from the server zone, letter and imperial, and keeps the equipment interval unchosen after a save', async () => {
+    const first = await admin.get('/api/organisation/settings');
+    expect(first.body.settings).toMatchObject({ timeZoneIsDefault: true, paperSize: 'letter', units: 'imperial' });
+    expect(first.body.settings.timeZone).toBe(Intl.DateTimeFormat().resolvedOptions().timeZone);
+    const saved = await admin.put('/api/organisation/settings', { timeZone: 'Pacific/Kiritimati', paperSize: 'a4', units: 'metric' });
+    expect(saved.status).toBe(200);
+    expect((await lead.get('/api/organisation/settings')).body.settings).toEqual({ timeZone: 'Pacific/Kiritimati', timeZoneIsDefault: false, paperSize: 'a4', units: 'metric' });
+    expect((await admin.get('/api/equipment/settings')).body.settings).toEqual({ testIntervalMonths: 12, intervalIsDefault: true, resistanceLimits: [] });
+    // Saving the equipment settings afterwards keeps the general ones.
+    await admin.put('/api/equipment/settings', { testIntervalMonths: 6 });
+    expect((await admin.get('/api/organisation/settings')).body.settings.timeZone).toBe('Pacific/Kiritimati');
+  });
+
+  it('refuses a bad zone and paper size by field, and a crew lead may not save', async () => {
+    const bad = await admin.put('/api/organisation/settings', { timeZone: 'Somewhere/Else', paperSize: 'legal', units: 'imperial' });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.issues.map((i: { path: string }) => i.path).sort()).toEqual(['paperSize', 'timeZone']);
+    expect((await lead.put('/api/organisation/settings', { timeZone: 'UTC', paperSize: 'letter', units: 'imperial' })).status).toBe(403);
+  });
+
+  it('shows plan times in the organisation zone (UTC+14 here), not UTC', async () => {
+    await admin.put('/api/organisation/settings', { timeZone: 'Pacific/Kiritimati', paperSize: 'letter', units: 'imperial' });
+    const created = await lead.post('/api/plans', { title: 'Zone check pole', document: planDocument() });
+    expect(created.status).toBe(201);
+    const page = await lead.get('/plans');
+    expect(page.body).toContain('GMT+14');
+    expect(page.body).not.toMatch(/\d{2}:\d{2} UTC/);
+  });
+
+  it('has an admin-only settings page that names the bad field', async () => {
+    expect((await lead.get('/settings')).status).toBe(403);
+    const form = new URLSearchParams({ timeZone: 'Nowhere', paperSize: 'letter', units: 'imperial' }).toString();
+    const page = await admin.request('POST', '/settings', { body: form, headers: { 'content-type': 'application/x-www-form-urlencoded', origin: new URL(admin.baseUrl).origin } });
+    expect(page.body).toContain('Time zone must be a time zone name');
+    expect((await admin.get('/api/organisation/settings')).body.settings.timeZone).toBe('Pacific/Kiritimati');
+  });
+});
