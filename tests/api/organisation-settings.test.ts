@@ -5,10 +5,12 @@ import { closeTestDb, makeTeam, PASSWORD, planDocument } from '../helpers/factor
 
 let admin: Client;
 let lead: Client;
+let reviewer: Client;
 beforeAll(async () => {
   const team = await makeTeam();
   admin = await signedIn(team.admin.email, PASSWORD);
   lead = await signedIn(team.lead.email, PASSWORD);
+  reviewer = await signedIn(team.reviewer.email, PASSWORD);
 });
 afterAll(closeTestDb);
 
@@ -48,5 +50,16 @@ describe('organisation settings', () => {
     const page = await admin.request('POST', '/settings', { body: form, headers: { 'content-type': 'application/x-www-form-urlencoded', origin: new URL(admin.baseUrl).origin } });
     expect(page.body).toContain('Time zone must be a time zone name');
     expect((await admin.get('/api/organisation/settings')).body.settings.timeZone).toBe('Pacific/Kiritimati');
+  });
+
+  it('shows body current on the review page in milliamperes, as the editor does', async () => {
+    const plan = (await lead.post('/api/plans', { title: 'Milliampere pole', document: planDocument() })).body.plan;
+    expect((await lead.post(`/api/plans/${plan.id}/submit`)).status).toBe(200);
+    const page = await reviewer.get(`/plans/${plan.id}/review`);
+    expect(page.status).toBe(200);
+    expect(page.body).toContain('Body current (mA)');
+    expect(page.body).not.toContain('Body A');
+    const row = /<td>W1<\/td><td>A<\/td><td>[^<]*<\/td><td>([^<]*)<\/td>/.exec(page.body);
+    expect(row?.[1]).toMatch(/^\d+$/);
   });
 });
