@@ -62,4 +62,23 @@ describe('organisation settings', () => {
     const row = /<td>W1<\/td><td>A<\/td><td>[^<]*<\/td><td>([^<]*)<\/td>/.exec(page.body);
     expect(row?.[1]).toMatch(/^\d+$/);
   });
+
+  it('words the review page findings in feet for an organisation in feet', async () => {
+    await admin.put('/api/organisation/settings', { timeZone: 'UTC', paperSize: 'letter', units: 'imperial' });
+    const base = planDocument();
+    const document = {
+      ...base,
+      nodes: [...base.nodes, { id: 'R9', kind: 'ground-rod', lengthM: 2.4384, diameterMm: 15.875, soilOhmM: 100 }],
+      links: [...base.links, { id: 'jR9', kind: 'jumper', from: 'CB', to: 'R9', cable: '2/0', lengthM: 3, spanM: 2.5 }],
+    };
+    const plan = (await lead.post('/api/plans', { title: 'Feet findings pole', document })).body.plan;
+    const stored = plan.report.findings.find((f: { rule: string }) => f.rule === 'rod-barricade');
+    expect(stored.message).toMatch(/\d m\b/);
+    expect((await lead.post(`/api/plans/${plan.id}/submit`)).status).toBe(200);
+    const page = await reviewer.get(`/plans/${plan.id}/review`);
+    const section = page.body.slice(page.body.indexOf('data-testid="review-findings"'));
+    const barricade = /<code class="text-sm">rod-barricade<\/code>\s*<p>([^<]*)<\/p>/.exec(section);
+    expect(barricade?.[1]).toMatch(/\d+ ft \d+ in/);
+    expect(barricade?.[1]).not.toMatch(/\d m\b/);
+  });
 });
