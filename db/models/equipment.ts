@@ -54,8 +54,12 @@ export class SetEvent extends Model<InferAttributes<SetEvent>, InferCreationAttr
 
 export class OrganizationSetting extends Model<InferAttributes<OrganizationSetting>, InferCreationAttributes<OrganizationSetting>> {
   declare organizationId: number;
-  declare testIntervalMonths: number;
+  /** Null until the organisation chooses an interval (migration 0011). */
+  declare testIntervalMonths: number | null;
   declare resistanceLimits: string;
+  declare timeZone: string | null;
+  declare paperSize: CreationOptional<string>;
+  declare units: CreationOptional<string>;
   declare updatedBy: string | null;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -128,8 +132,11 @@ export function initEquipment(sequelize: Sequelize) {
   OrganizationSetting.init(
     {
       organizationId: { type: DataTypes.INTEGER.UNSIGNED, primaryKey: true },
-      testIntervalMonths: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 12 },
+      testIntervalMonths: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
       resistanceLimits: { type: DataTypes.TEXT, allowNull: false },
+      timeZone: { type: DataTypes.STRING(64), allowNull: true },
+      paperSize: { type: DataTypes.STRING(8), allowNull: false, defaultValue: 'letter' },
+      units: { type: DataTypes.STRING(8), allowNull: false, defaultValue: 'imperial' },
       updatedBy: { type: DataTypes.STRING(32), allowNull: true },
       updatedAt: DataTypes.DATE(3),
     },

@@ -14,7 +14,9 @@ export interface EquipmentSettings {
 export async function getSettings(db: Db, organizationId: number, transaction?: Transaction): Promise<EquipmentSettings> {
   const row = await db.models.OrganizationSetting.findByPk(organizationId, { transaction });
   if (!row) return { testIntervalMonths: DEFAULT_TEST_INTERVAL_MONTHS, intervalIsDefault: true, resistanceLimits: [] };
-  return { testIntervalMonths: row.testIntervalMonths, intervalIsDefault: false, resistanceLimits: JSON.parse(row.resistanceLimits) as ResistanceLimit[] };
+  // A row saved from the organisation settings alone has no interval yet (migration 0011).
+  const chosen = row.testIntervalMonths !== null;
+  return { testIntervalMonths: row.testIntervalMonths ?? DEFAULT_TEST_INTERVAL_MONTHS, intervalIsDefault: !chosen, resistanceLimits: JSON.parse(row.resistanceLimits) as ResistanceLimit[] };
 }
 
 /** Saves the settings and recomputes every set's due date when the interval changed. */

@@ -27,12 +27,14 @@ import { PrintSheet } from './panels/PrintSheet';
 import { TopBar } from './panels/TopBar';
 import { nearestInDirection, readingOrder } from './plan-ops';
 import { EditorStoreContext } from './selectors';
+import type { UnitSystem } from '../../lib/domain/units';
+import type { PaperSize } from '../../lib/schemas/organisation';
 import { createEditorStore, GRID, hasUnsavedWork, type EditorStore } from './store';
 import { readLocalDraft, startSync, type SyncHandle } from './sync';
 import type { DraftStorage } from './draft-store';
 
 export interface EditorProps {
-  plan: { id: number; title: string; status: PlanStatus; currentRevision: number; document: PlanDocument; report: CheckReport | null; structure?: string; preparer?: string; date?: string };
+  plan: { id: number; title: string; status: PlanStatus; currentRevision: number; document: PlanDocument; report: CheckReport | null; structure?: string; preparer?: string; date?: string; units?: UnitSystem; paperSize?: PaperSize };
   readOnly: boolean;
   role: string;
   /** The approval of the revision shown, for the print sheet and PDF (null until approved). */
@@ -48,7 +50,7 @@ export interface EditorProps {
 }
 
 function initStore(plan: EditorProps['plan'], readOnly: boolean, pins: EditorProps['pins'], explanations: EditorProps['explanations'], drafts: DraftStorage | null): { store: EditorStore; restored: boolean } {
-  const store = createEditorStore({ doc: plan.document, baseRevision: plan.currentRevision, readOnly, report: plan.report, pins, explanations });
+  const store = createEditorStore({ doc: plan.document, baseRevision: plan.currentRevision, readOnly, report: plan.report, pins, explanations, units: plan.units });
   if (readOnly || !drafts) return { store, restored: false };
   const draft = readLocalDraft(drafts, plan.id);
   if (!draft) return { store, restored: false };

@@ -5,6 +5,7 @@
 import type { PlanDocument } from '../schemas/plan';
 import type { CheckReport } from './report';
 import { findZones } from './zones';
+import { formatMetres, formatMilliamps, type UnitSystem } from './units';
 
 export interface Explanation {
   id: string;
@@ -14,8 +15,11 @@ export interface Explanation {
 
 const fmt = (v: number | null | undefined, digits: number) => (v === null || v === undefined ? '—' : v.toFixed(digits));
 
+const barricade = (rod: { barricadeRadiusM?: number | null }, units: UnitSystem) =>
+  rod.barricadeRadiusM === null || rod.barricadeRadiusM === undefined ? '—' : formatMetres(rod.barricadeRadiusM, units);
+
 /** One explanation per node and link of the plan, in document order. */
-export function explainPlan(plan: PlanDocument, report: CheckReport | null): Explanation[] {
+export function explainPlan(plan: PlanDocument, report: CheckReport | null, units: UnitSystem = 'metric'): Explanation[] {
   const zones = findZones(plan);
   const zoneOf = new Map<string, number>();
   zones.forEach((z, i) => z.nodes.forEach((id) => zoneOf.set(id, i)));
@@ -29,7 +33,7 @@ export function explainPlan(plan: PlanDocument, report: CheckReport | null): Exp
       if (node.standsOn === undefined) lines.push('Stands on nothing yet: choose what this worker stands on or in.');
       else lines.push(`Stands on ${label(node.standsOn)} (${node.standsOn}); everything this worker reaches must be in the same zone as that.`);
       for (const c of report?.contacts.filter((c) => c.worker === node.id) ?? []) {
-        lines.push(`Touching ${label(c.surface)}: ${fmt(c.touchVolts, 1)} V across the body, ${fmt(c.bodyAmps, 4)} A through it, against a limit of ${fmt(c.limitAmps, 3)} A.`);
+        lines.push(`Touching ${label(c.surface)}: ${fmt(c.touchVolts, 1)} V across the body, ${formatMilliamps(c.bodyAmps)} through it, against a limit of ${formatMilliamps(c.limitAmps)}.`);
       }
     } else if (node.kind === 'supply-end') {
       lines.push(`Marks a source that can feed the work through ${node.phases.map(label).join(', ')}; grounds belong between it and the workers, or at the work location.`);
@@ -45,7 +49,7 @@ export function explainPlan(plan: PlanDocument, report: CheckReport | null): Exp
       if (node.kind === 'pole-ground') lines.push('An existing pole ground conducts, but is never relied on to ground the zone.');
     }
     const rod = report?.rods.find((r) => r.node === node.id);
-    if (rod) lines.push(`Resistance to remote earth ${fmt(rod.ohms, 1)} Ω; barricade ${fmt((rod as { barricadeRadiusM?: number }).barricadeRadiusM, 1)} m around it.`);
+    if (rod) lines.push(`Resistance to remote earth ${fmt(rod.ohms, 1)} Ω; barricade ${barricade(rod as { barricadeRadiusM?: number | null }, units)} around it.`);
     for (const f of report?.findings.filter((f) => f.elements.includes(node.id)) ?? []) lines.push(`${f.severity[0].toUpperCase()}${f.severity.slice(1)}: ${f.message}`);
     out.push({ id: node.id, title: `${node.label ?? node.kind} (${node.id})`, lines });
   }

@@ -93,3 +93,49 @@ export function cableLabel(size: CableSize, system: UnitSystem = 'imperial'): st
 }
 
 export const lengthUnit = (system: UnitSystem): string => (system === 'metric' ? 'm' : 'ft in');
+
+/*
+ * Quantities as the crew reads them: the one set of formatters for findings, pages and the editor.
+ * Rounding a crew lead reads comfortably, units always written out.
+ */
+const fixed = (value: number, digits: number) => (Number.isFinite(value) ? value.toFixed(digits) : 'an unknown value of');
+
+/** One pound-force is exactly 4.4482216152605 N (0.45359237 kg × 9.80665 m/s²). */
+export const NEWTONS_PER_POUND_FORCE = 4.4482216152605;
+/** One avoirdupois pound is exactly 0.45359237 kg. */
+export const KILOGRAMS_PER_POUND = 0.45359237;
+
+/** Current in kA to one decimal: "10.5 kA". Display only; the branded constructor lives in calc/units.ts. */
+export const formatKiloamps = (valueKa: number) => `${fixed(valueKa, 1)} kA`;
+/** Current in A to three decimals, the precision of the Dalziel limits ("0.232 A"); one decimal from 10 A. */
+export const formatAmps = (valueA: number) => `${fixed(valueA, Math.abs(valueA) >= 10 ? 1 : 3)} A`;
+/** Body current given in A, written in whole milliamperes as the editor shows it: "232 mA". */
+export const milliampsNumber = (valueA: number | null | undefined) => (valueA === null || valueA === undefined || !Number.isFinite(valueA) ? '—' : `${Math.round(valueA * 1000)}`);
+export const formatMilliamps = (valueA: number | null | undefined) => `${milliampsNumber(valueA)} mA`;
+/** Potential: one decimal below 10 V, whole volts below 1 kV, then kV to one decimal. */
+export const formatVolts = (valueV: number) =>
+  Math.abs(valueV) >= 1000 ? `${fixed(valueV / 1000, 1)} kV` : `${fixed(valueV, Math.abs(valueV) >= 10 ? 0 : 1)} V`;
+/** Length given in m, to one decimal ("1.8 m"), or in feet and inches for a crew working in feet ("5 ft 11 in"). */
+export const formatMetres = (valueM: number, units: UnitSystem = 'metric') =>
+  units === 'imperial' && Number.isFinite(valueM) ? formatLength(valueM, 'imperial') : `${fixed(valueM, 1)} m`;
+/** Time in s, to two decimals (cycles are fractions of a second): "0.25 s". */
+export const formatSeconds = (valueS: number) => `${fixed(valueS, 2)} s`;
+/** Resistance in ohms to three significant figures. */
+export const formatOhms = (value: number) => (Number.isFinite(value) ? `${Number(value.toPrecision(3))} Ω` : 'an unknown resistance');
+/** Resistance in milliohms to two significant figures, for small added resistances: "1 mΩ". */
+export const formatMilliohms = (valueOhms: number) => (Number.isFinite(valueOhms) ? `${Number((valueOhms * 1000).toPrecision(2))} mΩ` : 'an unknown resistance');
+/** Force per length given in N/m: whole newtons per metre ("463 N/m"), or pounds-force per foot to one decimal ("31.7 lbf/ft"). */
+export const formatForcePerLength = (valueNPerM: number, units: UnitSystem = 'metric') =>
+  units === 'imperial' ? `${fixed((valueNPerM * METRES_PER_FOOT) / NEWTONS_PER_POUND_FORCE, 1)} lbf/ft` : `${fixed(valueNPerM, 0)} N/m`;
+/** A length that may be short: millimetres below 1 m ("20 mm"), else metres to one decimal. */
+export const formatShortLength = (valueM: number) => (Number.isFinite(valueM) && Math.abs(valueM) < 1 ? `${Number((valueM * 1000).toPrecision(3))} mm` : formatMetres(valueM));
+/** A dimensionless factor to three decimals: "1.052". */
+export const formatFactor = (value: number) => (Number.isFinite(value) ? value.toFixed(3) : 'an unknown factor');
+/** A diameter in millimetres as entered: "15.875 mm". */
+export const formatMillimetres = (valueMm: number) => `${Number.isFinite(valueMm) ? Number(valueMm.toPrecision(4)) : 'an unknown'} mm`;
+/** A rod diameter given in mm: as entered in mm, or in inches to three decimals ("0.625 in"). */
+export const formatDiameter = (valueMm: number, units: UnitSystem = 'metric') =>
+  units === 'imperial' && Number.isFinite(valueMm) ? `${Number((valueMm / 25.4).toFixed(3))} in` : formatMillimetres(valueMm);
+/** A body weight given in kg: whole kilograms, or whole pounds. */
+export const formatWeight = (valueKg: number, units: UnitSystem = 'metric') =>
+  units === 'imperial' ? `${fixed(valueKg / KILOGRAMS_PER_POUND, 0)} lb` : `${fixed(valueKg, 0)} kg`;

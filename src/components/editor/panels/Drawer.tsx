@@ -45,7 +45,7 @@ export function Drawer({ onShow }: { onShow: (ids: string[]) => void }) {
   else if (tab === 'Workers') body = <WorkersTable report={report} onSelect={onShow} />;
   else if (tab === 'Jumpers') body = <JumpersTable report={report} doc={doc!} onSelect={onShow} />;
   else if (tab === 'Rods') body = <RodsTable report={report} units={units} onSelect={onShow} />;
-  else body = <FaultTable report={report} />;
+  else body = <FaultTable report={report} units={units} />;
 
   return (
     <section aria-label="Check results" className="flex min-h-0 flex-col border-t border-line bg-paper" data-testid="drawer">

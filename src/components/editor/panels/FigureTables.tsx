@@ -1,10 +1,10 @@
 /** The drawer's figure tabs: contacts per worker, jumpers, rods and the fault. */
 import type { CheckReport, Figure } from '../../../lib/domain/report';
-import { formatLength, type UnitSystem } from '../../../lib/domain/units';
+import { formatForcePerLength, formatLength, milliampsNumber, type UnitSystem } from '../../../lib/domain/units';
 import type { PlanDocument } from '../../../lib/schemas/plan';
 
 export const fmt = (v: Figure | undefined, digits = 2): string => (v === null || v === undefined ? '—' : v.toLocaleString('en', { maximumFractionDigits: digits }));
-const ma = (a: Figure | undefined) => (a === null || a === undefined ? '—' : `${Math.round(a * 1000)}`);
+const ma = milliampsNumber;
 
 function Table({ head, rows, empty, onRow }: { head: string[]; rows: (string | number)[][]; empty: string; onRow?: (i: number) => void }) {
   if (!rows.length) return <p className="py-2 text-note">{empty}</p>;
@@ -44,7 +44,7 @@ export function RodsTable({ report, units, onSelect }: { report: CheckReport; un
   return <Table head={['Rod', 'Resistance (Ω)', 'Barricade radius']} rows={rows} empty="No driven rods in the plan." onRow={onSelect ? (i) => onSelect([report.rods[i].node]) : undefined} />;
 }
 
-export function FaultTable({ report }: { report: CheckReport }) {
+export function FaultTable({ report, units = 'metric' }: { report: CheckReport; units?: UnitSystem }) {
   const f = report.fault;
   return (
     <dl className="grid max-w-xl grid-cols-2 gap-x-6 gap-y-1 num">
@@ -53,7 +53,7 @@ export function FaultTable({ report }: { report: CheckReport }) {
       <dt>Asymmetrical current</dt><dd>{fmt(f.asymmetricalKa)} kA</dd>
       <dt>Peak factor</dt><dd>{fmt(f.peakFactor, 3)}</dd>
       <dt>Peak current</dt><dd>{fmt(f.peakKa)} kA</dd>
-      <dt>Peak force on leads</dt><dd>{f.peakForceNPerM === null ? '— (no phase spacing)' : `${fmt(f.peakForceNPerM, 1)} N/m`}</dd>
+      <dt>Peak force on leads</dt><dd>{f.peakForceNPerM === null ? '— (no phase spacing)' : formatForcePerLength(f.peakForceNPerM, units)}</dd>
       <dt>Tolerable body current</dt><dd>{ma(report.tolerableBodyAmps)} mA</dd>
     </dl>
   );

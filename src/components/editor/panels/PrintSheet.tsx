@@ -44,7 +44,7 @@ export const PrintSheet = forwardRef<HTMLDivElement, PrintSheetProps>(function P
           <div><h2 className="text-lg font-semibold">Workers</h2><WorkersTable report={report} /></div>
           <div><h2 className="text-lg font-semibold">Jumpers</h2><JumpersTable report={report} doc={doc} /></div>
           <div><h2 className="text-lg font-semibold">Rods</h2><RodsTable report={report} units={units} /></div>
-          <div><h2 className="text-lg font-semibold">Fault</h2><FaultTable report={report} /></div>
+          <div><h2 className="text-lg font-semibold">Fault</h2><FaultTable report={report} units={units} /></div>
         </section>
       )}
       <p className="border border-ink p-2 text-sm"><strong>Caution.</strong> {CAUTION}</p>

@@ -20,7 +20,7 @@ export interface PropertiesFormProps {
   readOnly?: boolean;
 }
 
-const unitHint = (f: FieldSpec, units: UnitSystem) => (f.type === 'length' ? (units === 'metric' ? 'm' : 'ft in') : f.unit);
+const unitHint = (f: FieldSpec, units: UnitSystem) => (f.type === 'length' ? (units === 'metric' ? 'm' : 'ft in') : units === 'imperial' && f.imperial ? f.imperial.unit : f.unit);
 
 export function PropertiesForm({ title, fields, source, schema, units, onApply, nodes = [], readOnly = false }: PropertiesFormProps) {
   const formId = useId();

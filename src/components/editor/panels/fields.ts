@@ -21,7 +21,14 @@ export interface FieldSpec {
   nodeFilter?: (kind: NodeKind) => boolean;
   numeric?: boolean;
   hint?: string;
+  /** A number stored in a metric unit that a crew in feet types in another: stored = typed × factor. */
+  imperial?: { unit: string; factor: number };
 }
+
+/** Rods are specified in inches in feet mode and stored in millimetres (1 in = 25.4 mm exactly). */
+const INCHES = { unit: 'in', factor: 25.4 } as const;
+/** The value shown for a stored number: converted for a field with an imperial unit. */
+const shownNumber = (f: FieldSpec, v: number, units: UnitSystem) => (units === 'imperial' && f.imperial ? String(Number((v / f.imperial.factor).toFixed(4))) : String(v));
 
 /** What a person can stand on or in (the cluster bar stands for a climber's footing at the bar). */
 export const STANDABLE: ReadonlySet<NodeKind> = new Set<NodeKind>(['bucket', 'truck', 'mat', 'earth', 'structure', 'crossarm', 'cluster-bar']);
@@ -41,7 +48,7 @@ export const NODE_FIELDS: Record<NodeKind, FieldSpec[]> = {
   'ground-rod': [
     label,
     { key: 'lengthM', label: 'Driven length', type: 'length' },
-    { key: 'diameterMm', label: 'Rod diameter', type: 'number', unit: 'mm' },
+    { key: 'diameterMm', label: 'Rod diameter', type: 'number', unit: 'mm', imperial: INCHES },
     { key: 'soilOhmM', label: 'Soil resistivity', type: 'number', unit: 'Ω·m' },
     { key: 'count', label: 'Number of rods', type: 'number', optional: true },
     { key: 'spacingM', label: 'Rod spacing', type: 'length', optional: true, hint: 'Needed when there is more than one rod.' },
@@ -80,7 +87,7 @@ export const SYSTEM_FIELDS: FieldSpec[] = [
 ];
 
 export const CRITERIA_FIELDS: FieldSpec[] = [
-  { key: 'bodyKg', label: 'Body weight basis', type: 'select', numeric: true, options: [{ value: '50', label: '50 kg' }, { value: '70', label: '70 kg' }] },
+  { key: 'bodyKg', label: 'Body weight basis', type: 'select', numeric: true, options: [{ value: '50', label: '50 kg (110 lb)' }, { value: '70', label: '70 kg (154 lb)' }] },
   { key: 'bodyOhms', label: 'Body resistance', type: 'number', unit: 'Ω', optional: true },
 ];
 
@@ -93,6 +100,7 @@ export function toFormValues(fields: FieldSpec[], source: Record<string, unknown
     const v = source[f.key];
     if (f.type === 'boolean') out[f.key] = v ? 'true' : 'false';
     else if (f.type === 'length') out[f.key] = typeof v === 'number' ? lengthInputValue(v, units) : '';
+    else if (typeof v === 'number' && f.type === 'number') out[f.key] = shownNumber(f, v, units);
     else out[f.key] = v === undefined || v === null ? '' : String(v);
   }
   return out;
@@ -124,7 +132,7 @@ export function buildFromForm(fields: FieldSpec[], values: FormValues, base: Rec
       else errors[f.key] = `${f.label} ${r.message}`;
     } else if (f.type === 'number' || f.numeric) {
       const r = parseNumber(raw);
-      if (r.ok) next[f.key] = r.value;
+      if (r.ok) next[f.key] = units === 'imperial' && f.imperial ? r.value * f.imperial.factor : r.value;
       else errors[f.key] = `${f.label} ${r.message}`;
     } else next[f.key] = raw;
   }

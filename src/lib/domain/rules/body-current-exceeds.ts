@@ -1,4 +1,4 @@
-import { amps, factor, kiloamps, seconds, volts } from './format';
+import { amps, factor, formatKiloamps, seconds, volts } from './format';
 import { bodyKgOf, type Finding, type RuleContext } from './types';
 
 export const BODY_CURRENT_EXCEEDS = 'body-current-exceeds';
@@ -21,7 +21,7 @@ export function checkBodyCurrentExceeds(ctx: RuleContext): Finding[] {
         severity: 'blocker' as const,
         elements: [contact.worker, contact.surface],
         message:
-          `If the line were re-energized with ${kiloamps(ctx.fault.injectedKa)} (decrement factor ${factor(ctx.fault.decrementFactor)}), ${ctx.model.nameOf(contact.worker)} touching ${ctx.model.nameOf(contact.surface)} would see ${volts(touchVolts)}${capped} and carry ${amps(bodyAmps)}, ` +
+          `If the line were re-energized with ${formatKiloamps(ctx.fault.injectedKa)} (decrement factor ${factor(ctx.fault.decrementFactor)}), ${ctx.model.nameOf(contact.worker)} touching ${ctx.model.nameOf(contact.surface)} would see ${volts(touchVolts)}${capped} and carry ${amps(bodyAmps)}, ` +
           `above the ${amps(limitAmps)} a ${kg} kg person tolerates for ${seconds(ctx.fault.durationS)}; ` +
           'install the grounds at the work location so the worker is inside them, with shorter, heavier leads to one cluster bar.',
         basis: `IEEE Std 80 (Dalziel, ${kg} kg)`,

@@ -1,6 +1,6 @@
 import { capitalise } from '../plan-model';
 import { BOND_DEFAULT_OHMS } from '../calc/network';
-import { kiloamps, ohms } from './format';
+import { formatKiloamps, ohms } from './format';
 import type { Finding, RuleContext } from './types';
 
 export const BOND_FAULT_CURRENT = 'bond-fault-current';
@@ -21,7 +21,7 @@ export function checkBondFaultCurrent(ctx: RuleContext): Finding[] {
             rule: BOND_FAULT_CURRENT,
             severity: 'note' as const,
             elements: [bond.link],
-            message: `${name} carries up to ${kiloamps(bond.currentKa)} of fault current in the check; make sure it can, or add a rated jumper beside it.`,
+            message: `${name} carries up to ${formatKiloamps(bond.currentKa)} of fault current in the check; make sure it can, or add a rated jumper beside it.`,
             basis: 'OSHA 29 CFR 1910.269(n)(4)(i); Bondmap network solve',
           }
         : {
@@ -29,7 +29,7 @@ export function checkBondFaultCurrent(ctx: RuleContext): Finding[] {
             severity: 'warning' as const,
             elements: [bond.link],
             message:
-              `${name} carries up to ${kiloamps(bond.currentKa)} of fault current in the check, with its resistance taken as ${ohms(BOND_DEFAULT_OHMS)} because none was given; ` +
+              `${name} carries up to ${formatKiloamps(bond.currentKa)} of fault current in the check, with its resistance taken as ${ohms(BOND_DEFAULT_OHMS)} because none was given; ` +
               'measure it and enter it, or add a rated jumper beside it.',
             basis: 'OSHA 29 CFR 1910.269(n)(4)(i); Bondmap plan format (bond default 0.0001 Ω)',
           },

@@ -1,7 +1,7 @@
 import { CABLE_SIZES, type CableSize } from '../../schemas/plan';
 import { capitalise } from '../plan-model';
 import { BELOW_MINIMUM_CABLES } from './cable-below-minimum';
-import { cableName, kiloamps, seconds } from './format';
+import { cableName, formatKiloamps, seconds } from './format';
 import type { Finding, RuleContext } from './types';
 
 export const CABLE_UNDERRATED = 'cable-underrated';
@@ -35,8 +35,8 @@ export function checkCableUnderrated(ctx: RuleContext): Finding[] {
         severity: 'blocker' as const,
         elements: [jumper.id],
         message:
-          `${capitalise(ctx.model.nameOf(jumper.id))} (${cableName(jumper.cable)}) is rated ${kiloamps(cableRatingKa)} for ${seconds(ctx.fault.durationS)} ` +
-          `but must carry ${kiloamps(dutyKa)}; ${fix}.`,
+          `${capitalise(ctx.model.nameOf(jumper.id))} (${cableName(jumper.cable)}) is rated ${formatKiloamps(cableRatingKa)} for ${seconds(ctx.fault.durationS)} ` +
+          `but must carry ${formatKiloamps(dutyKa)}; ${fix}.`,
         basis: 'OSHA 29 CFR 1910.269(n)(4)(i); ASTM F855 grade table',
       },
     ];

@@ -1,4 +1,4 @@
-import { kiloamps, seconds } from './format';
+import { formatKiloamps, seconds } from './format';
 import type { Finding, RuleContext } from './types';
 
 export const CLAMP_UNDERRATED = 'clamp-underrated';
@@ -18,8 +18,8 @@ export function checkClampUnderrated(ctx: RuleContext): Finding[] {
         severity: 'blocker' as const,
         elements: [figures.link],
         message:
-          `The clamps of ${ctx.model.nameOf(figures.link)} are good for ${kiloamps(clampRatingKa)} over ${seconds(ctx.fault.durationS)} ` +
-          `but the fault duty is ${kiloamps(dutyKa)}; use clamps rated for at least that.`,
+          `The clamps of ${ctx.model.nameOf(figures.link)} are good for ${formatKiloamps(clampRatingKa)} over ${seconds(ctx.fault.durationS)} ` +
+          `but the fault duty is ${formatKiloamps(dutyKa)}; use clamps rated for at least that.`,
         basis: 'OSHA 29 CFR 1910.269(n)(4)(i); an assembly is rated by its weakest part (ASTM F855 scope)',
       },
     ];

@@ -1,5 +1,5 @@
 import type { LinkOf } from '../../schemas/plan';
-import { cableName, kiloamps, listOf, metres } from './format';
+import { cableName, formatKiloamps, listOf, metres } from './format';
 import type { Finding, RuleContext } from './types';
 
 export const SET_DIFFERS = 'set-differs';
@@ -12,7 +12,7 @@ function differences(drawn: Jumper, used: Jumper): string[] {
   const out: string[] = [];
   if (drawn.cable !== used.cable) out.push(`cable ${cableName(drawn.cable)} (set: ${cableName(used.cable)})`);
   if (Math.abs(drawn.lengthM - used.lengthM) > LENGTH_TOLERANCE_M) out.push(`length ${metres(drawn.lengthM)} (set: ${metres(used.lengthM)})`);
-  if (drawn.clampKa !== undefined && drawn.clampKa !== used.clampKa) out.push(`clamp rating ${kiloamps(drawn.clampKa)} (set: ${kiloamps(used.clampKa ?? NaN)})`);
+  if (drawn.clampKa !== undefined && drawn.clampKa !== used.clampKa) out.push(`clamp rating ${formatKiloamps(drawn.clampKa)} (set: ${formatKiloamps(used.clampKa ?? NaN)})`);
   if (drawn.clampCycles !== undefined && drawn.clampCycles !== used.clampCycles) out.push(`clamp rating time ${drawn.clampCycles} cycles (set: ${used.clampCycles} cycles)`);
   if (drawn.clampKind !== undefined && drawn.clampKind !== used.clampKind) out.push(`clamp kind ${drawn.clampKind} (set: ${used.clampKind})`);
   if (drawn.connection !== undefined && drawn.connection !== used.connection) out.push(`connection ${drawn.connection} (set: ${used.connection})`);

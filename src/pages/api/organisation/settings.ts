@@ -1,0 +1,17 @@
+import { getDb } from '../../../../db/connection';
+import { getOrganisationSettings, saveOrganisationSettings } from '../../../../db/repositories/organisation-settings';
+import { organisationSettingsBody } from '../../../lib/schemas/organisation';
+import { requireRole, requireUser } from '../../../lib/server/guards';
+import { endpoint, json, readJson } from '../../../lib/server/http';
+
+/** The organisation's time zone, paper size and default units; anyone signed in reads, an admin saves. */
+export const GET = endpoint(async (ctx) => {
+  const person = requireUser(ctx);
+  return json({ settings: await getOrganisationSettings(getDb(), person.organizationId) });
+});
+
+export const PUT = endpoint(async (ctx) => {
+  const person = requireRole(ctx, 'admin');
+  const body = await readJson(ctx, organisationSettingsBody);
+  return json({ settings: await saveOrganisationSettings(getDb(), person.organizationId, person.id, body) });
+});

@@ -1,0 +1,84 @@
+/** The organisation's time zone, paper size and units: saved by an admin, by field on error, used for times on pages. */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { Client, signedIn } from '../helpers/api';
+import { closeTestDb, makeTeam, PASSWORD, planDocument } from '../helpers/factories';
+
+let admin: Client;
+let lead: Client;
+let reviewer: Client;
+beforeAll(async () => {
+  const team = await makeTeam();
+  admin = await signedIn(team.admin.email, PASSWORD);
+  lead = await signedIn(team.lead.email, PASSWORD);
+  reviewer = await signedIn(team.reviewer.email, PASSWORD);
+});
+afterAll(closeTestDb);
+
+describe('organisation settings', () => {
+  it('starts from the server zone, letter and imperial, and keeps the equipment interval unchosen after a save', async () => {
+    const first = await admin.get('/api/organisation/settings');
+    expect(first.body.settings).toMatchObject({ timeZoneIsDefault: true, paperSize: 'letter', units: 'imperial' });
+    expect(first.body.settings.timeZone).toBe(Intl.DateTimeFormat().resolvedOptions().timeZone);
+    const saved = await admin.put('/api/organisation/settings', { timeZone: 'Pacific/Kiritimati', paperSize: 'a4', units: 'metric' });
+    expect(saved.status).toBe(200);
+    expect((await lead.get('/api/organisation/settings')).body.settings).toEqual({ timeZone: 'Pacific/Kiritimati', timeZoneIsDefault: false, paperSize: 'a4', units: 'metric' });
+    expect((await admin.get('/api/equipment/settings')).body.settings).toEqual({ testIntervalMonths: 12, intervalIsDefault: true, resistanceLimits: [] });
+    // Saving the equipment settings afterwards keeps the general ones.
+    await admin.put('/api/equipment/settings', { testIntervalMonths: 6 });
+    expect((await admin.get('/api/organisation/settings')).body.settings.timeZone).toBe('Pacific/Kiritimati');
+  });
+
+  it('refuses a bad zone and paper size by field, and a crew lead may not save', async () => {
+    const bad = await admin.put('/api/organisation/settings', { timeZone: 'Somewhere/Else', paperSize: 'legal', units: 'imperial' });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.issues.map((i: { path: string }) => i.path).sort()).toEqual(['paperSize', 'timeZone']);
+    expect((await lead.put('/api/organisation/settings', { timeZone: 'UTC', paperSize: 'letter', units: 'imperial' })).status).toBe(403);
+  });
+
+  it('shows plan times in the organisation zone (UTC+14 here), not UTC', async () => {
+    await admin.put('/api/organisation/settings', { timeZone: 'Pacific/Kiritimati', paperSize: 'letter', units: 'imperial' });
+    const created = await lead.post('/api/plans', { title: 'Zone check pole', document: planDocument() });
+    expect(created.status).toBe(201);
+    const page = await lead.get('/plans');
+    expect(page.body).toContain('GMT+14');
+    expect(page.body).not.toMatch(/\d{2}:\d{2} UTC/);
+  });
+
+  it('has an admin-only settings page that names the bad field', async () => {
+    expect((await lead.get('/settings')).status).toBe(403);
+    const form = new URLSearchParams({ timeZone: 'Nowhere', paperSize: 'letter', units: 'imperial' }).toString();
+    const page = await admin.request('POST', '/settings', { body: form, headers: { 'content-type': 'application/x-www-form-urlencoded', origin: new URL(admin.baseUrl).origin } });
+    expect(page.body).toContain('Time zone must be a time zone name');
+    expect((await admin.get('/api/organisation/settings')).body.settings.timeZone).toBe('Pacific/Kiritimati');
+  });
+
+  it('shows body current on the review page in milliamperes, as the editor does', async () => {
+    const plan = (await lead.post('/api/plans', { title: 'Milliampere pole', document: planDocument() })).body.plan;
+    expect((await lead.post(`/api/plans/${plan.id}/submit`)).status).toBe(200);
+    const page = await reviewer.get(`/plans/${plan.id}/review`);
+    expect(page.status).toBe(200);
+    expect(page.body).toContain('Body current (mA)');
+    expect(page.body).not.toContain('Body A');
+    const row = /<td>W1<\/td><td>A<\/td><td>[^<]*<\/td><td>([^<]*)<\/td>/.exec(page.body);
+    expect(row?.[1]).toMatch(/^\d+$/);
+  });
+
+  it('words the review page findings in feet for an organisation in feet', async () => {
+    await admin.put('/api/organisation/settings', { timeZone: 'UTC', paperSize: 'letter', units: 'imperial' });
+    const base = planDocument();
+    const document = {
+      ...base,
+      nodes: [...base.nodes, { id: 'R9', kind: 'ground-rod', lengthM: 2.4384, diameterMm: 15.875, soilOhmM: 100 }],
+      links: [...base.links, { id: 'jR9', kind: 'jumper', from: 'CB', to: 'R9', cable: '2/0', lengthM: 3, spanM: 2.5 }],
+    };
+    const plan = (await lead.post('/api/plans', { title: 'Feet findings pole', document })).body.plan;
+    const stored = plan.report.findings.find((f: { rule: string }) => f.rule === 'rod-barricade');
+    expect(stored.message).toMatch(/\d m\b/);
+    expect((await lead.post(`/api/plans/${plan.id}/submit`)).status).toBe(200);
+    const page = await reviewer.get(`/plans/${plan.id}/review`);
+    const section = page.body.slice(page.body.indexOf('data-testid="review-findings"'));
+    const barricade = /<code class="text-sm">rod-barricade<\/code>\s*<p>([^<]*)<\/p>/.exec(section);
+    expect(barricade?.[1]).toMatch(/\d+ ft \d+ in/);
+    expect(barricade?.[1]).not.toMatch(/\d m\b/);
+  });
+});
