@@ -83,6 +83,10 @@ export default function Editor({ plan, readOnly, approval = null, pins, canSubmi
   const columns = panels.tools && panels.props ? 'md:grid-cols-[13rem_1fr_20rem]' : panels.tools ? 'md:grid-cols-[13rem_1fr]' : panels.props ? 'md:grid-cols-[1fr_20rem]' : 'md:grid-cols-1';
   const [busy, setBusy] = useState<string | null>(null);
   const [importIssues, setImportIssues] = useState<{ name: string; issues: PlanIssue[] } | null>(null);
+  // A page around the island (the review page's "Pin to") hears which element was tapped.
+  useEffect(() => store.subscribe((s, prev) => {
+    if (s.selection !== prev.selection && s.selection.length === 1) window.dispatchEvent(new CustomEvent('bondmap:element-selected', { detail: { id: s.selection[0] } }));
+  }), [store]);
   useEffect(() => {
     const before = () => flushSync(() => setSheetOpen(true));
     const after = () => setSheetOpen(false);

@@ -1,5 +1,5 @@
 /**
- * Output of a plan: the drawing as PNG (html-to-image), a one-sheet PNG of the print view, a PDF
+ * Output of a plan: a PNG painted from the document (title, drawing, findings, caution), a PDF
  * (jspdf) with the drawing, system data, findings, contact and jumper figures, revision,
  * approval block and caution, and the plan JSON. The PDF is written as text, not a picture, so
  * it can be searched and read back.
