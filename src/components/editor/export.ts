@@ -63,7 +63,7 @@ export async function renderPlanPng(doc: PlanDocument, report: CheckReport | nul
   const canvas = document.createElement('canvas');
   canvas.width = W;
   canvas.height = H;
-  const ctx = canvas.getContext('2d');
+  const ctx = canvas.getContext('2d', { alpha: false });
   if (!ctx) throw new Error('This browser cannot draw the picture.');
   ctx.fillStyle = '#ffffff';
   ctx.fillRect(0, 0, W, H);
