@@ -1,4 +1,4 @@
-import { mkdirSync, readFileSync } from 'node:fs';
+import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import type { Page } from 'playwright-core';
 import { extractText, getDocumentProxy } from 'unpdf';
 import { expect, it } from 'vitest';
@@ -83,7 +83,12 @@ it('a crew lead draws from a starter, sees the check follow each change, reloads
   const download = await downloadPromise;
   expect(download.suggestedFilename()).toMatch(/^editor-flow-\d+-r\d+\.pdf$/);
   const bytes = readFileSync((await download.path())!);
+  mkdirSync('artifacts', { recursive: true });
   expect(bytes.length).toBeLessThan(1024 * 1024);
+  writeFileSync('artifacts/editor-sheet.pdf', bytes);
+  // The drawing is vectors from the document, not a picture: no image in the file, and every
+  // element's id reads back as text.
+  expect(bytes.toString('latin1')).not.toMatch(/\/Subtype\s*\/Image/);
   const pdf = await getDocumentProxy(new Uint8Array(bytes));
   // US Letter by default: 8.5 × 11 in is 612 × 792 points.
   expect((await pdf.getPage(1)).view.map(Math.round)).toEqual([0, 0, 612, 792]);
@@ -97,6 +102,8 @@ it('a crew lead draws from a starter, sees the check follow each change, reloads
   expect(flat(text)).toContain('Structure: Pole 7 (wood)');
   expect(flat(text)).toContain('Crew sign-on');
   expect(flat(text)).toContain('test for absence of voltage');
+  for (const id of ['BK2', 'W2', 'R1', 'CB']) expect(flat(text)).toContain(` ${id} `);
+  expect(flat(text)).toMatch(/j1 · \d/);
 
   mkdirSync('artifacts', { recursive: true });
   await page.screenshot({ path: 'artifacts/editor.png' });

@@ -10,6 +10,7 @@ import { edgeTypes } from './edges/LinkEdge';
 import { nodeTypes } from './nodes/PlanNodeView';
 import { ContextMenu, type MenuItem } from './panels/ContextMenu';
 import { DRAG_TYPE } from './panels/Palette';
+import { ZoomBand } from './ZoomBand';
 import { GRID } from './store';
 import { toFlowEdges, toFlowNodes, useEditor, useEditorStore, type NodeSize, type NodeSizes } from './selectors';
 import type { Point } from './plan-ops';
@@ -244,6 +245,7 @@ export function Canvas({ onInit, onTapNode }: CanvasProps) {
       >
         <Background gap={GRID} size={1} color="#d0d5dd" />
         <Controls showInteractive={false} className="no-print" />
+        <ZoomBand target={wrapper} />
       </ReactFlow>
       {menu && <ContextMenu x={menu.x} y={menu.y} title={menu.id ?? 'Canvas'} items={menuItems(menu.id)} onClose={() => setMenu(null)} />}
     </div>

@@ -14,7 +14,7 @@ import type { CheckReport } from '../../lib/domain/report';
 import { parsePlan, type NodeKind, type PlanDocument, type PlanIssue } from '../../lib/schemas/plan';
 import { createApi } from './api-client';
 import { Canvas } from './Canvas';
-import { buildPdf, downloadBlob, fileBase, planJsonText, renderDrawingPng, renderElementPng, type SheetMeta } from './export';
+import { buildPdf, downloadBlob, fileBase, planJsonText, nodeWidths, renderPlanPng, type SheetMeta } from './export';
 import { commandFor, isTypingTarget } from './keyboard';
 import { BondCaution } from './panels/BondCaution';
 import { SignedOutDialog } from './panels/SignedOutDialog';
@@ -70,7 +70,6 @@ export default function Editor({ plan, readOnly, approval = null, pins, canSubmi
   const [{ store, restored }] = useState(() => initStore(plan, readOnly, pins, explanations, drafts));
   const rf = useRef<ReactFlowInstance | null>(null);
   const sync = useRef<SyncHandle | null>(null);
-  const sheet = useRef<HTMLDivElement>(null);
   const canvasBox = useRef<HTMLDivElement>(null);
   const conflict = useStore(store, (s) => s.conflict);
   const message = useStore(store, (s) => s.message);
@@ -86,7 +85,10 @@ export default function Editor({ plan, readOnly, approval = null, pins, canSubmi
   const columns = panels.tools && panels.props ? 'md:grid-cols-[13rem_1fr_20rem]' : panels.tools ? 'md:grid-cols-[13rem_1fr]' : panels.props ? 'md:grid-cols-[1fr_20rem]' : 'md:grid-cols-1';
   const [busy, setBusy] = useState<string | null>(null);
   const [importIssues, setImportIssues] = useState<{ name: string; issues: PlanIssue[] } | null>(null);
-  const [drawing, setDrawing] = useState<string | null>(null);
+  // A page around the island (the review page's "Pin to") hears which element was tapped.
+  useEffect(() => store.subscribe((s, prev) => {
+    if (s.selection !== prev.selection && s.selection.length === 1) window.dispatchEvent(new CustomEvent('bondmap:element-selected', { detail: { id: s.selection[0] } }));
+  }), [store]);
   useEffect(() => {
     const before = () => flushSync(() => setSheetOpen(true));
     const after = () => setSheetOpen(false);
@@ -212,7 +214,7 @@ export default function Editor({ plan, readOnly, approval = null, pins, canSubmi
     return () => window.removeEventListener('keydown', onKey);
   }, [store]);
 
-  const meta: SheetMeta = { planId: plan.id, revision: baseRevision, status: plan.status, approval, structure: plan.structure, preparer: plan.preparer, date: plan.date };
+  const meta: SheetMeta = { planId: plan.id, revision: baseRevision, status: plan.status, approval, structure: plan.structure, preparer: plan.preparer, date: plan.date, paper: plan.paperSize };
   // Submitting saves first (the server checks what it has), then reloads into the read-only view.
   const doSubmit = async () => {
     const blockers = store.getState().report?.summary.blockers ?? 0;
@@ -240,23 +242,13 @@ export default function Editor({ plan, readOnly, approval = null, pins, canSubmi
     if (what === 'json') return downloadBlob(new Blob([planJsonText(s.doc)], { type: 'application/json' }), `${base}.json`);
     setBusy(what === 'pdf' ? 'Making PDF…' : 'Making PNG…');
     try {
-      const picture = canvasBox.current ? await renderDrawingPng(canvasBox.current, 1600, 1000, what === 'pdf' ? 'jpeg' : 'png') : null;
-      if (what === 'pdf') downloadBlob(await buildPdf(s.doc, s.report, meta, picture, s.units), `${base}.pdf`);
-      else {
-        flushSync(() => {
-          setDrawing(picture);
-          setSheetOpen(true);
-        });
-        await new Promise((r) => setTimeout(r, 50));
-        const url = await renderElementPng(sheet.current!);
-        downloadBlob(await (await fetch(url)).blob(), `${base}.png`);
-      }
+      const widths = nodeWidths(canvasBox.current);
+      if (what === 'pdf') downloadBlob(await buildPdf(s.doc, s.report, meta, widths, s.units), `${base}.pdf`);
+      else downloadBlob(await renderPlanPng(s.doc, s.report, meta, widths), `${base}.png`);
     } catch (err) {
       s.showMessage(`Export failed: ${(err as Error).message}`);
     } finally {
       setBusy(null);
-      setDrawing(null);
-      setSheetOpen(false);
     }
   };
   const doImport = async (file: File) => {
@@ -303,8 +295,8 @@ export default function Editor({ plan, readOnly, approval = null, pins, canSubmi
           </div>
           <div className="no-print"><Drawer onShow={centreOn} /></div>
         </div>
-        <div className="bm-print-only" aria-hidden={!drawing}>
-          {sheetOpen && <PrintSheet ref={sheet} doc={store.getState().doc} report={store.getState().report} meta={meta} units={store.getState().units} drawing={drawing} />}
+        <div className="bm-print-only" aria-hidden="true">
+          {sheetOpen && <PrintSheet doc={store.getState().doc} report={store.getState().report} meta={meta} units={store.getState().units} widths={nodeWidths(canvasBox.current)} />}
         </div>
         {conflict && (
           <ConflictDialog yourRevision={baseRevision} currentRevision={conflict.currentRevision}

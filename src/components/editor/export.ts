@@ -1,5 +1,5 @@
 /**
- * Output of a plan: the drawing as PNG (html-to-image), a one-sheet PNG of the print view, a PDF
+ * Output of a plan: a PNG painted from the document (title, drawing, findings, caution), a PDF
  * (jspdf) with the drawing, system data, findings, contact and jumper figures, revision,
  * approval block and caution, and the plan JSON. The PDF is written as text, not a picture, so
  * it can be searched and read back.
@@ -7,6 +7,7 @@
 import { CAUTION, type CheckReport } from '../../lib/domain/report';
 import { formatLength, type UnitSystem } from '../../lib/domain/units';
 import type { PlanDocument } from '../../lib/schemas/plan';
+import type { Shape } from './drawing-scene';
 
 export type PaperSize = 'letter' | 'a4';
 
@@ -41,35 +42,54 @@ export function downloadBlob(blob: Blob, name: string): void {
 
 export const planJsonText = (doc: PlanDocument): string => `${JSON.stringify(doc, null, 2)}\n`;
 
-/**
- * The drawing alone: every node fitted into a picture, whatever the current pan and zoom. JPEG
- * for the PDF (a fraction of the size of a PNG of the same drawing), PNG for the PNG export.
- */
-export async function renderDrawingPng(root: HTMLElement, width = 1600, height = 1000, format: 'png' | 'jpeg' = 'png'): Promise<string> {
-  const { toJpeg, toPng } = await import('html-to-image');
-  const { getRectOfNodes, getTransformForBounds } = await import('reactflow');
-  const viewport = root.querySelector('.react-flow__viewport') as HTMLElement | null;
-  if (!viewport) throw new Error('The drawing is not on screen.');
-  const nodes = [...root.querySelectorAll<HTMLElement>('.react-flow__node')].map((el) => {
-    const m = /translate\(([-\d.]+)px,\s*([-\d.]+)px\)/.exec(el.style.transform);
-    return { id: el.dataset.id ?? '', position: { x: Number(m?.[1] ?? 0), y: Number(m?.[2] ?? 0) }, width: el.offsetWidth, height: el.offsetHeight, data: null };
-  });
-  const bounds = getRectOfNodes(nodes);
-  const [x, y, zoom] = getTransformForBounds(bounds, width, height, 0.2, 2, 0.08);
-  return (format === 'jpeg' ? toJpeg : toPng)(viewport, {
-    backgroundColor: '#ffffff',
-    quality: 0.85,
-    pixelRatio: 1,
-    width,
-    height,
-    style: { width: `${width}px`, height: `${height}px`, transform: `translate(${x}px, ${y}px) scale(${zoom})` },
-  });
+/** The nodes' rendered widths when the canvas is on screen (a long label widens a node). */
+export function nodeWidths(root: HTMLElement | null): Record<string, number> {
+  const out: Record<string, number> = {};
+  for (const el of root?.querySelectorAll<HTMLElement>('.react-flow__node') ?? []) if (el.dataset.id) out[el.dataset.id] = el.offsetWidth;
+  return out;
 }
 
-/** A picture of any element (the print sheet), white background. */
-export async function renderElementPng(el: HTMLElement): Promise<string> {
-  const { toPng } = await import('html-to-image');
-  return toPng(el, { backgroundColor: '#ffffff', pixelRatio: 1.5 });
+/**
+ * The PNG: title, header line, the drawing from the document, the findings one to a line and
+ * the caution, painted straight onto a canvas (no copy of the page, so it takes milliseconds).
+ */
+export async function renderPlanPng(doc: PlanDocument, report: CheckReport | null, meta: SheetMeta, widths: Record<string, number>): Promise<Blob> {
+  const { drawingScene } = await import('./drawing-scene');
+  const { paintCanvas, CANVAS_FONT } = await import('./drawing-paint');
+  await document.fonts?.ready;
+  const W = 1600;
+  const findings = report?.findings ?? [];
+  const H = 1000 + 150 + 26 * Math.min(findings.length, 30) + 90;
+  const canvas = document.createElement('canvas');
+  canvas.width = W;
+  canvas.height = H;
+  const ctx = canvas.getContext('2d', { alpha: false });
+  if (!ctx) throw new Error('This browser cannot draw the picture.');
+  ctx.fillStyle = '#ffffff';
+  ctx.fillRect(0, 0, W, H);
+  ctx.fillStyle = '#1b2330';
+  const write = (text: string, y: number, size: number, bold = false) => {
+    ctx.font = `${bold ? 700 : 400} ${size}px ${CANVAS_FONT}`;
+    ctx.textAlign = 'left';
+    ctx.fillStyle = '#1b2330';
+    ctx.fillText(text, 40, y, W - 80);
+  };
+  write(doc.title, 56, 34, true);
+  write(`Structure: ${meta.structure?.trim() || '—'} · Date: ${meta.date ?? '—'} · Prepared by ${meta.preparer || '—'} · Plan ${meta.planId} · revision ${meta.revision} · status ${meta.status}`, 96, 20);
+  ctx.save();
+  ctx.translate(0, 120);
+  paintCanvas(ctx, drawingScene(doc, report, W, 1000, widths));
+  ctx.restore();
+  let y = 1160;
+  write(!report ? 'Findings: not checked.' : findings.length ? 'Findings' : 'Findings: clear - the check found nothing to fix.', y, 24, true);
+  const word = { blocker: 'BLOCKER', warning: 'WARNING', note: 'NOTE' } as const;
+  for (const fd of findings.slice(0, 30)) write(`[${word[fd.severity]}] ${fd.message} (${fd.elements.join(', ')})`, (y += 26), 18);
+  if (findings.length > 30) write(`… and ${findings.length - 30} more in the PDF sheet.`, (y += 26), 18);
+  write(CAUTION.slice(0, CAUTION.indexOf('. ') + 1), (y += 44), 16, true);
+  write(CAUTION.slice(CAUTION.indexOf('. ') + 2), (y += 24), 16);
+  // toDataURL, not toBlob: Chromium encodes toBlob in idle time, which on a busy page waits ~1 s.
+  const bytes = Uint8Array.from(atob(canvas.toDataURL('image/png').split(',')[1]), (c) => c.charCodeAt(0));
+  return new Blob([bytes], { type: 'image/png' });
 }
 
 /**
@@ -85,10 +105,16 @@ export function pdfText(text: string): string {
 /** Paper sizes in mm. */
 export const PAPER: Record<PaperSize, { w: number; h: number }> = { letter: { w: 215.9, h: 279.4 }, a4: { w: 210, h: 297 } };
 
+const shift = (s: Shape, dx: number, dy: number): Shape =>
+  s.t === 'poly' ? { ...s, pts: s.pts.map((v, i) => v + (i % 2 ? dy : dx)) } : { ...s, x: s.x + dx, y: s.y + dy };
+
 const f = (v: number | null | undefined, d = 2) => (v === null || v === undefined ? '-' : v.toLocaleString('en', { maximumFractionDigits: d }));
 
-/** Builds the PDF sheet; `drawingPng` is a data URL of the drawing, or null to leave a note. */
-export async function buildPdf(doc: PlanDocument, report: CheckReport | null, meta: SheetMeta, drawingPng: string | null, units: UnitSystem): Promise<Blob> {
+/**
+ * Builds the PDF sheet. The drawing is drawn as vectors from the document; `widths` are the
+ * nodes' rendered widths when the canvas is on screen (see `nodeWidths`).
+ */
+export async function buildPdf(doc: PlanDocument, report: CheckReport | null, meta: SheetMeta, widths: Record<string, number>, units: UnitSystem): Promise<Blob> {
   const { jsPDF } = await import('jspdf');
   const { embedFonts, fontRuns, LATIN } = await import('./pdf-font');
   const paper = meta.paper ?? 'letter';
@@ -132,12 +158,18 @@ export async function buildPdf(doc: PlanDocument, report: CheckReport | null, me
   line(meta.approval ? `Approved by ${meta.approval.by} on ${meta.approval.at}${meta.approval.hash ? ` - document ${meta.approval.hash}` : ''}` : 'Not approved yet', 10, false, 3);
   y += 4;
   gap();
-  if (drawingPng) {
+  if (doc.nodes.length) {
+    const { drawingScene } = await import('./drawing-scene');
+    const { paintPdf } = await import('./drawing-paint');
     const h = (W - 2 * M) * 0.625;
     ensure(h);
-    pdf.addImage(drawingPng, drawingPng.startsWith('data:image/jpeg') ? 'JPEG' : 'PNG', M, y, W - 2 * M, h, undefined, 'FAST');
+    pdf.setDrawColor(208, 213, 221);
+    pdf.setLineWidth(0.2);
+    pdf.rect(M, y, W - 2 * M, h);
+    const shapes = drawingScene(doc, report, W - 2 * M, h, widths).map((sh) => shift(sh, M, y));
+    paintPdf(pdf, shapes, LATIN, pdfText);
     y += h + 4;
-  } else line('(Drawing not available)', 10);
+  } else line('(Nothing drawn yet)', 10);
 
   const s = doc.system;
   line('System data', 12, true);

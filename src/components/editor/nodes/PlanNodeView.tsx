@@ -35,7 +35,7 @@ export function PinMarkers({ id, className }: { id: string; className: string })
   return (
     <span className={`flex gap-0.5 ${className}`} data-testid={`pin-${id}`} title={`Review comment${numbers.length > 1 ? 's' : ''} ${numbers.join(', ')}`}>
       {numbers.map((n) => (
-        <span key={n} className="flex h-6 min-w-6 items-center justify-center rounded-full bg-ink px-1 text-xs font-bold text-white num">{n}</span>
+        <span key={n} className="bm-pin flex h-6 min-w-6 items-center justify-center rounded-full bg-ink px-1 text-xs font-bold text-white num" data-pin={n}>{n}</span>
       ))}
     </span>
   );
@@ -70,9 +70,9 @@ export const PlanNodeView = memo(function PlanNodeView({ id, data, selected }: N
         {data.kind === 'worker' && <WorkerBadge id={id} />}
         <PinMarkers id={id} className="absolute -right-3 -top-3" />
       </div>
-      <div className="mt-1 max-w-[8rem] text-center text-xs leading-tight">
+      <div className="bm-label mt-1 max-w-[8rem] text-center text-xs leading-tight">
         <span className="font-semibold">{id}</span>
-        {data.label && data.label !== id ? <span className="block truncate text-note">{data.label}</span> : null}
+        {data.label && data.label !== id ? <span className="bm-label-detail block truncate text-note">{data.label}</span> : null}
       </div>
       <Handle type="source" position={Position.Top} className="bm-centre-handle" isConnectable={false} />
       <Handle type="target" position={Position.Top} className="bm-centre-handle" />

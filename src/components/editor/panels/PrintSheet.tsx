@@ -1,25 +1,29 @@
 /**
- * The print view of the plan (also the picture behind "Export PNG"): header with revision and
- * the approval block, the drawing, system data, findings, contact and jumper figures, caution.
+ * The print view of the plan (browser print): header with structure, date, preparer, revision and
+ * the approval block, the drawing (drawn from the document), system data, findings, contact and
+ * jumper figures, crew sign-on and the caution — the same sheet as the PDF.
  */
 import { forwardRef } from 'react';
 import { CAUTION, type CheckReport } from '../../../lib/domain/report';
 import { formatLength, type UnitSystem } from '../../../lib/domain/units';
 import type { PlanDocument } from '../../../lib/schemas/plan';
+import { drawingScene } from '../drawing-scene';
 import type { SheetMeta } from '../export';
 import { FaultTable, JumpersTable, RodsTable, WorkersTable, fmt } from './FigureTables';
 import { FindingsList } from './FindingsList';
+import { ScenePicture } from './ScenePicture';
 
-export interface PrintSheetProps { doc: PlanDocument; report: CheckReport | null; meta: SheetMeta; units: UnitSystem; drawing?: string | null }
+export interface PrintSheetProps { doc: PlanDocument; report: CheckReport | null; meta: SheetMeta; units: UnitSystem; widths?: Record<string, number> }
 
-export const PrintSheet = forwardRef<HTMLDivElement, PrintSheetProps>(function PrintSheet({ doc, report, meta, units, drawing }, ref) {
+export const PrintSheet = forwardRef<HTMLDivElement, PrintSheetProps>(function PrintSheet({ doc, report, meta, units, widths }, ref) {
   const s = doc.system;
   return (
     <div ref={ref} className="bm-sheet space-y-4 bg-white p-6 text-ink" data-testid="print-sheet">
       <header className="flex flex-wrap items-start justify-between gap-4 border-b border-ink pb-3">
         <div>
           <h1 className="text-2xl font-bold">{doc.title}</h1>
-          <p className="num">Plan {meta.planId} · revision {meta.revision} · {meta.status}</p>
+          <p>Structure: {meta.structure?.trim() || '—'} · Location: ______________ · Date: {meta.date ?? '—'}</p>
+          <p className="num">Prepared by {meta.preparer || '—'} · Plan {meta.planId} · revision {meta.revision} · {meta.status}</p>
         </div>
         <div className="min-w-[16rem] border border-ink p-2 text-sm" data-testid="approval-block">
           <p className="font-bold">Approval</p>
@@ -27,7 +31,7 @@ export const PrintSheet = forwardRef<HTMLDivElement, PrintSheetProps>(function P
           {meta.approval?.hash && <p className="break-all text-xs">Document SHA-256 {meta.approval.hash}</p>}
         </div>
       </header>
-      {drawing ? <img src={drawing} alt={`Drawing of ${doc.title}`} className="w-full border border-line" /> : <div className="bm-print-drawing-slot" />}
+      {doc.nodes.length ? <ScenePicture shapes={drawingScene(doc, report, 1000, 625, widths)} width={1000} height={625} title={`Drawing of ${doc.title}`} /> : <p>(Nothing drawn yet)</p>}
       <section>
         <h2 className="text-lg font-semibold">System data</h2>
         <p className="num">
@@ -47,6 +51,12 @@ export const PrintSheet = forwardRef<HTMLDivElement, PrintSheetProps>(function P
           <div><h2 className="text-lg font-semibold">Fault</h2><FaultTable report={report} units={units} /></div>
         </section>
       )}
+      <section className="break-inside-avoid">
+        <h2 className="text-lg font-semibold">Crew sign-on</h2>
+        <p className="text-sm">Each worker signs before the grounds go on: I have seen this plan and where I will stand.</p>
+        {[0, 1, 2, 3, 4, 5].map((i) => <div key={i} className="mt-6 grid grid-cols-3 gap-4"><span className="border-b border-ink" /><span className="border-b border-ink" /><span className="border-b border-ink" /></div>)}
+        <p className="mt-1 text-xs">Name · Signature · Time</p>
+      </section>
       <p className="border border-ink p-2 text-sm"><strong>Caution.</strong> {CAUTION}</p>
     </div>
   );
