@@ -3,6 +3,7 @@ import { idParam } from '../../lib/schemas/api';
 import { AppError } from '../../lib/server/errors';
 import { openRecord, RECORD_WRITERS } from '../../lib/server/field-records';
 import { hasRole } from '../../lib/server/guards';
+import { readForm } from '../../lib/server/forms';
 
 /**
  * "Start field record" on an approved plan's page posts here as a plain form; the same rules as
@@ -10,7 +11,8 @@ import { hasRole } from '../../lib/server/guards';
  */
 export const POST: APIRoute = async (ctx) => {
   const person = ctx.locals.person!;
-  const form = await ctx.request.formData();
+  const form = await readForm(ctx.request);
+  if (form instanceof Response) return form;
   const planId = idParam.safeParse(form.get('planId'));
   if (!planId.success) return new Response('Plan not found', { status: 404 });
   if (!hasRole(person, ...RECORD_WRITERS)) return ctx.redirect(`/plans/${planId.data}?problem=ROLE_REQUIRED`, 303);
