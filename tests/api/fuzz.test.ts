@@ -97,6 +97,8 @@ const routes: Record<string, Route> = {
   'POST /api/exercises': { method: 'POST', path: () => '/api/exercises', bodies: () => jsonBodies(['planId', 'revision', 'kind', 'removeLinks', 'changeLinks', 'prompt', 'teachingNote', 'published']) },
   'POST /api/exercises/propose': { method: 'POST', path: () => '/api/exercises/propose', bodies: () => jsonBodies(['planId', 'revision']) },
   'PATCH /api/exercises/:id': { method: 'PATCH', path: () => `/api/exercises/${ids.exercise}`, bodies: () => jsonBodies(['published']) },
+  'PUT /api/organisation/settings': { method: 'PUT', path: () => '/api/organisation/settings', bodies: () => jsonBodies(['timeZone', 'paperSize', 'units']) },
+  'POST /api/plans/:id/withdraw': { method: 'POST', path: () => `/api/plans/${ids.submitted}/withdraw`, bodies: () => jsonBodies([]) },
   'POST /api/exercises/:id/attempts': { method: 'POST', path: () => `/api/exercises/${ids.exercise}/attempts`, bodies: () => jsonBodies(['answer']) },
 };
 

@@ -44,7 +44,14 @@ function readRecords(text: string): { records: Record_[] } | { issues: CsvIssue[
 }
 
 function headerIssues(text: string): CsvIssue[] {
-  const first = (parse(text, { bom: true, to_line: 1, trim: true, relax_column_count: true }) as string[][])[0] ?? [];
+  let first: string[];
+  try {
+    first = (parse(text, { bom: true, to_line: 1, trim: true, relax_column_count: true }) as string[][])[0] ?? [];
+  } catch (error) {
+    // A header the CSV reader cannot read at all (a stray quote, an unclosed one) is a problem of line 1.
+    if (error instanceof CsvError) return [{ path: 'line 1.(header)', message: error.message }];
+    throw error;
+  }
   const issues: CsvIssue[] = [];
   for (const name of first) if (!(CSV_COLUMNS as readonly string[]).includes(name)) issues.push({ path: `line 1.${name || '(empty)'}`, message: `unknown column; the columns are ${CSV_COLUMNS.join(', ')}` });
   for (const name of REQUIRED) if (!first.includes(name)) issues.push({ path: `line 1.${name}`, message: 'column is missing' });

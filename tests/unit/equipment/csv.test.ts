@@ -42,6 +42,10 @@ describe('parseInventoryCsv', () => {
     const result = parseInventoryCsv(`${HEADER}\n${GOOD}\nGS-02,too,few\n`);
     expect(result).toMatchObject({ ok: false, issues: [{ path: 'line 3.(row)' }] });
   });
+
+  it.each(['S{"~BNp', 'tag,"cable', 'a"b,c'])('names line 1 when the header itself cannot be read (%s), never throws', (text) => {
+    expect(parseInventoryCsv(text)).toMatchObject({ ok: false, issues: [{ path: 'line 1.(header)' }] });
+  });
 });
 
 describe('export format', () => {
