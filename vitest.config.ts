@@ -1,4 +1,11 @@
+import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
+
+// The import aliases of tsconfig.json (Astro and tsx read them there; Vitest is told here).
+const alias = {
+  '@/': fileURLToPath(new URL('./src/', import.meta.url)),
+  '@db/': fileURLToPath(new URL('./db/', import.meta.url)),
+};
 
 // Four projects: pure units, React components in jsdom, the HTTP API against the built server
 // and the real MariaDB, and whole flows in Chromium. scripts/test.mjs starts the database and the
@@ -9,6 +16,7 @@ export default defineConfig({
     fileParallelism: false,
     projects: [
       {
+        resolve: { alias },
         test: {
           name: 'unit',
           include: ['tests/unit/**/*.test.ts'],
@@ -16,6 +24,7 @@ export default defineConfig({
         },
       },
       {
+        resolve: { alias },
         esbuild: { jsx: 'automatic' },
         test: {
           name: 'components',
@@ -25,6 +34,7 @@ export default defineConfig({
         },
       },
       {
+        resolve: { alias },
         test: {
           name: 'api',
           include: ['tests/api/**/*.test.ts'],
@@ -34,6 +44,7 @@ export default defineConfig({
         },
       },
       {
+        resolve: { alias },
         test: {
           name: 'e2e',
           include: ['tests/e2e/**/*.test.ts'],

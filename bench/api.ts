@@ -13,8 +13,8 @@ import { createHash, randomBytes } from 'node:crypto';
 import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { createPool, type Pool } from 'mariadb';
-import { createDb } from '../db/connection';
-import { readDbConfig } from '../db/config';
+import { createDb } from '@db/connection';
+import { readDbConfig } from '@db/config';
 import { generatePlan } from './generate-plan';
 
 export interface ApiBenchResult {

@@ -2,7 +2,7 @@
  * Plain dense complex Gaussian elimination with partial pivoting: the yardstick the sparse
  * solver is benchmarked and tested against. O(n³) time, O(n²) memory; not for production use.
  */
-import type { SymmetricEntries } from '../src/lib/domain/calc';
+import type { SymmetricEntries } from '@/lib/domain/calc';
 
 export interface DenseLu {
   size: number;

@@ -4,7 +4,7 @@
  * spans joining the structures, some driven rods, trucks and buckets, and workers with reaches.
  * All data invented.
  */
-import type { PlanDocument, PlanLink, PlanNode } from '../src/lib/schemas/plan';
+import type { PlanDocument, PlanLink, PlanNode } from '@/lib/schemas/plan';
 
 /** Mulberry32: a small, fast, seeded generator, so every run builds the same plans. */
 export function seededRandom(seed: number): () => number {

@@ -6,10 +6,10 @@
 import { writeFileSync } from 'node:fs';
 import { setFlagsFromString } from 'node:v8';
 import { runInNewContext } from 'node:vm';
-import type { PlanDocument } from '../src/lib/schemas/plan';
-import { analyseNetwork, assembleAdmittance, buildNetwork, REFERENCE } from '../src/lib/domain/calc';
-import { solveInjections, type Injection } from '../src/lib/domain/calc/batch';
-import { factorSymmetric } from '../src/lib/domain/calc/sparse';
+import type { PlanDocument } from '@/lib/schemas/plan';
+import { analyseNetwork, assembleAdmittance, buildNetwork, REFERENCE } from '@/lib/domain/calc';
+import { solveInjections, type Injection } from '@/lib/domain/calc/batch';
+import { factorSymmetric } from '@/lib/domain/calc/sparse';
 import { factorDense, solveDense } from './dense-solver';
 import { generatePlan } from './generate-plan';
 
@@ -19,7 +19,7 @@ const gc = runInNewContext('gc') as () => void;
 type Check = (plan: PlanDocument) => unknown;
 async function loadCheck(): Promise<{ name: string; check: Check }> {
   try {
-    const checker = (await import('../src/lib/domain/checker')) as { checkPlan?: Check };
+    const checker = (await import('@/lib/domain/checker')) as { checkPlan?: Check };
     if (checker.checkPlan) return { name: 'checkPlan', check: checker.checkPlan };
   } catch {
     // No checker yet: time the network analysis alone.

@@ -5,8 +5,8 @@
  */
 import { simpleParser } from 'mailparser';
 import { SMTPServer } from 'smtp-server';
-import { createDb } from '../db/connection';
-import { readDbConfig } from '../db/config';
+import { createDb } from '@db/connection';
+import { readDbConfig } from '@db/config';
 
 const port = Number(process.env.BONDMAP_SMTP_PORT ?? 2525);
 const db = createDb({ ...readDbConfig(), poolMax: 2 });

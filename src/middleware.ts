@@ -7,7 +7,7 @@
  */
 import type { MiddlewareHandler } from 'astro';
 import { defineMiddleware } from 'astro:middleware';
-import { getDb } from '../db/connection';
+import { getDb } from '@db/connection';
 import { readSession } from './lib/server/auth';
 import { AppError, isDbUnavailable } from './lib/server/errors';
 import { json, PLAN_BODY_LIMIT, serverErrorJson, tooLarge } from './lib/server/http';

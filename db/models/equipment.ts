@@ -1,7 +1,7 @@
 /** Grounding sets, their tests and events, organisation settings, and the daily mail claim. */
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
-import { CLAMP_KINDS, CONNECTIONS, SET_STATUSES, type ClampKind, type Connection, type SetStatus } from '../../src/lib/domain/equipment';
-import type { CableSize } from '../../src/lib/schemas/plan';
+import { CLAMP_KINDS, CONNECTIONS, SET_STATUSES, type ClampKind, type Connection, type SetStatus } from '@/lib/domain/equipment';
+import type { CableSize } from '@/lib/schemas/plan';
 
 export class GroundingSet extends Model<InferAttributes<GroundingSet>, InferCreationAttributes<GroundingSet>> {
   declare id: CreationOptional<number>;

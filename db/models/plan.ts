@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
-import { PLAN_STATUSES, type PlanStatus } from '../../src/lib/domain/plan-status';
+import { PLAN_STATUSES, type PlanStatus } from '@/lib/domain/plan-status';
 
 export class Plan extends Model<InferAttributes<Plan>, InferCreationAttributes<Plan>> {
   declare id: CreationOptional<number>;

@@ -1,6 +1,6 @@
 /** Practice exercises and attempts (migration 0007). JSON columns are text, parsed on the way out. */
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
-import { EXERCISE_KINDS, type ExerciseKind } from '../../src/lib/domain/practice/types';
+import { EXERCISE_KINDS, type ExerciseKind } from '@/lib/domain/practice/types';
 
 /** An exercise: a gap put into a copy of one approved revision. The revision itself is never touched. */
 export class PracticeExercise extends Model<InferAttributes<PracticeExercise>, InferCreationAttributes<PracticeExercise>> {

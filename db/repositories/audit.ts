@@ -1,5 +1,5 @@
 /** The audit trail: appended, never changed. */
-import type { Db } from '../connection';
+import type { Db } from '@db/connection';
 import type { Transaction } from 'sequelize';
 
 export interface AuditInput {

@@ -1,8 +1,8 @@
 /** The organisation's own equipment settings: test interval and resistance limits. */
 import type { Transaction } from 'sequelize';
-import { DEFAULT_TEST_INTERVAL_MONTHS, testDueOn, type ResistanceLimit } from '../../src/lib/domain/equipment';
-import type { SettingsBody } from '../../src/lib/schemas/equipment';
-import type { Db } from '../connection';
+import { DEFAULT_TEST_INTERVAL_MONTHS, testDueOn, type ResistanceLimit } from '@/lib/domain/equipment';
+import type { SettingsBody } from '@/lib/schemas/equipment';
+import type { Db } from '@db/connection';
 
 export interface EquipmentSettings {
   testIntervalMonths: number;

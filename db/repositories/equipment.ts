@@ -4,10 +4,10 @@
  * a set event.
  */
 import { Op, UniqueConstraintError, type Order, type Transaction, type WhereOptions } from 'sequelize';
-import { addDays, dueState, limitFor, testDueOn, type SetRecord } from '../../src/lib/domain/equipment';
-import type { CreateSetBody, ListSetsQuery, PatchSetBody, SetSort, SetTestBody } from '../../src/lib/schemas/equipment';
-import type { Db } from '../connection';
-import type { GroundingSet, SetEvent, SetTest } from '../models';
+import { addDays, dueState, limitFor, testDueOn, type SetRecord } from '@/lib/domain/equipment';
+import type { CreateSetBody, ListSetsQuery, PatchSetBody, SetSort, SetTestBody } from '@/lib/schemas/equipment';
+import type { Db } from '@db/connection';
+import type { GroundingSet, SetEvent, SetTest } from '@db/models';
 import { getSettings } from './equipment-settings';
 
 /** A set on the wire (the field names). */

@@ -5,11 +5,11 @@
  * (record, clientId) key makes a repeated entry answer with the stored one.
  */
 import { Op, QueryTypes, Transaction, UniqueConstraintError, type WhereOptions } from 'sequelize';
-import type { EntryBody, FieldEntry, Flag, Refusal, StoreVerdict } from '../../src/lib/domain/field-record';
-import type { RecordStatus } from '../../src/lib/schemas/field-record';
-import type { PlanDocument } from '../../src/lib/schemas/plan';
-import type { Db } from '../connection';
-import type { FieldRecord, FieldRecordEntry } from '../models';
+import type { EntryBody, FieldEntry, Flag, Refusal, StoreVerdict } from '@/lib/domain/field-record';
+import type { RecordStatus } from '@/lib/schemas/field-record';
+import type { PlanDocument } from '@/lib/schemas/plan';
+import type { Db } from '@db/connection';
+import type { FieldRecord, FieldRecordEntry } from '@db/models';
 import { recordEvent } from './audit';
 import { readStoredDocument } from './plans';
 import { nameMap } from './review';

@@ -5,11 +5,11 @@
  * documents. Approvals from before the migration are filled the first time the library reads them.
  */
 import { Op, type Transaction } from 'sequelize';
-import { libraryFacts } from '../../src/lib/domain/library-facts';
-import { PLAN_TAGS, type PlanTag } from '../../src/lib/domain/plan-tags';
-import { parseStoredReport } from '../../src/lib/schemas/report';
-import type { Db } from '../connection';
-import type { PlanDecision } from '../models';
+import { libraryFacts } from '@/lib/domain/library-facts';
+import { PLAN_TAGS, type PlanTag } from '@/lib/domain/plan-tags';
+import { parseStoredReport } from '@/lib/schemas/report';
+import type { Db } from '@db/connection';
+import type { PlanDecision } from '@db/models';
 import { nameMap } from './names';
 import { readStoredDocument } from './plans';
 

@@ -1,6 +1,6 @@
 /** People's display names by id, for lists that show who did what. */
 import type { Transaction } from 'sequelize';
-import type { Db } from '../connection';
+import type { Db } from '@db/connection';
 
 export async function nameMap(db: Db, ids: string[], transaction?: Transaction): Promise<Map<string, string>> {
   const unique = [...new Set(ids)];

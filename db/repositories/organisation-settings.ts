@@ -1,7 +1,7 @@
 /** The organisation's general settings: time zone, paper size and default units (migration 0011). */
-import type { UnitSystem } from '../../src/lib/domain/units';
-import type { OrganisationSettingsBody, PaperSize } from '../../src/lib/schemas/organisation';
-import type { Db } from '../connection';
+import type { UnitSystem } from '@/lib/domain/units';
+import type { OrganisationSettingsBody, PaperSize } from '@/lib/schemas/organisation';
+import type { Db } from '@db/connection';
 
 export interface OrganisationSettings {
   timeZone: string;

@@ -1,11 +1,11 @@
 /** People and organisations: rows in, Person out. Every look-up but sign-in is scoped to an organisation. */
 import { randomBytes } from 'node:crypto';
 import { Op, type Transaction } from 'sequelize';
-import type { Person } from '../../src/lib/domain/people';
-import { normaliseEmail } from '../../src/lib/domain/people';
-import type { Role } from '../../src/lib/domain/roles';
-import type { Db } from '../connection';
-import type { User } from '../models';
+import type { Person } from '@/lib/domain/people';
+import { normaliseEmail } from '@/lib/domain/people';
+import type { Role } from '@/lib/domain/roles';
+import type { Db } from '@db/connection';
+import type { User } from '@db/models';
 
 export function newId(): string {
   return randomBytes(12).toString('base64url');

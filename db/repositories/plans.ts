@@ -3,15 +3,15 @@
  * organisation is simply not found. Revisions are only ever inserted.
  */
 import { QueryTypes, Transaction } from 'sequelize';
-import type { PlanStatus } from '../../src/lib/domain/plan-status';
-import { isEditable } from '../../src/lib/domain/plan-status';
-import { defaultSortDir, type ListPlansQuery } from '../../src/lib/schemas/api';
-import { pruneDeep } from '../../src/lib/schemas/depth';
-import { migratePlan } from '../../src/lib/domain/plan-migrations';
-import type { CheckReport } from '../../src/lib/domain/report';
-import { planSchema, type PlanDocument } from '../../src/lib/schemas/plan';
-import { parseStoredReport } from '../../src/lib/schemas/report';
-import type { Db } from '../connection';
+import type { PlanStatus } from '@/lib/domain/plan-status';
+import { isEditable } from '@/lib/domain/plan-status';
+import { defaultSortDir, type ListPlansQuery } from '@/lib/schemas/api';
+import { pruneDeep } from '@/lib/schemas/depth';
+import { migratePlan } from '@/lib/domain/plan-migrations';
+import type { CheckReport } from '@/lib/domain/report';
+import { planSchema, type PlanDocument } from '@/lib/schemas/plan';
+import { parseStoredReport } from '@/lib/schemas/report';
+import type { Db } from '@db/connection';
 import { recordEvent } from './audit';
 
 export interface PlanSummary {

@@ -3,10 +3,10 @@
  * and its answer key as written at creation; the approved revision it came from is only read.
  */
 import { Op } from 'sequelize';
-import type { AnswerKey, ExerciseKind, GapKind, Modifications } from '../../src/lib/domain/practice/types';
-import type { PlanDocument } from '../../src/lib/schemas/plan';
-import type { Db } from '../connection';
-import type { PracticeExercise } from '../models/practice';
+import type { AnswerKey, ExerciseKind, GapKind, Modifications } from '@/lib/domain/practice/types';
+import type { PlanDocument } from '@/lib/schemas/plan';
+import type { Db } from '@db/connection';
+import type { PracticeExercise } from '@db/models/practice';
 import { readStoredDocument } from './plans';
 import { nameMap } from './review';
 

@@ -6,15 +6,15 @@
  * is a second guard.
  */
 import { Transaction, UniqueConstraintError } from 'sequelize';
-import type { PlanStatus } from '../../src/lib/domain/plan-status';
-import { judgeDecision, judgeReopen, judgeSubmit, relatedToEditors, type Decision, type PersonLink } from '../../src/lib/domain/review-guards';
-import type { Db } from '../connection';
+import type { PlanStatus } from '@/lib/domain/plan-status';
+import { judgeDecision, judgeReopen, judgeSubmit, relatedToEditors, type Decision, type PersonLink } from '@/lib/domain/review-guards';
+import type { Db } from '@db/connection';
 import { recordEvent } from './audit';
 import { storeLibraryFacts } from './library';
 import { nameMap } from './names';
 import type { StoredReport } from './plans';
 
-export type { Decision } from '../../src/lib/domain/review-guards';
+export type { Decision } from '@/lib/domain/review-guards';
 export { nameMap } from './names';
 
 type Outcome<T extends string> = { kind: 'ok' } | { kind: T; status?: PlanStatus };

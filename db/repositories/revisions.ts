@@ -1,8 +1,8 @@
 /** Reading revisions one by one, and the comments pinned to their elements. */
 import { Op } from 'sequelize';
-import type { PlanDocument } from '../../src/lib/schemas/plan';
-import { parseStoredReport } from '../../src/lib/schemas/report';
-import type { Db } from '../connection';
+import type { PlanDocument } from '@/lib/schemas/plan';
+import { parseStoredReport } from '@/lib/schemas/report';
+import type { Db } from '@db/connection';
 import { recordEvent } from './audit';
 import { readStoredDocument, type StoredReport } from './plans';
 import { listDecisions, nameMap, type DecisionRecord } from './review';

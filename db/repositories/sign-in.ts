@@ -1,9 +1,10 @@
 /** One-time password links, stored hashed (failed sign-ins are counted in db/repositories/throttle.ts). */
-import { createHash, randomBytes } from 'node:crypto';
+import { randomBytes } from 'node:crypto';
 import { Op, type Transaction } from 'sequelize';
-import type { Db } from '../connection';
+import type { Db } from '@db/connection';
+import { sha256Hex } from '@/lib/server/fingerprint';
 
-const hashToken = (token: string) => createHash('sha256').update(token).digest('hex');
+const hashToken = sha256Hex;
 
 /** Creates a one-time token for a person; returns the token itself (only its hash is stored). */
 export async function createPasswordToken(db: Db, userId: string, purpose: 'invite' | 'reset', expiresAt: Date, transaction?: Transaction): Promise<string> {

@@ -3,9 +3,9 @@
  * take locks its bucket's row (SELECT … FOR UPDATE) for the decision, so parallel attempts are
  * counted one by one: twenty at once count as twenty.
  */
-import { createHash } from 'node:crypto';
 import { QueryTypes, Transaction } from 'sequelize';
-import type { Db } from '../connection';
+import type { Db } from '@db/connection';
+import { sha256Hex } from '@/lib/server/fingerprint';
 
 export interface BucketPolicy {
   /** Length of the counting window. */
@@ -24,7 +24,7 @@ export interface BucketPolicy {
 export type TakeResult = { ok: true } | { ok: false; retryAfterMs: number };
 
 export function bucketKey(action: string, kind: string, value: string): string {
-  return `${action}:${kind}:${createHash('sha256').update(value).digest('hex')}`;
+  return `${action}:${kind}:${sha256Hex(value)}`;
 }
 
 interface Row {

@@ -3,9 +3,9 @@
  * says whether it may happen; the plan goes back to a draft at the same revision, with an audit event.
  */
 import { Transaction } from 'sequelize';
-import type { PlanStatus } from '../../src/lib/domain/plan-status';
-import { judgeWithdraw } from '../../src/lib/domain/review-guards';
-import type { Db } from '../connection';
+import type { PlanStatus } from '@/lib/domain/plan-status';
+import { judgeWithdraw } from '@/lib/domain/review-guards';
+import type { Db } from '@db/connection';
 import { recordEvent } from './audit';
 
 export type WithdrawOutcome = { kind: 'ok'; revision: number } | { kind: 'not-found' } | { kind: 'not-author' } | { kind: 'not-submitted'; status: PlanStatus };

@@ -4,12 +4,12 @@
  * service after carrying fault current, one retired), and the editable demo plans hanging some of
  * them. Resistances are invented demo figures, recorded as the tester's pass/fail (no limits ship).
  */
-import { addDays, addMonths, type Connection, type ClampKind } from '../../src/lib/domain/equipment';
-import { checkPlan } from '../../src/lib/domain/checker';
-import type { CableSize, PlanDocument } from '../../src/lib/schemas/plan';
-import type { Db } from '../connection';
-import { inventoryFor, recordTest, saveSets, updateSet } from '../repositories/equipment';
-import { getPlan, saveDraft } from '../repositories/plans';
+import { addDays, addMonths, type Connection, type ClampKind } from '@/lib/domain/equipment';
+import { checkPlan } from '@/lib/domain/checker';
+import type { CableSize, PlanDocument } from '@/lib/schemas/plan';
+import type { Db } from '@db/connection';
+import { inventoryFor, recordTest, saveSets, updateSet } from '@db/repositories/equipment';
+import { getPlan, saveDraft } from '@db/repositories/plans';
 
 type Story = 'in-date' | { soonDays: number } | 'overdue' | 'fault' | 'retired';
 interface DemoSet { tag: string; description: string; cable: CableSize; lengthM: number; lastTestMonthsAgo?: number; story: Story; clampKind?: ClampKind; connection?: Connection }

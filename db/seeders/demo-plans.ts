@@ -2,8 +2,8 @@
  * Invented demo plans for the demo organisation. Every name, place and number is made up;
  * no real utility, structure or product is described.
  */
-import type { PlanDocument, PlanLink, PlanNode } from '../../src/lib/schemas/plan';
-import type { PlanStatus } from '../../src/lib/domain/plan-status';
+import type { PlanDocument, PlanLink, PlanNode } from '@/lib/schemas/plan';
+import type { PlanStatus } from '@/lib/domain/plan-status';
 
 const system = { nominalKv: 12.47, frequencyHz: 60 as const, faultKa: 8, clearingCycles: 15, xOverR: 8, phaseSpacingM: 0.9 };
 

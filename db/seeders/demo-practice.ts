@@ -3,14 +3,14 @@
  * workflow, five exercises (a different gap each, all three kinds) and a few of the demo
  * apprentice's attempts. Everything is made up. Runs once: skipped when exercises exist.
  */
-import type { Db } from '../connection';
-import { createPlan, describeStructure } from '../repositories/plans';
-import { decidePlan, submitPlan } from '../repositories/review';
-import { addAttempt, createExercise, findApprovedRevision } from '../repositories/practice';
-import { checkPlan } from '../../src/lib/domain/checker';
-import { canonicalHash } from '../../src/lib/domain/canonical-json';
-import { gradeFind, gradeNumbers, prepareExercise, type ExerciseKind, type Modifications } from '../../src/lib/domain/practice';
-import type { PlanDocument, PlanLink, PlanNode } from '../../src/lib/schemas/plan';
+import type { Db } from '@db/connection';
+import { createPlan, describeStructure } from '@db/repositories/plans';
+import { decidePlan, submitPlan } from '@db/repositories/review';
+import { addAttempt, createExercise, findApprovedRevision } from '@db/repositories/practice';
+import { checkPlan } from '@/lib/domain/checker';
+import { fingerprint } from '@/lib/server/fingerprint';
+import { gradeFind, gradeNumbers, prepareExercise, type ExerciseKind, type Modifications } from '@/lib/domain/practice';
+import type { PlanDocument, PlanLink, PlanNode } from '@/lib/schemas/plan';
 
 const system = { nominalKv: 12.47, frequencyHz: 60 as const, faultKa: 9, clearingCycles: 15, xOverR: 9, phaseSpacingM: 0.9 };
 const jumper = (id: string, from: string, to: string, lengthM: number, spanM: number): PlanLink => ({ id, kind: 'jumper', from, to, cable: '2/0', lengthM, spanM, clampKa: 30, clampCycles: 15 });
@@ -53,7 +53,7 @@ async function approve(db: Db, organizationId: number, leadId: string, reviewerI
   const report = checkPlan(document);
   const plan = await createPlan(db, { organizationId, authorId: leadId, title: document.title, structure: describeStructure(document), document, report });
   if ((await submitPlan(db, organizationId, plan.id, leadId, report)).kind !== 'ok') throw new Error(`practice demo plan "${document.title}" cannot be submitted`);
-  const decided = await decidePlan(db, organizationId, plan.id, reviewerId, { decision: 'approve', comment: null, teachingNote: NOTES[document.title], documentHash: canonicalHash(plan.document), reportHash: canonicalHash(report), revision: 1 });
+  const decided = await decidePlan(db, organizationId, plan.id, reviewerId, { decision: 'approve', comment: null, teachingNote: NOTES[document.title], documentHash: fingerprint(plan.document), reportHash: fingerprint(report), revision: 1 });
   if (decided.kind !== 'ok') throw new Error(`practice demo plan "${document.title}" cannot be approved`);
   return plan.id;
 }

@@ -5,12 +5,12 @@
  */
 import { randomUUID } from 'node:crypto';
 import sharp from 'sharp';
-import { inventorySetStatus, judgeAppend, judgeCloseOut, type EntryBody, type FieldEntry } from '../../src/lib/domain/field-record';
-import { objectStoreSettings } from '../../src/lib/server/object-store';
-import { putPhotoObjects } from '../../src/lib/server/photos';
-import type { Db } from '../connection';
-import { allSets } from '../repositories/equipment';
-import { addEntry, addPhoto, closeRecord, createRecord } from '../repositories/field-records';
+import { inventorySetStatus, judgeAppend, judgeCloseOut, type EntryBody, type FieldEntry } from '@/lib/domain/field-record';
+import { objectStoreSettings } from '@/lib/server/object-store';
+import { putPhotoObjects } from '@/lib/server/photos';
+import type { Db } from '@db/connection';
+import { allSets } from '@db/repositories/equipment';
+import { addEntry, addPhoto, closeRecord, createRecord } from '@db/repositories/field-records';
 
 /** A drawn scene: a pole, a crossarm with three conductors, a cluster bar and ground leads. */
 function scene(hue: number, leads: number): string {

@@ -2,15 +2,15 @@
  * The invented demo: one co-operative with a person in each role and plans in every state, and
  * a second organisation that proves isolation. Idempotent: what exists already is left alone.
  */
-import type { Db } from '../connection';
-import { createPerson, findOrganizationBySlug } from '../repositories/people';
-import { createPlan, describeStructure } from '../repositories/plans';
-import { checkPlan } from '../../src/lib/domain/checker';
+import type { Db } from '@db/connection';
+import { createPerson, findOrganizationBySlug } from '@db/repositories/people';
+import { createPlan, describeStructure } from '@db/repositories/plans';
+import { checkPlan } from '@/lib/domain/checker';
 import { hash } from '@node-rs/argon2';
-import { canonicalHash } from '../../src/lib/domain/canonical-json';
-import { decidePlan, submitPlan } from '../repositories/review';
-import { addComment } from '../repositories/revisions';
-import type { Role } from '../../src/lib/domain/roles';
+import { fingerprint } from '@/lib/server/fingerprint';
+import { decidePlan, submitPlan } from '@db/repositories/review';
+import { addComment } from '@db/repositories/revisions';
+import type { Role } from '@/lib/domain/roles';
 import { DEMO_PLANS, OTHER_ORG_PLAN, type DemoPlan } from './demo-plans';
 import { seedPractice } from './demo-practice';
 import { seedDemoEquipment } from './demo-equipment';
@@ -55,8 +55,8 @@ async function seedPlans(db: Db, organizationId: number, authorId: string, revie
       decision: approve ? 'approve' : 'return',
       comment: approve ? null : plan.reviewNote ?? 'Please look again.',
       teachingNote: approve ? plan.reviewNote ?? null : null,
-      documentHash: approve ? canonicalHash(created.document) : null,
-      reportHash: approve ? canonicalHash(report) : null,
+      documentHash: approve ? fingerprint(created.document) : null,
+      reportHash: approve ? fingerprint(report) : null,
       revision: 1,
     });
     if (decided.kind !== 'ok') throw new Error(`demo plan "${plan.title}" cannot be decided: ${decided.kind}`);

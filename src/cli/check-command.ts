@@ -5,12 +5,12 @@
  * every problem by path on standard error, one a line.
  */
 import { parseArgs } from 'node:util';
-import { checkPlan } from '../lib/domain/checker';
-import type { SetRecord } from '../lib/domain/equipment';
-import { isCalendarDate } from '../lib/domain/equipment';
-import { CHECK_STAGES, type CheckStage } from '../lib/domain/sets-in-plan';
-import { inventoryFromCsv } from '../lib/schemas/equipment-csv';
-import { parsePlan } from '../lib/schemas/plan';
+import { checkPlan } from '@/lib/domain/checker';
+import type { SetRecord } from '@/lib/domain/equipment';
+import { isCalendarDate } from '@/lib/domain/equipment';
+import { CHECK_STAGES, type CheckStage } from '@/lib/domain/sets-in-plan';
+import { inventoryFromCsv } from '@/lib/schemas/equipment-csv';
+import { parsePlan } from '@/lib/schemas/plan';
 import { formatTextReport } from './text-report';
 
 export const EXIT_OK = 0;

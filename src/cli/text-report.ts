@@ -2,7 +2,7 @@
  * The check report as a plain-text table for a terminal (`npm run check -- --text FILE`). The
  * JSON report is the contract; this is only a way to read it.
  */
-import type { CheckReport, Figure } from '../lib/domain/report';
+import type { CheckReport, Figure } from '@/lib/domain/report';
 
 const num = (value: Figure | undefined, digits: number) => (typeof value === 'number' ? value.toFixed(digits) : '—');
 

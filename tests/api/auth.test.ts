@@ -3,7 +3,7 @@ import { BASE_URL, Client, signedIn } from '../helpers/api';
 import { closeTestDb, makeOrganization, makePerson, PASSWORD } from '../helpers/factories';
 import type { ChildProcess } from 'node:child_process';
 import { startServer } from '../../scripts/lib.mjs';
-import { ADDRESS_FREE } from '../../src/lib/server/throttle';
+import { ADDRESS_FREE } from '@/lib/server/throttle';
 
 let organizationId: number;
 beforeAll(async () => {

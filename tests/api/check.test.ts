@@ -1,9 +1,9 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { checkPlan } from '../../src/lib/domain/checker';
-import { CAUTION } from '../../src/lib/domain/report';
-import { parsePlan } from '../../src/lib/schemas/plan';
+import { checkPlan } from '@/lib/domain/checker';
+import { CAUTION } from '@/lib/domain/report';
+import { parsePlan } from '@/lib/schemas/plan';
 import { Client, signedIn } from '../helpers/api';
 import { closeTestDb, makeTeam, planDocument, testDb, PASSWORD } from '../helpers/factories';
 

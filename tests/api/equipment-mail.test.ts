@@ -3,10 +3,10 @@
  * moment, and exactly one message per admin leaves; later days list only what changed.
  */
 import { afterAll, beforeAll, expect, it } from 'vitest';
-import { readDbConfig } from '../../db/config';
-import { createDb, type Db } from '../../db/connection';
-import { addDays, addMonths } from '../../src/lib/domain/equipment';
-import { DUE_SETS_KIND, runDueSetsMail } from '../../src/lib/server/due-sets-mail';
+import { readDbConfig } from '@db/config';
+import { createDb, type Db } from '@db/connection';
+import { addDays, addMonths } from '@/lib/domain/equipment';
+import { DUE_SETS_KIND, runDueSetsMail } from '@/lib/server/due-sets-mail';
 import { signedIn } from '../helpers/api';
 import { setBody, today } from '../helpers/equipment';
 import { closeTestDb, makePerson, makeTeam, testDb, PASSWORD } from '../helpers/factories';

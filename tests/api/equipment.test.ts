@@ -1,6 +1,6 @@
 /** Grounding sets over HTTP on the real database: records, tests and faults, lists, import, checks. */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { addMonths } from '../../src/lib/domain/equipment';
+import { addMonths } from '@/lib/domain/equipment';
 import type { Client } from '../helpers/api';
 import { signedIn } from '../helpers/api';
 import { CSV_HEADER, monthsAgo, postCsv, setBody, today, uniqueTag } from '../helpers/equipment';

@@ -4,7 +4,7 @@
  * before that are filled the first time the library reads them.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { libraryEntry, listLibrary } from '../../db/repositories/library';
+import { libraryEntry, listLibrary } from '@db/repositories/library';
 import { Client, signedIn } from '../helpers/api';
 import { closeTestDb, makeTeam, planDocument, testDb, PASSWORD } from '../helpers/factories';
 

@@ -3,7 +3,7 @@
  * page), and the running server recovers by itself, with sessions intact, without a restart.
  */
 import { afterAll, expect, it } from 'vitest';
-import { startDatabase, stopDatabase } from '../../db/lifecycle';
+import { startDatabase, stopDatabase } from '@db/lifecycle';
 import { Client, signedIn } from '../helpers/api';
 import { closeTestDb, makeOrganization, makePerson, PASSWORD } from '../helpers/factories';
 import { waitFor } from '../helpers/wait';

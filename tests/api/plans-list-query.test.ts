@@ -6,11 +6,11 @@
  */
 import { Op, type Order, type WhereOptions } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { getPlan, listPlans, readStoredDocument } from '../../db/repositories/plans';
-import type { Plan } from '../../db/models';
-import { PLAN_SORTS, defaultSortDir, listPlansQuery, type ListPlansQuery } from '../../src/lib/schemas/api';
-import type { PlanStatus } from '../../src/lib/domain/plan-status';
-import { planJson, summaryJson } from '../../src/lib/server/plan-json';
+import { getPlan, listPlans, readStoredDocument } from '@db/repositories/plans';
+import type { Plan } from '@db/models';
+import { PLAN_SORTS, defaultSortDir, listPlansQuery, type ListPlansQuery } from '@/lib/schemas/api';
+import type { PlanStatus } from '@/lib/domain/plan-status';
+import { planJson, summaryJson } from '@/lib/server/plan-json';
 import { Client, signedIn } from '../helpers/api';
 import { closeTestDb, makePerson, makeTeam, planDocument, testDb, PASSWORD } from '../helpers/factories';
 

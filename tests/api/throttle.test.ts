@@ -7,7 +7,7 @@ import { randomBytes } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Client } from '../helpers/api';
 import { closeTestDb, makeOrganization, makePerson, PASSWORD, testDb } from '../helpers/factories';
-import { ADDRESS_FREE, EMAIL_FREE, RESETS_PER_HOUR } from '../../src/lib/server/throttle';
+import { ADDRESS_FREE, EMAIL_FREE, RESETS_PER_HOUR } from '@/lib/server/throttle';
 
 let organizationId: number;
 beforeAll(async () => {

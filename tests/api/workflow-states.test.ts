@@ -5,9 +5,9 @@
  * resubmitted unchanged included), and no state is a dead end.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { nextStatus, PLAN_STATUSES, WORKFLOW_ACTIONS, type PlanStatus, type WorkflowAction } from '../../src/lib/domain/plan-status';
-import { submitPlan } from '../../db/repositories/review';
-import { checkPlan } from '../../src/lib/domain/checker';
+import { nextStatus, PLAN_STATUSES, WORKFLOW_ACTIONS, type PlanStatus, type WorkflowAction } from '@/lib/domain/plan-status';
+import { submitPlan } from '@db/repositories/review';
+import { checkPlan } from '@/lib/domain/checker';
 import { Client, signedIn } from '../helpers/api';
 import { closeTestDb, makeTeam, planDocument, testDb, PASSWORD } from '../helpers/factories';
 

@@ -3,8 +3,8 @@
  * again, with every refusal, the decision race, fixed approved revisions and the mail that goes out.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { canonicalJson } from '../../src/lib/domain/canonical-json';
-import { checkPlan } from '../../src/lib/domain/checker';
+import { canonicalJson } from '@/lib/domain/canonical-json';
+import { checkPlan } from '@/lib/domain/checker';
 import { createHash } from 'node:crypto';
 import { Client, signedIn } from '../helpers/api';
 import { closeTestDb, makePerson, makeTeam, planDocument, testDb, PASSWORD } from '../helpers/factories';

@@ -1,6 +1,6 @@
 /** Return and Disable ask first; Approve and Enable do not. */
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { confirmQuestion, installConfirm } from '../../src/scripts/confirm-forms';
+import { confirmQuestion, installConfirm } from '@/scripts/confirm-forms';
 
 afterEach(() => { document.body.innerHTML = ''; });
 

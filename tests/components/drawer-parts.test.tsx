@@ -1,10 +1,10 @@
 import { render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it, vi } from 'vitest';
-import { ConflictDialog } from '../../src/components/editor/panels/ConflictDialog';
-import { FindingsList } from '../../src/components/editor/panels/FindingsList';
-import { SaveIndicator } from '../../src/components/editor/panels/SaveIndicator';
-import type { Finding } from '../../src/lib/domain/report';
+import { ConflictDialog } from '@/components/editor/panels/ConflictDialog';
+import { FindingsList } from '@/components/editor/panels/FindingsList';
+import { SaveIndicator } from '@/components/editor/panels/SaveIndicator';
+import type { Finding } from '@/lib/domain/report';
 
 const findings: Finding[] = [
   { rule: 'surface-outside-zone', severity: 'blocker', elements: ['W1', 'X1'], message: 'W1 can touch X1, which is outside the zone.', basis: 'Equipotential practice' },

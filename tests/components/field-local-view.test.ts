@@ -1,9 +1,9 @@
 /** The device's view of a record: waiting entries replayed by the shared rules, judged with the server's words. */
 import { describe, expect, it } from 'vitest';
-import { judgeOnDevice, withPending } from '../../src/components/records/offline/local-view';
-import type { Pending } from '../../src/components/records/offline/outbox';
-import type { RecordView } from '../../src/components/records/types';
-import { REFUSALS, recordPlanFrom, type EntryBody } from '../../src/lib/domain/field-record';
+import { judgeOnDevice, withPending } from '@/components/records/offline/local-view';
+import type { Pending } from '@/components/records/offline/outbox';
+import type { RecordView } from '@/components/records/types';
+import { REFUSALS, recordPlanFrom, type EntryBody } from '@/lib/domain/field-record';
 import { planDocument } from '../helpers/factories';
 
 const me = { id: 'u1', name: 'Invented Lead' };

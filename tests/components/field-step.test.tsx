@@ -1,10 +1,10 @@
 import { render, screen } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it, vi } from 'vitest';
-import { StepPanel } from '../../src/components/records/StepPanel';
-import { stampEntry } from '../../src/components/records/record-client';
-import type { RecordView } from '../../src/components/records/types';
-import type { NextStep } from '../../src/lib/domain/field-record';
+import { StepPanel } from '@/components/records/StepPanel';
+import { stampEntry } from '@/components/records/record-client';
+import type { RecordView } from '@/components/records/types';
+import type { NextStep } from '@/lib/domain/field-record';
 
 const me = { id: 'u1', name: 'Invented Lead' };
 function record(next: NextStep, over: Partial<RecordView> = {}): RecordView {

@@ -1,7 +1,7 @@
 import { render, screen } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import { FaultTable } from '../../src/components/editor/panels/FigureTables';
-import type { CheckReport } from '../../src/lib/domain/report';
+import { FaultTable } from '@/components/editor/panels/FigureTables';
+import type { CheckReport } from '@/lib/domain/report';
 
 const report = {
   fault: { durationS: 0.25, decrementFactor: 1.05, asymmetricalKa: 10.5, peakFactor: 2.5, peakKa: 26, peakForceNPerM: 463 },

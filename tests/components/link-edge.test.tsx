@@ -1,11 +1,11 @@
 import { act, render } from '@testing-library/react';
 import { ReactFlowProvider, type EdgeProps } from 'reactflow';
 import { describe, expect, it } from 'vitest';
-import { LinkEdge } from '../../src/components/editor/edges/LinkEdge';
-import { EditorStoreContext } from '../../src/components/editor/selectors';
-import { createEditorStore } from '../../src/components/editor/store';
-import { findStarter } from '../../src/lib/domain/starters';
-import type { PlanLink } from '../../src/lib/schemas/plan';
+import { LinkEdge } from '@/components/editor/edges/LinkEdge';
+import { EditorStoreContext } from '@/components/editor/selectors';
+import { createEditorStore } from '@/components/editor/store';
+import { findStarter } from '@/lib/domain/starters';
+import type { PlanLink } from '@/lib/schemas/plan';
 
 const draw = (link: PlanLink, store = createEditorStore({ doc: findStarter('tangent-bucket')!.build() })) => {
   const props = { id: link.id, source: link.from, target: link.to, sourceX: 0, sourceY: 0, targetX: 200, targetY: 0, sourcePosition: 'top', targetPosition: 'top', data: link, selected: false } as unknown as EdgeProps<PlanLink>;

@@ -1,11 +1,11 @@
 import { act, render, screen } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
-import { BondCaution } from '../../src/components/editor/panels/BondCaution';
-import { Palette } from '../../src/components/editor/panels/Palette';
-import { EditorStoreContext } from '../../src/components/editor/selectors';
-import { createEditorStore } from '../../src/components/editor/store';
-import { findStarter } from '../../src/lib/domain/starters';
+import { BondCaution } from '@/components/editor/panels/BondCaution';
+import { Palette } from '@/components/editor/panels/Palette';
+import { EditorStoreContext } from '@/components/editor/selectors';
+import { createEditorStore } from '@/components/editor/store';
+import { findStarter } from '@/lib/domain/starters';
 
 const setup = () => {
   const store = createEditorStore({ doc: { ...findStarter('tangent-bucket')!.build('Palette'), links: [] } });

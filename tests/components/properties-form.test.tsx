@@ -2,13 +2,13 @@ import { fireEvent, render, screen } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it, vi } from 'vitest';
 import { createElement } from 'react';
-import { PropertiesForm } from '../../src/components/editor/panels/PropertiesForm';
-import { Inspector } from '../../src/components/editor/panels/Inspector';
-import { LINK_FIELDS, LINK_SCHEMA, NODE_FIELDS, NODE_SCHEMA, SYSTEM_FIELDS, SYSTEM_SCHEMA } from '../../src/components/editor/panels/fields';
-import { EditorStoreContext } from '../../src/components/editor/selectors';
-import { createEditorStore } from '../../src/components/editor/store';
-import { findStarter } from '../../src/lib/domain/starters';
-import { NODE_KINDS, type NodeKind } from '../../src/lib/schemas/plan';
+import { PropertiesForm } from '@/components/editor/panels/PropertiesForm';
+import { Inspector } from '@/components/editor/panels/Inspector';
+import { LINK_FIELDS, LINK_SCHEMA, NODE_FIELDS, NODE_SCHEMA, SYSTEM_FIELDS, SYSTEM_SCHEMA } from '@/components/editor/panels/fields';
+import { EditorStoreContext } from '@/components/editor/selectors';
+import { createEditorStore } from '@/components/editor/store';
+import { findStarter } from '@/lib/domain/starters';
+import { NODE_KINDS, type NodeKind } from '@/lib/schemas/plan';
 
 const SAMPLE: Record<NodeKind, Record<string, unknown>> = {
   phase: { id: 'A', kind: 'phase', phase: 'A', label: 'Phase A' },

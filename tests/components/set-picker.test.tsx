@@ -3,10 +3,10 @@ import { render, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { createElement } from 'react';
 import { afterEach, expect, it, vi } from 'vitest';
-import { Inspector } from '../../src/components/editor/panels/Inspector';
-import { EditorStoreContext } from '../../src/components/editor/selectors';
-import { createEditorStore } from '../../src/components/editor/store';
-import { findStarter } from '../../src/lib/domain/starters';
+import { Inspector } from '@/components/editor/panels/Inspector';
+import { EditorStoreContext } from '@/components/editor/selectors';
+import { createEditorStore } from '@/components/editor/store';
+import { findStarter } from '@/lib/domain/starters';
 
 const SET = { id: 7, tag: 'GS-42', description: 'Invented', cable: '4/0', lengthM: 4.5, clampKind: 'live-line', clampKa: 43, clampCycles: 30, connection: 'bare-strands', status: 'in-service', lastTestedOn: '2026-01-02', testDueOn: '2999-01-02' };
 afterEach(() => vi.unstubAllGlobals());

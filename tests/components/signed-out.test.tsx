@@ -1,11 +1,11 @@
 import { act, render, screen } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it, vi } from 'vitest';
-import { SignedOutDialog } from '../../src/components/editor/panels/SignedOutDialog';
-import { SaveIndicator } from '../../src/components/editor/panels/SaveIndicator';
-import { EditorStoreContext } from '../../src/components/editor/selectors';
-import { createEditorStore } from '../../src/components/editor/store';
-import { findStarter } from '../../src/lib/domain/starters';
+import { SignedOutDialog } from '@/components/editor/panels/SignedOutDialog';
+import { SaveIndicator } from '@/components/editor/panels/SaveIndicator';
+import { EditorStoreContext } from '@/components/editor/selectors';
+import { createEditorStore } from '@/components/editor/store';
+import { findStarter } from '@/lib/domain/starters';
 
 describe('an ended session in the editor', () => {
   it('says so, links to sign-in in a new tab back to this plan, and saves on request', async () => {

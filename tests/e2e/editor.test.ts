@@ -2,7 +2,7 @@ import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import type { Page } from 'playwright-core';
 import { extractText, getDocumentProxy } from 'unpdf';
 import { expect, it } from 'vitest';
-import { pdfText } from '../../src/components/editor/export';
+import { pdfText } from '@/components/editor/export';
 import { BASE_URL } from '../helpers/api';
 import { fillFaultData, useBrowser } from '../helpers/e2e';
 

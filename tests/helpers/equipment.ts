@@ -1,5 +1,5 @@
 /** Grounding sets for the server tests: a set body, dates relative to today, a CSV post. */
-import { addDays, addMonths } from '../../src/lib/domain/equipment';
+import { addDays, addMonths } from '@/lib/domain/equipment';
 import type { Client } from './api';
 
 export const today = () => new Date().toISOString().slice(0, 10);

@@ -4,11 +4,11 @@
  */
 import { hash } from '@node-rs/argon2';
 import { randomBytes } from 'node:crypto';
-import { createDb, type Db } from '../../db/connection';
-import { readDbConfig } from '../../db/config';
-import { createPerson } from '../../db/repositories/people';
-import type { Role } from '../../src/lib/domain/roles';
-import type { PlanDocument } from '../../src/lib/schemas/plan';
+import { createDb, type Db } from '@db/connection';
+import { readDbConfig } from '@db/config';
+import { createPerson } from '@db/repositories/people';
+import type { Role } from '@/lib/domain/roles';
+import type { PlanDocument } from '@/lib/schemas/plan';
 
 let db: Db | null = null;
 export function testDb(): Db {

@@ -2,7 +2,7 @@
  * Tiny plan builders for checker tests: every plan goes through the real schema, so a test can
  * never check a document the product would refuse.
  */
-import { parsePlan, type PlanDocument, type PlanLink, type PlanNode } from '../../src/lib/schemas/plan';
+import { parsePlan, type PlanDocument, type PlanLink, type PlanNode } from '@/lib/schemas/plan';
 
 type Extra = Record<string, unknown>;
 

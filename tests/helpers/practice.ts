@@ -1,7 +1,7 @@
 /** An approved plan made through the real API (lead writes and submits, reviewer approves), for practice tests. */
 import { expect } from 'vitest';
 import type { Client } from './api';
-import type { PlanDocument } from '../../src/lib/schemas/plan';
+import type { PlanDocument } from '@/lib/schemas/plan';
 import { planDocument } from './factories';
 
 /** Bucket work: three phases and the neutral on a cluster bar, the bucket bonded, the worker reaching every phase. */

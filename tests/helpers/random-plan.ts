@@ -3,7 +3,7 @@
  * ids n0… for nodes and l0… for links; each plan is parsed by the real schema.
  */
 import fc from 'fast-check';
-import { CABLE_SIZES, parsePlan, type PlanDocument } from '../../src/lib/schemas/plan';
+import { CABLE_SIZES, parsePlan, type PlanDocument } from '@/lib/schemas/plan';
 
 const num = (min: number, max: number) => fc.double({ min, max, noNaN: true, noDefaultInfinity: true });
 const opt = <T>(arb: fc.Arbitrary<T>) => fc.option(arb, { nil: undefined });

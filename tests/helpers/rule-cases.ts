@@ -3,8 +3,8 @@
  * elements and severity, and a corrected plan where it stays quiet.
  */
 import { describe, expect, it } from 'vitest';
-import { checkPlan } from '../../src/lib/domain/checker';
-import type { PlanDocument } from '../../src/lib/schemas/plan';
+import { checkPlan } from '@/lib/domain/checker';
+import type { PlanDocument } from '@/lib/schemas/plan';
 
 export interface RuleCase {
   rule: string;

@@ -1,7 +1,7 @@
 /** The editor's draft mirror: synchronous reads, every write passed on to the device store in order. */
 import { describe, expect, it } from 'vitest';
-import { mirrorStorage } from '../../src/components/editor/draft-store';
-import { clearLocalDrafts, draftKey, readLocalDraft } from '../../src/components/editor/sync';
+import { mirrorStorage } from '@/components/editor/draft-store';
+import { clearLocalDrafts, draftKey, readLocalDraft } from '@/components/editor/sync';
 
 describe('the draft mirror', () => {
   it('answers the editor synchronously and writes through in call order', () => {

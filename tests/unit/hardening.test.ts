@@ -1,12 +1,12 @@
 /** The pure parts of the hardening: password strength, nesting limits, mailboxes, cookie policy, the workflow table, mail clipping. */
 import { describe, expect, it } from 'vitest';
-import { mailboxKey } from '../../src/lib/domain/people';
-import { nextStatus, PLAN_STATUSES, WORKFLOW_ACTIONS } from '../../src/lib/domain/plan-status';
-import { findDepthIssue, MAX_DEPTH, pruneDeep } from '../../src/lib/schemas/depth';
-import { idParam } from '../../src/lib/schemas/api';
-import { newPassword } from '../../src/lib/schemas/password';
-import { cookieIsSecure } from '../../src/lib/server/auth';
-import { clip, decidedMessage, MAIL_COMMENTS } from '../../src/lib/server/mail-messages';
+import { mailboxKey } from '@/lib/domain/people';
+import { nextStatus, PLAN_STATUSES, WORKFLOW_ACTIONS } from '@/lib/domain/plan-status';
+import { findDepthIssue, MAX_DEPTH, pruneDeep } from '@/lib/schemas/depth';
+import { idParam } from '@/lib/schemas/api';
+import { newPassword } from '@/lib/schemas/password';
+import { cookieIsSecure } from '@/lib/server/auth';
+import { clip, decidedMessage, MAIL_COMMENTS } from '@/lib/server/mail-messages';
 
 describe('new passwords', () => {
   it.each([' '.repeat(10), '\u0000'.repeat(10), 'aaaaaaaaaa', 'password12', '1234567890', 'qwertyuiop', 'abcdefghij'])('refuses %j', (weak) => {

@@ -1,7 +1,7 @@
 /** The field screen's outbox: order, retry with a growing wait on a fake clock, refusals kept, sign-out waits. */
 import { describe, expect, it } from 'vitest';
-import { FIRST_RETRY_MS, memoryStore, Outbox, type Clock, type StampedEntry, type Transport } from '../../src/components/records/offline/outbox';
-import type { ApiResult } from '../../src/components/records/record-client';
+import { FIRST_RETRY_MS, memoryStore, Outbox, type Clock, type StampedEntry, type Transport } from '@/components/records/offline/outbox';
+import type { ApiResult } from '@/components/records/record-client';
 
 /** A clock the test moves by hand; timers fire when it passes their time. */
 function fakeClock(start = 1_000_000) {

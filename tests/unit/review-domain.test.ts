@@ -1,12 +1,13 @@
 import { describe, expect, it } from 'vitest';
-import { canonicalHash, canonicalJson } from '../../src/lib/domain/canonical-json';
-import { explainPlan } from '../../src/lib/domain/explain';
-import { checkPlan } from '../../src/lib/domain/checker';
-import { diffPlans } from '../../src/lib/domain/plan-diff';
-import { diffInWords } from '../../src/lib/domain/plan-diff-words';
-import { planTags } from '../../src/lib/domain/plan-tags';
+import { canonicalHash, canonicalJson } from '@/lib/domain/canonical-json';
+import { fingerprint, sha256Hex } from '@/lib/server/fingerprint';
+import { explainPlan } from '@/lib/domain/explain';
+import { checkPlan } from '@/lib/domain/checker';
+import { diffPlans } from '@/lib/domain/plan-diff';
+import { diffInWords } from '@/lib/domain/plan-diff-words';
+import { planTags } from '@/lib/domain/plan-tags';
 import { bucketLinks, bucketNodes, makePlan } from '../helpers/plan-factory';
-import type { PlanDocument } from '../../src/lib/schemas/plan';
+import type { PlanDocument } from '@/lib/schemas/plan';
 
 const plan = (overrides: Partial<PlanDocument> = {}): PlanDocument =>
   makePlan({ nodes: bucketNodes(), links: bucketLinks(), ...(overrides as object) });
@@ -14,8 +15,15 @@ const plan = (overrides: Partial<PlanDocument> = {}): PlanDocument =>
 describe('canonical JSON', () => {
   it('ignores key order at every level and drops undefined', () => {
     expect(canonicalJson({ b: 1, a: { d: [1, { z: 1, y: 2 }], c: undefined } })).toBe('{"a":{"d":[1,{"y":2,"z":1}]},"b":1}');
-    expect(canonicalHash({ x: 1, y: 2 })).toBe(canonicalHash({ y: 2, x: 1 }));
-    expect(canonicalHash({ x: 1 })).not.toBe(canonicalHash({ x: 2 }));
+    expect(fingerprint({ x: 1, y: 2 })).toBe(fingerprint({ y: 2, x: 1 }));
+    expect(fingerprint({ x: 1 })).not.toBe(fingerprint({ x: 2 }));
+  });
+
+  it('hashes with the function it is given (the domain imports none)', () => {
+    expect(canonicalHash({ b: 2, a: 1 }, (text) => `<${text}>`)).toBe('<{"a":1,"b":2}>');
+    // SHA-256 of "abc", FIPS 180-2 appendix B.1 test vector.
+    expect(sha256Hex('abc')).toBe('ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad');
+    expect(fingerprint({ a: 1 })).toBe(sha256Hex('{"a":1}'));
   });
 });
 

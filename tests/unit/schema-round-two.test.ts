@@ -3,7 +3,7 @@
  * reference checked by path, and bad values refused with the field named.
  */
 import { describe, expect, it } from 'vitest';
-import { parsePlan } from '../../src/lib/schemas/plan';
+import { parsePlan } from '@/lib/schemas/plan';
 import { bucketLinks, bucketNodes, link, node, rawPlan } from '../helpers/plan-factory';
 
 const issuesOf = (doc: Record<string, unknown>) => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { parsePlan } from '../../src/lib/schemas/plan';
+import { parsePlan } from '@/lib/schemas/plan';
 
 const base = {
   format: 'bondmap-plan',

@@ -5,7 +5,7 @@
  */
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import ReactFlow, { Background, ConnectionMode, Controls, type NodeChange, type EdgeChange, type Connection, type ReactFlowInstance } from 'reactflow';
-import type { NodeKind } from '../../lib/schemas/plan';
+import type { NodeKind } from '@/lib/schemas/plan';
 import { edgeTypes } from './edges/LinkEdge';
 import { nodeTypes } from './nodes/PlanNodeView';
 import { ContextMenu, type MenuItem } from './panels/ContextMenu';

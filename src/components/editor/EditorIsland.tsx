@@ -3,7 +3,7 @@
  * draft-store.ts) and registers the service worker, then renders the editor with those drafts.
  */
 import { useEffect, useState } from 'react';
-import { registerWorker } from '../offline/register-worker';
+import { registerWorker } from '@/components/offline/register-worker';
 import { loadDraftStorage, type DraftStorage } from './draft-store';
 import Editor, { type EditorProps } from './Editor';
 

@@ -1,6 +1,6 @@
 /** The island's calls to the API, each answer turned into a small tagged result (never a throw). */
-import type { CheckReport } from '../../lib/domain/report';
-import type { PlanDocument, PlanIssue } from '../../lib/schemas/plan';
+import type { CheckReport } from '@/lib/domain/report';
+import type { PlanDocument, PlanIssue } from '@/lib/schemas/plan';
 
 export interface ServerPlan {
   id: number;

@@ -4,10 +4,10 @@
  * which `paintCanvas` draws for the PNG and `paintPdf` draws as vectors in the PDF. The shapes
  * follow Glyph.tsx and LinkEdge.tsx in a simplified form (hatching as ticks, no shadows).
  */
-import type { CheckReport } from '../../lib/domain/report';
-import { cableTag } from '../../lib/domain/units';
-import type { Material, PlanDocument, PlanNode } from '../../lib/schemas/plan';
-import { SEVERITY_COLOUR as SEVERITY } from '../ui/SeverityMark';
+import type { CheckReport } from '@/lib/domain/report';
+import { cableTag } from '@/lib/domain/units';
+import type { Material, PlanDocument, PlanNode } from '@/lib/schemas/plan';
+import { SEVERITY_COLOUR as SEVERITY } from '@/components/ui/SeverityMark';
 
 export const INK = '#1b2330';
 

@@ -4,9 +4,9 @@
  * approval block and caution, and the plan JSON. The PDF is written as text, not a picture, so
  * it can be searched and read back.
  */
-import { CAUTION, type CheckReport } from '../../lib/domain/report';
-import { formatLength, type UnitSystem } from '../../lib/domain/units';
-import type { PlanDocument } from '../../lib/schemas/plan';
+import { CAUTION, type CheckReport } from '@/lib/domain/report';
+import { formatLength, type UnitSystem } from '@/lib/domain/units';
+import type { PlanDocument } from '@/lib/schemas/plan';
 import type { Shape } from './drawing-scene';
 
 export type PaperSize = 'letter' | 'a4';

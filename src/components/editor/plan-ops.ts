@@ -3,8 +3,8 @@
  * never mutating its input, so undo is a list of earlier documents and every edit is testable
  * without React.
  */
-import { METRES_PER_FOOT, type UnitSystem } from '../../lib/domain/units';
-import type { LinkKind, NodeKind, PlanDocument, PlanLink, PlanNode } from '../../lib/schemas/plan';
+import { METRES_PER_FOOT, type UnitSystem } from '@/lib/domain/units';
+import type { LinkKind, NodeKind, PlanDocument, PlanLink, PlanNode } from '@/lib/schemas/plan';
 
 export interface Point { x: number; y: number }
 export interface Clipboard { nodes: PlanNode[]; links: PlanLink[] }

@@ -6,8 +6,8 @@
 import { createContext, useContext } from 'react';
 import type { Edge, Node } from 'reactflow';
 import { useStore } from 'zustand';
-import type { CheckReport, ReportContact, Severity } from '../../lib/domain/report';
-import type { PlanDocument, PlanLink, PlanNode } from '../../lib/schemas/plan';
+import type { CheckReport, ReportContact, Severity } from '@/lib/domain/report';
+import type { PlanDocument, PlanLink, PlanNode } from '@/lib/schemas/plan';
 import type { EditorActions, EditorState, EditorStore } from './store';
 
 export const EditorStoreContext = createContext<EditorStore | null>(null);

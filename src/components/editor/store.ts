@@ -4,9 +4,9 @@
  * through `useEditor` (selectors.ts).
  */
 import { createStore, type StoreApi } from 'zustand/vanilla';
-import type { CheckReport } from '../../lib/domain/report';
-import type { UnitSystem } from '../../lib/domain/units';
-import type { LinkKind, NodeKind, PlanCriteria, PlanDocument, PlanIssue, PlanLink, PlanNode, PlanSystem } from '../../lib/schemas/plan';
+import type { CheckReport } from '@/lib/domain/report';
+import type { UnitSystem } from '@/lib/domain/units';
+import type { LinkKind, NodeKind, PlanCriteria, PlanDocument, PlanIssue, PlanLink, PlanNode, PlanSystem } from '@/lib/schemas/plan';
 import * as ops from './plan-ops';
 
 export type SaveState = 'saved' | 'unsaved' | 'saving' | 'offline' | 'conflict' | 'invalid' | 'locked' | 'signed-out' | 'forbidden' | 'too-large';

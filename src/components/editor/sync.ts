@@ -4,7 +4,7 @@
  * revision) so a reload or a lost connection loses nothing, and a retry when the connection
  * returns. Framework-free: takes the store, the API and the browser objects it needs.
  */
-import type { PlanDocument } from '../../lib/schemas/plan';
+import type { PlanDocument } from '@/lib/schemas/plan';
 import type { EditorApi } from './api-client';
 import type { EditorStore } from './store';
 

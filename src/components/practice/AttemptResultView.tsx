@@ -1,7 +1,7 @@
 /** The result of an attempt: score, found / missed / wrong, and each planted gap in the checker's words. */
-import type { Finding } from '../../lib/domain/report';
-import type { PlanDocument } from '../../lib/schemas/plan';
-import { SeverityMark } from '../ui/SeverityMark';
+import type { Finding } from '@/lib/domain/report';
+import type { PlanDocument } from '@/lib/schemas/plan';
+import { SeverityMark } from '@/components/ui/SeverityMark';
 import { elementName, type AttemptResult } from './types';
 
 function Item({ value, doc }: { value: string | Finding; doc: PlanDocument }) {

@@ -3,8 +3,8 @@
  * swap, or take one of Bondmap's proposals; choose the kind, write the prompt and note, publish.
  */
 import { useState } from 'react';
-import type { Finding } from '../../lib/domain/report';
-import { CABLE_SIZES } from '../../lib/schemas/plan';
+import type { Finding } from '@/lib/domain/report';
+import { CABLE_SIZES } from '@/lib/schemas/plan';
 
 export interface FormLink { id: string; kind: string; cable?: string; name: string }
 export interface FormProposal { gap: string; label: string; modifications: { removeLinks: string[]; changeLinks: { id: string; cable: string }[] }; findings: Finding[] }

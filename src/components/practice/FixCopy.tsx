@@ -4,12 +4,12 @@
  */
 import { useState } from 'react';
 import { useStore } from 'zustand';
-import { FindingsList } from '../editor/panels/FindingsList';
-import { Inspector } from '../editor/panels/Inspector';
-import { createEditorStore } from '../editor/store';
+import { FindingsList } from '@/components/editor/panels/FindingsList';
+import { Inspector } from '@/components/editor/panels/Inspector';
+import { createEditorStore } from '@/components/editor/store';
 import { PracticeCanvas } from './PracticeCanvas';
 import type { LearnerExercise } from './types';
-import type { PlanDocument } from '../../lib/schemas/plan';
+import type { PlanDocument } from '@/lib/schemas/plan';
 
 export function FixCopy({ exercise, onSubmit, busy }: { exercise: LearnerExercise; onSubmit: (document: PlanDocument) => void; busy: boolean }) {
   const [store] = useState(() => createEditorStore({ doc: exercise.document, readOnly: false, report: null }));

@@ -4,7 +4,7 @@
  */
 import { useEffect, useState } from 'react';
 import { useStore } from 'zustand';
-import { createEditorStore } from '../editor/store';
+import { createEditorStore } from '@/components/editor/store';
 import { PracticeCanvas } from './PracticeCanvas';
 import { elementName, type LearnerExercise } from './types';
 

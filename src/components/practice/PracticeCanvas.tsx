@@ -5,11 +5,11 @@
 import { useEffect, useRef, useState, type ReactNode } from 'react';
 import { ReactFlowProvider, type ReactFlowInstance } from 'reactflow';
 import 'reactflow/dist/base.css';
-import '../editor/editor.css';
-import { Canvas } from '../editor/Canvas';
-import { EditorStoreContext } from '../editor/selectors';
-import { createEditorStore, type EditorStore } from '../editor/store';
-import type { PlanDocument } from '../../lib/schemas/plan';
+import '@/components/editor/editor.css';
+import { Canvas } from '@/components/editor/Canvas';
+import { EditorStoreContext } from '@/components/editor/selectors';
+import { createEditorStore, type EditorStore } from '@/components/editor/store';
+import type { PlanDocument } from '@/lib/schemas/plan';
 
 export function PracticeCanvas({ store, children, label, onTapNode }: { store: EditorStore; children?: ReactNode; label: string; onTapNode?: (id: string) => void }) {
   const rf = useRef<ReactFlowInstance | null>(null);

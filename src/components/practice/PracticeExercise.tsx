@@ -3,7 +3,7 @@
  * graded result from POST /api/exercises/:id/attempts. Retries start from the exercise again.
  */
 import { useState } from 'react';
-import type { PlanDocument } from '../../lib/schemas/plan';
+import type { PlanDocument } from '@/lib/schemas/plan';
 import { AttemptResultView } from './AttemptResultView';
 import { FixCopy } from './FixCopy';
 import { MarkElements } from './MarkElements';

@@ -1,6 +1,6 @@
 /** What the practice islands receive from their pages and the API (the learner's view, never the answer). */
-import type { Finding } from '../../lib/domain/report';
-import type { PlanDocument } from '../../lib/schemas/plan';
+import type { Finding } from '@/lib/domain/report';
+import type { PlanDocument } from '@/lib/schemas/plan';
 
 export interface LearnerExercise {
   id: number;

@@ -5,11 +5,11 @@
 import { useEffect, useState } from 'react';
 import { ReactFlowProvider } from 'reactflow';
 import 'reactflow/dist/base.css';
-import '../editor/editor.css';
-import type { PlanDocument } from '../../lib/schemas/plan';
-import { Canvas } from '../editor/Canvas';
-import { EditorStoreContext } from '../editor/selectors';
-import { createEditorStore } from '../editor/store';
+import '@/components/editor/editor.css';
+import type { PlanDocument } from '@/lib/schemas/plan';
+import { Canvas } from '@/components/editor/Canvas';
+import { EditorStoreContext } from '@/components/editor/selectors';
+import { createEditorStore } from '@/components/editor/store';
 
 export function FieldDrawing({ document, on }: { document: PlanDocument; on: string[] }) {
   const [store] = useState(() => createEditorStore({ doc: document, baseRevision: 1, readOnly: true, report: null }));

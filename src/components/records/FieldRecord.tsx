@@ -4,8 +4,8 @@
  * phone. Every write goes through record-client; the record is reloaded after each answer.
  */
 import { useEffect, useState } from 'react';
-import { registerWorker } from '../offline/register-worker';
-import type { EntryBody } from '../../lib/domain/field-record';
+import { registerWorker } from '@/components/offline/register-worker';
+import type { EntryBody } from '@/lib/domain/field-record';
 import { judgeOnDevice, withPending } from './offline/local-view';
 import { SyncBar } from './offline/SyncBar';
 import { useFieldSync } from './offline/use-field-sync';

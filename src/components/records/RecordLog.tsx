@@ -2,7 +2,7 @@
  * The record's log in the order things were done (each entry's device time, so the entries of a
  * device that was offline merge in among the others'), each flag beside its entry, and the photos.
  */
-import { BRIEFING_LABELS } from '../../lib/domain/field-record';
+import { BRIEFING_LABELS } from '@/lib/domain/field-record';
 import type { CrewPerson, EntryView, RecordView } from './types';
 
 const time = (iso: string) => iso.slice(11, 16);

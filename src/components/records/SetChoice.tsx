@@ -5,7 +5,7 @@
  * has no test date the record can vouch for, so a visiting crew's set is entered in the inventory first.
  */
 import { useState } from 'react';
-import { inventoryStatusOf, usableSets } from '../../lib/domain/field-record';
+import { inventoryStatusOf, usableSets } from '@/lib/domain/field-record';
 import type { RecordView } from './types';
 
 /** The day sets are judged on here: the device's date, never earlier than the server's when the copy was made. */

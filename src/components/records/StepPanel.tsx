@@ -3,7 +3,7 @@
  * entry through record-client; the parent reloads the record after every answer.
  */
 import { useState, type ReactNode } from 'react';
-import { BRIEFING_LABELS, type EntryBody } from '../../lib/domain/field-record';
+import { BRIEFING_LABELS, type EntryBody } from '@/lib/domain/field-record';
 import { firstChoice, SetChoice } from './SetChoice';
 import type { CrewPerson, RecordView } from './types';
 

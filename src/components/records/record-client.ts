@@ -3,7 +3,7 @@
  * clientId (a UUID made here) and the device's time, so a repeat is recorded once. The offline
  * work (next) replaces `send` with a queue and keeps the same calls.
  */
-import type { EntryBody } from '../../lib/domain/field-record';
+import type { EntryBody } from '@/lib/domain/field-record';
 
 export interface ApiFailure {
   ok: false;

@@ -1,6 +1,6 @@
 /** The record as GET /api/records/:id answers it (the parts the field screen reads). */
-import type { BriefingItem, Flag, NextStep, RecordPlan, SetOn, FieldEntry, InventorySet } from '../../lib/domain/field-record';
-import type { PlanDocument } from '../../lib/schemas/plan';
+import type { BriefingItem, Flag, NextStep, RecordPlan, SetOn, FieldEntry, InventorySet } from '@/lib/domain/field-record';
+import type { PlanDocument } from '@/lib/schemas/plan';
 
 /** An entry of the log; `waiting` while it is only on this device, `refused` when the server said no. */
 export type EntryView = FieldEntry & { id: number; actorName: string; flags: Flag[]; recordedAt: string; waiting?: boolean; refused?: { code: string; message: string; items?: string[] } };

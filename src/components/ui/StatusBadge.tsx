@@ -1,5 +1,5 @@
 /** A plan's status as word + shape (screens.md); StatusBadge.astro renders this one for pages. */
-import { STATUS_LABELS, type PlanStatus } from '../../lib/domain/plan-status';
+import { STATUS_LABELS, type PlanStatus } from '@/lib/domain/plan-status';
 
 const STYLES: Record<PlanStatus, string> = {
   draft: 'border-ink text-ink',

@@ -2,7 +2,7 @@
  * The checker: zones, calculations and rules composed into one check report
  * (docs/plan-format.md, "Check report"). Pure: same plan, same report.
  */
-import type { PlanDocument } from '../schemas/plan';
+import type { PlanDocument } from '@/lib/schemas/plan';
 import { calc as defaultCalc } from './calc/index';
 import type { CalcEntryPoints, FaultFigures, NetworkFigures } from './calc/contract';
 import { buildPlanModel } from './plan-model';

@@ -3,7 +3,7 @@
  * next in-service test is due, whether it is due soon or overdue, and which of the organisation's own
  * resistance limits applies. Pure: "today" is always passed in.
  */
-import type { CableSize } from '../schemas/plan';
+import type { CableSize } from '@/lib/schemas/plan';
 
 export const SET_STATUSES = ['in-service', 'out-of-service', 'retired'] as const;
 export type SetStatus = (typeof SET_STATUSES)[number];

@@ -2,7 +2,7 @@
  * "Explain" for the library: in plain words, what one element does in the work zone, with the
  * figures of the check. Pure: reads the plan and its stored report only.
  */
-import type { PlanDocument } from '../schemas/plan';
+import type { PlanDocument } from '@/lib/schemas/plan';
 import type { CheckReport } from './report';
 import { findZones } from './zones';
 import { formatMetres, formatMilliamps, type UnitSystem } from './units';

@@ -4,7 +4,7 @@
  * the way (rules that fired, above note level, on an earlier revision and not on the approved
  * one). Pure.
  */
-import type { PlanDocument } from '../schemas/plan';
+import type { PlanDocument } from '@/lib/schemas/plan';
 import { planTags, type PlanTag } from './plan-tags';
 import type { CheckReport } from './report';
 

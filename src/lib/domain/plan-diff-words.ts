@@ -3,7 +3,7 @@
  * the plan format's field names. Pure; units are the plan format's own (metric) until a unit
  * setting is passed in.
  */
-import type { PlanDocument } from '../schemas/plan';
+import type { PlanDocument } from '@/lib/schemas/plan';
 import { canonicalJson } from './canonical-json';
 import { buildPlanModel } from './plan-model';
 import { diffPlans } from './plan-diff';

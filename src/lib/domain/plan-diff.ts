@@ -2,7 +2,7 @@
  * What changed between two revisions of a plan: nodes and links added, removed and changed
  * (by id), each change listing the fields that differ. Positions count as a change of layout only.
  */
-import type { PlanDocument } from '../schemas/plan';
+import type { PlanDocument } from '@/lib/schemas/plan';
 import { canonicalJson } from './canonical-json';
 
 export interface ElementChange {

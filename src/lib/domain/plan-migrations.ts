@@ -7,7 +7,7 @@
  * is not additive raises PLAN_VERSION and adds the step from the previous version here, with a
  * test of that step. Pure: it works on the parsed JSON value.
  */
-import { PLAN_FORMAT, PLAN_VERSION } from '../schemas/plan';
+import { PLAN_FORMAT, PLAN_VERSION } from '@/lib/schemas/plan';
 
 export type StoredValue = Record<string, unknown>;
 

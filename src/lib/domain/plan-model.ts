@@ -3,7 +3,7 @@
  * electrical character of each node kind, so that zones, the network and rules agree on what
  * conducts.
  */
-import type { LinkOf, NodeOf, PlanDocument, PlanLink, PlanNode } from '../schemas/plan';
+import type { LinkOf, NodeOf, PlanDocument, PlanLink, PlanNode } from '@/lib/schemas/plan';
 import { rodInRange } from './calc/rods';
 
 /** Kinds that carry current but are never trusted as the way to ground (docs/plan-format.md). */

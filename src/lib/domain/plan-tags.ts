@@ -1,5 +1,5 @@
 /** Configuration tags of a plan, for filtering the library: what kind of work it shows. */
-import type { PlanDocument } from '../schemas/plan';
+import type { PlanDocument } from '@/lib/schemas/plan';
 
 export const PLAN_TAGS = ['bucket work', 'climber', 'ground worker', 'truck', 'mat', 'driven rod', 'double circuit', 'shield wire', 'wood', 'steel', 'concrete', 'fiberglass'] as const;
 export type PlanTag = (typeof PLAN_TAGS)[number];

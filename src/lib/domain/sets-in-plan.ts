@@ -4,7 +4,7 @@
  * record lends the jumper its own figures (cable, length, clamp rating, clamp kind, connection): the
  * set as built and tested is what hangs there, so the ratings are computed from it.
  */
-import type { LinkOf, PlanDocument } from '../schemas/plan';
+import type { LinkOf, PlanDocument } from '@/lib/schemas/plan';
 import { dueState, type DueState, type SetRecord, type SetStatus } from './equipment';
 import type { UnitSystem } from './units';
 

@@ -3,7 +3,7 @@
  * a familiar arrangement instead of an empty sheet. Labels and numbers are invented examples;
  * every value must be checked against the job (fault data from the system operator).
  */
-import type { PlanDocument, PlanLink, PlanNode } from '../schemas/plan';
+import type { PlanDocument, PlanLink, PlanNode } from '@/lib/schemas/plan';
 
 export interface Starter {
   id: string;

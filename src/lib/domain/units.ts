@@ -2,7 +2,7 @@
  * Display units for the editor: the plan stores metres and AWG/kcmil size names (docs/plan-format.md);
  * the crew may read and type lengths in metres or in feet and inches. Pure, no formatting locale.
  */
-import type { CableSize } from '../schemas/plan';
+import type { CableSize } from '@/lib/schemas/plan';
 
 export type UnitSystem = 'metric' | 'imperial';
 

@@ -15,7 +15,7 @@
  *   and the surfaces they reach. A bonded guy that reaches ground only through the pole ground
  *   does not make the zone ungrounded unless someone can touch it.
  */
-import type { PlanDocument } from '../schemas/plan';
+import type { PlanDocument } from '@/lib/schemas/plan';
 import { boomPaths, buildPlanModel, compareIds, isBondingLink, isConductive, isGroundSource, isPoleGround, type PlanModel } from './plan-model';
 
 export interface Zone {

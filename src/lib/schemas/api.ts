@@ -1,7 +1,7 @@
 /** Request bodies and query strings of the HTTP API; the islands' forms use the same schemas. */
 import { z } from 'zod';
-import { PLAN_STATUSES } from '../domain/plan-status';
-import { ROLES } from '../domain/roles';
+import { PLAN_STATUSES } from '@/lib/domain/plan-status';
+import { ROLES } from '@/lib/domain/roles';
 import { newPassword } from './password';
 import { planDocumentSchema } from './plan';
 

@@ -5,7 +5,7 @@
  */
 import { CsvError, parse } from 'csv-parse/sync';
 import { stringify } from 'csv-stringify/sync';
-import { DEFAULT_TEST_INTERVAL_MONTHS, isCalendarDate, testDueOn, type SetRecord } from '../domain/equipment';
+import { DEFAULT_TEST_INTERVAL_MONTHS, isCalendarDate, testDueOn, type SetRecord } from '@/lib/domain/equipment';
 import { createSetBody, type CreateSetBody } from './equipment';
 import { formatIssuePath } from './plan';
 

@@ -1,6 +1,6 @@
 /** Grounding sets on the wire (the field names), their request bodies and list query. */
 import { z } from 'zod';
-import { CLAMP_KINDS, CONNECTIONS, isCalendarDate, SET_STATUSES } from '../domain/equipment';
+import { CLAMP_KINDS, CONNECTIONS, isCalendarDate, SET_STATUSES } from '@/lib/domain/equipment';
 import { CABLE_SIZES } from './plan';
 
 const oneOf = <T extends readonly [string, ...string[]]>(values: T) =>

@@ -1,6 +1,6 @@
 /** Bodies and queries of the field-record API; the field screen sends the same shapes. */
 import { z } from 'zod';
-import { BRIEFING_ITEMS } from '../domain/field-record/types';
+import { BRIEFING_ITEMS } from '@/lib/domain/field-record/types';
 
 const str = (max: number) => z.string({ required_error: 'is required', invalid_type_error: 'must be a string' }).trim().max(max, `must be at most ${max} characters`);
 const nonEmpty = (max: number) => str(max).pipe(z.string().min(1, 'must not be empty'));

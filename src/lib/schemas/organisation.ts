@@ -1,6 +1,6 @@
 /** The organisation's general settings (admin): time zone, paper size, default units. */
 import { z } from 'zod';
-import { isTimeZone } from '../time-format';
+import { isTimeZone } from '@/lib/time-format';
 
 export const PAPER_SIZES = ['letter', 'a4'] as const;
 export type PaperSize = (typeof PAPER_SIZES)[number];

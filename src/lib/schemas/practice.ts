@@ -1,6 +1,6 @@
 /** Request bodies of the practice API; the practice pages use the same schemas. */
 import { z } from 'zod';
-import { EXERCISE_KINDS } from '../domain/practice/types';
+import { EXERCISE_KINDS } from '@/lib/domain/practice/types';
 import { CABLE_SIZES, planDocumentSchema } from './plan';
 
 const elementId = z.string({ invalid_type_error: 'must be a string' }).trim().min(1, 'must not be empty').max(64, 'must be at most 64 characters');

@@ -5,8 +5,8 @@
  * optional by the contract), and `reportSchemaMatchesType` below keeps schema and type in step.
  */
 import { z } from 'zod';
-import { SET_STATUSES } from '../domain/equipment';
-import { REPORT_FORMAT, REPORT_VERSION, SEVERITIES, type CheckReport } from '../domain/report';
+import { SET_STATUSES } from '@/lib/domain/equipment';
+import { REPORT_FORMAT, REPORT_VERSION, SEVERITIES, type CheckReport } from '@/lib/domain/report';
 
 const figure = z.number().nullable();
 const optionalFigure = figure.optional();

@@ -3,17 +3,17 @@
  * everything else calls the functions here and a later swap touches one file.
  */
 import { hash, verify } from '@node-rs/argon2';
-import { createHash } from 'node:crypto';
 import type { APIContext, AstroCookies } from 'astro';
 import { Lucia, TimeSpan, type Adapter, type DatabaseSession, type DatabaseUser } from 'lucia';
 import { Op, QueryTypes } from 'sequelize';
-import { getDb, type Db } from '../../../db/connection';
-import type { Person } from '../domain/people';
+import { getDb, type Db } from '@db/connection';
+import type { Person } from '@/lib/domain/people';
 import { log } from './log';
+import { sha256Hex } from './fingerprint';
 
 /** The key a session is stored under: the SHA-256 of its token, so the table hands out no session. */
 export function sessionKey(token: string): string {
-  return createHash('sha256').update(token).digest('hex');
+  return sha256Hex(token);
 }
 
 /**

@@ -5,8 +5,8 @@
  * them send it, and the message is queued in the same transaction as the claim.
  */
 import { Op, UniqueConstraintError } from 'sequelize';
-import { getDb, type Db } from '../../../db/connection';
-import { addDays, dueState, DUE_SOON_DAYS, type DueState } from '../domain/equipment';
+import { getDb, type Db } from '@db/connection';
+import { addDays, dueState, DUE_SOON_DAYS, type DueState } from '@/lib/domain/equipment';
 import { today } from './equipment-http';
 import { queueMail, type OutgoingMail } from './mail';
 import { compose } from './mail-messages';

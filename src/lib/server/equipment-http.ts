@@ -1,5 +1,5 @@
 /** Shared by the equipment endpoints: today's date and repository outcomes turned into errors. */
-import type { WriteOutcome } from '../../../db/repositories/equipment';
+import type { WriteOutcome } from '@db/repositories/equipment';
 import { AppError } from './errors';
 
 /** Today as the server's clock sees it, in UTC (due dates are whole days). */

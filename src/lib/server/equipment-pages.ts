@@ -1,8 +1,8 @@
 /** Helpers of the equipment pages: list links and the CSV import from a form. */
-import type { Db } from '../../../db/connection';
-import { saveSets, type SetJson } from '../../../db/repositories/equipment';
-import type { ListSetsQuery, SetSort } from '../schemas/equipment';
-import { parseInventoryCsv, type CsvIssue } from '../schemas/equipment-csv';
+import type { Db } from '@db/connection';
+import { saveSets, type SetJson } from '@db/repositories/equipment';
+import type { ListSetsQuery, SetSort } from '@/lib/schemas/equipment';
+import { parseInventoryCsv, type CsvIssue } from '@/lib/schemas/equipment-csv';
 import { today } from './equipment-http';
 
 export function setListLinks(query: ListSetsQuery) {

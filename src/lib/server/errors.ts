@@ -2,7 +2,7 @@
  * The one catalogue of errors the app answers with. Codes are permanent (clients and tests key on
  * them); each message says what happened, why, and what to do.
  */
-import { REFUSALS } from '../domain/field-record/refusals';
+import { REFUSALS } from '@/lib/domain/field-record/refusals';
 export const ERRORS = {
   AUTH_REQUIRED: { status: 401, message: 'You are not signed in. Sign in and try again.' },
   AUTH_INVALID: { status: 401, message: 'That e-mail and password do not match an active account. Check both and try again.' },

@@ -2,12 +2,12 @@
  * The field record as the endpoints use it: access by role, the rules judged inside the record's
  * lock (src/lib/domain/field-record), and the mail that goes with a deviation or a close-out.
  */
-import { getDb } from '../../../db/connection';
-import { addEntry, approvingReviewer, closeRecord, createRecord, getRecord, type Judge, type RecordDetail, type StoredEntry } from '../../../db/repositories/field-records';
-import { allSets } from '../../../db/repositories/equipment';
-import { inventorySetStatus, judgeAppend, judgeCloseOut, nextStep, recordPlanFrom, replay, type FieldEntry, type InventorySet, type Refusal, type SetStatusLookup } from '../domain/field-record';
-import type { Person } from '../domain/people';
-import type { EntryInput } from '../schemas/field-record';
+import { getDb } from '@db/connection';
+import { addEntry, approvingReviewer, closeRecord, createRecord, getRecord, type Judge, type RecordDetail, type StoredEntry } from '@db/repositories/field-records';
+import { allSets } from '@db/repositories/equipment';
+import { inventorySetStatus, judgeAppend, judgeCloseOut, nextStep, recordPlanFrom, replay, type FieldEntry, type InventorySet, type Refusal, type SetStatusLookup } from '@/lib/domain/field-record';
+import type { Person } from '@/lib/domain/people';
+import type { EntryInput } from '@/lib/schemas/field-record';
 import { today } from './equipment-http';
 import { AppError } from './errors';
 import { roleMessage } from './guards';

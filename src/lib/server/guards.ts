@@ -3,8 +3,8 @@
  * that the endpoint wrapper turns into JSON (401 signed out, 403 naming the role needed).
  */
 import type { APIContext } from 'astro';
-import type { Person } from '../domain/people';
-import { ROLE_LABELS, type Role } from '../domain/roles';
+import type { Person } from '@/lib/domain/people';
+import { ROLE_LABELS, type Role } from '@/lib/domain/roles';
 import { AppError } from './errors';
 
 export function requireUser(ctx: Pick<APIContext, 'locals'>): Person {

@@ -1,8 +1,8 @@
 /** Helpers shared by every endpoint: one JSON error shape, body parsing with size limits. */
 import type { APIContext, APIRoute } from 'astro';
 import type { z } from 'zod';
-import { idParam } from '../schemas/api';
-import { formatIssuePath } from '../schemas/plan';
+import { idParam } from '@/lib/schemas/api';
+import { formatIssuePath } from '@/lib/schemas/plan';
 import { AppError, isDbUnavailable } from './errors';
 import { currentRequestId, log } from './log';
 

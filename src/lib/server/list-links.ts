@@ -1,5 +1,5 @@
 /** Links for server-rendered plan tables: each filter, sort and page is a plain URL (works without JavaScript). */
-import { defaultSortDir, type ListPlansQuery, type PlanSort } from '../schemas/api';
+import { defaultSortDir, type ListPlansQuery, type PlanSort } from '@/lib/schemas/api';
 
 export function listLinks(path: string, query: ListPlansQuery, defaultSort: PlanSort = 'updated') {
   const currentDir = query.dir ?? defaultSortDir(query.sort);

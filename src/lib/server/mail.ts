@@ -6,7 +6,7 @@
 import { randomBytes } from 'node:crypto';
 import nodemailer, { type Transporter } from 'nodemailer';
 import { Op, type Transaction } from 'sequelize';
-import { getDb, type Db } from '../../../db/connection';
+import { getDb, type Db } from '@db/connection';
 import { settings } from './settings';
 import { log } from './log';
 

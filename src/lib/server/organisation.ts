@@ -1,7 +1,7 @@
 /** The signed-in person's organisation settings for a page, read once per request. */
 import type { AstroGlobal } from 'astro';
-import { getDb } from '../../../db/connection';
-import { getOrganisationSettings, serverTimeZone, type OrganisationSettings } from '../../../db/repositories/organisation-settings';
+import { getDb } from '@db/connection';
+import { getOrganisationSettings, serverTimeZone, type OrganisationSettings } from '@db/repositories/organisation-settings';
 
 const cache = new WeakMap<Request, Promise<OrganisationSettings>>();
 

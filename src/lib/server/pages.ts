@@ -1,6 +1,6 @@
 /** Small helpers for .astro pages: role checks that answer with a page, the outage page. */
 import type { AstroGlobal } from 'astro';
-import type { Role } from '../domain/roles';
+import type { Role } from '@/lib/domain/roles';
 import { roleMessage } from './guards';
 import { currentRequestId } from './log';
 import { escapeHtml } from './html';

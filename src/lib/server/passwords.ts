@@ -1,8 +1,8 @@
 /** Setting a password through a one-time link, shared by the endpoint and the set-password page. */
-import { getDb } from '../../../db/connection';
-import { recordEvent } from '../../../db/repositories/audit';
-import { setPasswordHash } from '../../../db/repositories/people';
-import { consumeToken, findUsableToken, revokeTokens } from '../../../db/repositories/sign-in';
+import { getDb } from '@db/connection';
+import { recordEvent } from '@db/repositories/audit';
+import { setPasswordHash } from '@db/repositories/people';
+import { consumeToken, findUsableToken, revokeTokens } from '@db/repositories/sign-in';
 import { endOtherSessions, hashPassword } from './auth';
 
 export async function isUsableToken(token: string): Promise<boolean> {

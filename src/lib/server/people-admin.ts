@@ -1,11 +1,11 @@
 /** What an admin may do to people, shared by the JSON API and the /admin/users page. */
 import { UniqueConstraintError } from 'sequelize';
-import { getDb } from '../../../db/connection';
-import { recordEvent } from '../../../db/repositories/audit';
-import { countActiveAdmins, createPerson, emailOrganization, findPerson, findPersonForSignIn, lockOrganization, updatePerson } from '../../../db/repositories/people';
-import { createPasswordToken } from '../../../db/repositories/sign-in';
-import { normaliseEmail, type Person } from '../domain/people';
-import type { Role } from '../domain/roles';
+import { getDb } from '@db/connection';
+import { recordEvent } from '@db/repositories/audit';
+import { countActiveAdmins, createPerson, emailOrganization, findPerson, findPersonForSignIn, lockOrganization, updatePerson } from '@db/repositories/people';
+import { createPasswordToken } from '@db/repositories/sign-in';
+import { normaliseEmail, type Person } from '@/lib/domain/people';
+import type { Role } from '@/lib/domain/roles';
 import { endAllSessions } from './auth';
 import { AppError } from './errors';
 import { roleMessage } from './guards';

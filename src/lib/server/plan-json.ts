@@ -1,5 +1,5 @@
 /** How plans look on the wire: dates as ISO strings, nothing internal. */
-import type { PlanDetail, PlanSummary } from '../../../db/repositories/plans';
+import type { PlanDetail, PlanSummary } from '@db/repositories/plans';
 
 export function summaryJson(plan: PlanSummary) {
   return {

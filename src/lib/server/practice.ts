@@ -2,15 +2,15 @@
  * The practice workflow between the endpoints and the repository: make an exercise from an
  * approved revision, show it without its answer to learners, grade an attempt with the checker.
  */
-import { getDb } from '../../../db/connection';
-import * as repo from '../../../db/repositories/practice';
-import type { ExerciseRecord, ProgressCell } from '../../../db/repositories/practice';
-import { checkPlan } from '../domain/checker';
-import type { Person } from '../domain/people';
-import { gradeFind, gradeFix, gradeNumbers, prepareExercise, proposeRemovals } from '../domain/practice';
-import type { Role } from '../domain/roles';
-import type { CreateExerciseBody } from '../schemas/practice';
-import { findAnswer, fixAnswer, numbersAnswer } from '../schemas/practice';
+import { getDb } from '@db/connection';
+import * as repo from '@db/repositories/practice';
+import type { ExerciseRecord, ProgressCell } from '@db/repositories/practice';
+import { checkPlan } from '@/lib/domain/checker';
+import type { Person } from '@/lib/domain/people';
+import { gradeFind, gradeFix, gradeNumbers, prepareExercise, proposeRemovals } from '@/lib/domain/practice';
+import type { Role } from '@/lib/domain/roles';
+import type { CreateExerciseBody } from '@/lib/schemas/practice';
+import { findAnswer, fixAnswer, numbersAnswer } from '@/lib/schemas/practice';
 import { z } from 'zod';
 import { AppError } from './errors';
 import { parseWith } from './http';

@@ -1,6 +1,6 @@
 /** The field record's messages: a deviation to the plan's reviewer; the close-out summary. */
-import type { RecordDetail } from '../../../db/repositories/field-records';
-import { BRIEFING_ITEMS, replay, recordPlanFrom } from '../domain/field-record';
+import type { RecordDetail } from '@db/repositories/field-records';
+import { BRIEFING_ITEMS, replay, recordPlanFrom } from '@/lib/domain/field-record';
 import type { OutgoingMail } from './mail';
 import { compose } from './mail-messages';
 

@@ -5,10 +5,10 @@
  * so the thumbnails come straight from the object store.
  */
 import { jsPDF } from 'jspdf';
-import type { RecordDetail } from '../../../db/repositories/field-records';
-import { BRIEFING_LABELS, recordPlanFrom, replay, type FieldEntry } from '../domain/field-record';
-import { CAUTION } from '../domain/report';
-import type { PlanDocument } from '../schemas/plan';
+import type { RecordDetail } from '@db/repositories/field-records';
+import { BRIEFING_LABELS, recordPlanFrom, replay, type FieldEntry } from '@/lib/domain/field-record';
+import { CAUTION } from '@/lib/domain/report';
+import type { PlanDocument } from '@/lib/schemas/plan';
 
 export type Paper = 'letter' | 'a4';
 const M = 48;

@@ -1,9 +1,9 @@
 /** Sign-in with throttling, shared by the JSON endpoint and the sign-in page's form. */
 import type { APIContext } from 'astro';
-import { getDb } from '../../../db/connection';
-import { findPersonForSignIn } from '../../../db/repositories/people';
-import { tidyBuckets } from '../../../db/repositories/throttle';
-import type { Person } from '../domain/people';
+import { getDb } from '@db/connection';
+import { findPersonForSignIn } from '@db/repositories/people';
+import { tidyBuckets } from '@db/repositories/throttle';
+import type { Person } from '@/lib/domain/people';
 import { signIn, verifyPassword } from './auth';
 import { AppError } from './errors';
 import { throttleSignIn } from './throttle';

@@ -10,9 +10,9 @@
  * address its hit back.
  */
 import type { APIContext } from 'astro';
-import { getDb } from '../../../db/connection';
-import { bucketKey, clearBucket, refundHit, takeHits, type BucketPolicy } from '../../../db/repositories/throttle';
-import { normaliseEmail } from '../domain/people';
+import { getDb } from '@db/connection';
+import { bucketKey, clearBucket, refundHit, takeHits, type BucketPolicy } from '@db/repositories/throttle';
+import { normaliseEmail } from '@/lib/domain/people';
 import { AppError, type ErrorCode } from './errors';
 import { settings } from './settings';
 

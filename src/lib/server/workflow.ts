@@ -2,12 +2,12 @@
  * The review workflow as the endpoints and pages use it: each step re-reads and re-checks on the
  * server, moves the plan in one transaction, and queues the messages that go with it.
  */
-import { getDb } from '../../../db/connection';
-import { getPlan, type PlanDetail } from '../../../db/repositories/plans';
-import { decidePlan, reopenApproved, submitPlan, type Decision } from '../../../db/repositories/review';
-import { withdrawPlan } from '../../../db/repositories/withdraw';
-import { canonicalHash } from '../domain/canonical-json';
-import type { Person } from '../domain/people';
+import { getDb } from '@db/connection';
+import { getPlan, type PlanDetail } from '@db/repositories/plans';
+import { decidePlan, reopenApproved, submitPlan, type Decision } from '@db/repositories/review';
+import { withdrawPlan } from '@db/repositories/withdraw';
+import { fingerprint } from '@/lib/server/fingerprint';
+import type { Person } from '@/lib/domain/people';
 import { checkForOrganization } from './checking';
 import { AppError } from './errors';
 import { queueMail } from './mail';
@@ -58,8 +58,8 @@ export async function decide(
     decision: input.decision,
     comment: input.comment || null,
     teachingNote: approving ? input.teachingNote || null : null,
-    documentHash: approving ? canonicalHash(plan.document) : null,
-    reportHash: approving ? canonicalHash(plan.report) : null,
+    documentHash: approving ? fingerprint(plan.document) : null,
+    reportHash: approving ? fingerprint(plan.report) : null,
     revision: input.revision ?? plan.currentRevision,
   }, async (transaction, revision) => {
     // The author's mail is queued inside the decision's transaction: all of it or none.

@@ -1,9 +1,9 @@
 import { z } from 'zod';
-import { planDocumentSchema } from '../../lib/schemas/plan';
-import { getDb } from '../../../db/connection';
-import { checkForOrganization } from '../../lib/server/checking';
-import { requireUser } from '../../lib/server/guards';
-import { endpoint, json, PLAN_BODY_LIMIT, readJson } from '../../lib/server/http';
+import { planDocumentSchema } from '@/lib/schemas/plan';
+import { getDb } from '@db/connection';
+import { checkForOrganization } from '@/lib/server/checking';
+import { requireUser } from '@/lib/server/guards';
+import { endpoint, json, PLAN_BODY_LIMIT, readJson } from '@/lib/server/http';
 
 /** `?units=imperial` gives the findings' lengths in feet and inches. */
 const unitsQuery = z.enum(['metric', 'imperial']).catch('metric');

@@ -1,8 +1,8 @@
 import type { APIRoute } from 'astro';
 import { QueryTypes } from 'sequelize';
-import { getDb } from '../../../db/connection';
-import { json } from '../../lib/server/http';
-import { log } from '../../lib/server/log';
+import { getDb } from '@db/connection';
+import { json } from '@/lib/server/http';
+import { log } from '@/lib/server/log';
 
 // Set by scripts/lib.mjs for each start: the token proves which process answers on the port.
 const instance: Record<string, string> = process.env.BONDMAP_INSTANCE ? { 'x-bondmap-instance': process.env.BONDMAP_INSTANCE } : {};

@@ -1,4 +1,4 @@
-import { requireUser } from '../../lib/server/guards';
-import { endpoint, json } from '../../lib/server/http';
+import { requireUser } from '@/lib/server/guards';
+import { endpoint, json } from '@/lib/server/http';
 
 export const GET = endpoint((ctx) => json({ person: requireUser(ctx) }));

@@ -1,9 +1,9 @@
 import type { APIRoute } from 'astro';
-import { idParam } from '../../lib/schemas/api';
-import { AppError } from '../../lib/server/errors';
-import { openRecord, RECORD_WRITERS } from '../../lib/server/field-records';
-import { hasRole } from '../../lib/server/guards';
-import { readForm } from '../../lib/server/forms';
+import { idParam } from '@/lib/schemas/api';
+import { AppError } from '@/lib/server/errors';
+import { openRecord, RECORD_WRITERS } from '@/lib/server/field-records';
+import { hasRole } from '@/lib/server/guards';
+import { readForm } from '@/lib/server/forms';
 
 /**
  * "Start field record" on an approved plan's page posts here as a plain form; the same rules as

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { parsePlan, type PlanDocument } from '../../../src/lib/schemas/plan';
-import { analyseNetwork, r20OhmPerM, stepTouchCriteria, surfaceLayerFactor, tolerableBodyAmps } from '../../../src/lib/domain/calc';
+import { parsePlan, type PlanDocument } from '@/lib/schemas/plan';
+import { analyseNetwork, r20OhmPerM, stepTouchCriteria, surfaceLayerFactor, tolerableBodyAmps } from '@/lib/domain/calc';
 import { checkEntries, loadReference } from './reference';
 
 const FOOT_M = 0.3048;

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { CABLE_SIZES, type CableSize } from '../../../src/lib/schemas/plan';
-import { CABLES, CLAMP_CONTACT_OHMS, conductorRadiusM, jumperImpedance, r20OhmPerM, straightWireInductanceH } from '../../../src/lib/domain/calc';
+import { CABLE_SIZES, type CableSize } from '@/lib/schemas/plan';
+import { CABLES, CLAMP_CONTACT_OHMS, conductorRadiusM, jumperImpedance, r20OhmPerM, straightWireInductanceH } from '@/lib/domain/calc';
 import { checkEntries, loadReference } from './reference';
 
 const FOOT_M = 0.3048;

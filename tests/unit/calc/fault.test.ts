@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { computeFault, decrementFactor, faultDurationS, parallelForceNPerM, peakFactor } from '../../../src/lib/domain/calc';
+import { computeFault, decrementFactor, faultDurationS, parallelForceNPerM, peakFactor } from '@/lib/domain/calc';
 import { checkEntries, loadReference } from './reference';
 
 const system = { frequencyHz: 60 as const, faultKa: 10, clearingCycles: 15, xOverR: 10 };

@@ -10,8 +10,8 @@ import {
   REFERENCE,
   rodGroupOhms,
   tolerableBodyAmps,
-} from '../../../src/lib/domain/calc';
-import { radiusFromDiameterMm } from '../../../src/lib/domain/calc/units';
+} from '@/lib/domain/calc';
+import { radiusFromDiameterMm } from '@/lib/domain/calc/units';
 import { tinyPlan } from './plans';
 
 const phaseToEarth = (extraNodes: Record<string, unknown>[] = [], extraLinks: Record<string, unknown>[] = [], system: Record<string, unknown> = {}) =>

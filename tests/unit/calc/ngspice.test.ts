@@ -11,8 +11,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { promisify } from 'node:util';
 import { afterAll, describe, expect, it } from 'vitest';
-import { parsePlan, type PlanDocument } from '../../../src/lib/schemas/plan';
-import { buildNetwork, factorNetwork, REFERENCE, solveSymmetric, type Network } from '../../../src/lib/domain/calc';
+import { parsePlan, type PlanDocument } from '@/lib/schemas/plan';
+import { buildNetwork, factorNetwork, REFERENCE, solveSymmetric, type Network } from '@/lib/domain/calc';
 import { generatePlan, seededRandom } from '../../../bench/generate-plan';
 
 const NGSPICE = '/usr/bin/ngspice';

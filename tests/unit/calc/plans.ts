@@ -1,5 +1,5 @@
 /** Tiny plan builder for calculation tests: parses through the real schema so every plan is valid. */
-import { parsePlan, type PlanDocument } from '../../../src/lib/schemas/plan';
+import { parsePlan, type PlanDocument } from '@/lib/schemas/plan';
 
 export function tinyPlan(nodes: Record<string, unknown>[], links: Record<string, unknown>[], system: Record<string, unknown> = {}, criteria: Record<string, unknown> = {}): PlanDocument {
   const parsed = parsePlan({

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { CABLE_SIZES, type CableSize } from '../../../src/lib/schemas/plan';
-import { CABLES, cableRating, clampRatingAt, fusingKa, GRADES, gradeWithstandKa, onderdonkAmps } from '../../../src/lib/domain/calc';
+import { CABLE_SIZES, type CableSize } from '@/lib/schemas/plan';
+import { CABLES, cableRating, clampRatingAt, fusingKa, GRADES, gradeWithstandKa, onderdonkAmps } from '@/lib/domain/calc';
 import { checkEntries, loadReference } from './reference';
 
 const cable = (i: Record<string, number | string>) => i.cable as CableSize;

@@ -13,9 +13,9 @@ import {
   rodInRange,
   rodPositions,
   type RodArrangement,
-} from '../../../src/lib/domain/calc/rods';
-import { stepTouchCriteria } from '../../../src/lib/domain/calc';
-import { radiusFromDiameterMm } from '../../../src/lib/domain/calc/units';
+} from '@/lib/domain/calc/rods';
+import { stepTouchCriteria } from '@/lib/domain/calc';
+import { radiusFromDiameterMm } from '@/lib/domain/calc/units';
 import { checkEntries, loadReference } from './reference';
 
 const num = (v: number | string) => Number(v);

@@ -9,8 +9,8 @@ import {
   REFERENCE,
   solveSymmetric,
   type SymmetricEntries,
-} from '../../../src/lib/domain/calc';
-import { minimumDegreeOrder, solveBlockInPlace } from '../../../src/lib/domain/calc';
+} from '@/lib/domain/calc';
+import { minimumDegreeOrder, solveBlockInPlace } from '@/lib/domain/calc';
 import { factorDense, solveDense } from '../../../bench/dense-solver';
 import { generatePlan, seededRandom } from '../../../bench/generate-plan';
 

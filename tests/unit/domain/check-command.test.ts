@@ -1,9 +1,9 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { runCheckCommand } from '../../../src/cli/check-command';
-import { checkPlan } from '../../../src/lib/domain/checker';
-import { parsePlan } from '../../../src/lib/schemas/plan';
+import { runCheckCommand } from '@/cli/check-command';
+import { checkPlan } from '@/lib/domain/checker';
+import { parsePlan } from '@/lib/schemas/plan';
 import { bucketLinks, bucketNodes, link, node, rawPlan } from '../../helpers/plan-factory';
 
 const fixture = (name: string) => readFileSync(join(__dirname, '../../../fixtures/plans', name), 'utf8');

@@ -4,10 +4,10 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { checkPlan } from '../../../src/lib/domain/checker';
-import type { CheckReport } from '../../../src/lib/domain/report';
-import { compareFindings } from '../../../src/lib/domain/rules/index';
-import type { PlanDocument } from '../../../src/lib/schemas/plan';
+import { checkPlan } from '@/lib/domain/checker';
+import type { CheckReport } from '@/lib/domain/report';
+import { compareFindings } from '@/lib/domain/rules/index';
+import type { PlanDocument } from '@/lib/schemas/plan';
 import { planArb } from '../../helpers/random-plan';
 
 /** The report's elements renamed back with `back`; messages get the same textual renaming. */

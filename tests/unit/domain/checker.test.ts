@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { calc } from '../../../src/lib/domain/calc/index';
-import type { CalcEntryPoints, NetworkFigures } from '../../../src/lib/domain/calc/contract';
-import { checkPlan } from '../../../src/lib/domain/checker';
-import { CAUTION, type Finding } from '../../../src/lib/domain/report';
-import { compareFindings } from '../../../src/lib/domain/rules/index';
+import { calc } from '@/lib/domain/calc/index';
+import type { CalcEntryPoints, NetworkFigures } from '@/lib/domain/calc/contract';
+import { checkPlan } from '@/lib/domain/checker';
+import { CAUTION, type Finding } from '@/lib/domain/report';
+import { compareFindings } from '@/lib/domain/rules/index';
 import { bucketLinks, bucketNodes, bucketPlan, link, makePlan, node } from '../../helpers/plan-factory';
 
 /** The real calculations with the network figures rewritten by `edit`. */

@@ -1,11 +1,11 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { cableRating } from '../../../src/lib/domain/calc/index';
-import { checkPlan } from '../../../src/lib/domain/checker';
-import { RULE_IDS } from '../../../src/lib/domain/rules/index';
-import { inventoryFromCsv } from '../../../src/lib/schemas/equipment-csv';
-import { parsePlan } from '../../../src/lib/schemas/plan';
+import { cableRating } from '@/lib/domain/calc/index';
+import { checkPlan } from '@/lib/domain/checker';
+import { RULE_IDS } from '@/lib/domain/rules/index';
+import { inventoryFromCsv } from '@/lib/schemas/equipment-csv';
+import { parsePlan } from '@/lib/schemas/plan';
 
 const dir = join(__dirname, '../../../fixtures/plans');
 const plans = readdirSync(dir).filter((f) => f.endsWith('.json')).map((f) => JSON.parse(readFileSync(join(dir, f), 'utf8')) as unknown);

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import * as units from '../../../src/lib/domain/units';
-import * as findings from '../../../src/lib/domain/rules/format';
-import * as brands from '../../../src/lib/domain/calc/units';
+import * as units from '@/lib/domain/units';
+import * as findings from '@/lib/domain/rules/format';
+import * as brands from '@/lib/domain/calc/units';
 
 // Conversion factors are exact by definition (NIST SP 811, appendix B): 1 ft = 0.3048 m,
 // 1 in = 25.4 mm, 1 lb = 0.45359237 kg, 1 lbf = 4.4482216152605 N.

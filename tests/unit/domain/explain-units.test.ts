@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { checkPlan } from '../../../src/lib/domain/checker';
-import { explainPlan } from '../../../src/lib/domain/explain';
+import { checkPlan } from '@/lib/domain/checker';
+import { explainPlan } from '@/lib/domain/explain';
 import { bucketLinks, bucketNodes, makePlan } from '../../helpers/plan-factory';
 
 // A bucket plan with a driven rod bonded to the cluster bar, so the check gives a barricade radius.

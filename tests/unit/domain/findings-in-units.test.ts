@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { findingsInUnits } from '../../../src/lib/domain/findings-in-units';
-import type { Finding } from '../../../src/lib/domain/report';
+import { findingsInUnits } from '@/lib/domain/findings-in-units';
+import type { Finding } from '@/lib/domain/report';
 
 const f = (rule: string, elements: string[], message: string): Finding => ({ rule, severity: 'note', elements, message, basis: 'b' }) as Finding;
 

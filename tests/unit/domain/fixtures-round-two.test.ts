@@ -5,11 +5,11 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { checkPlan } from '../../../src/lib/domain/checker';
-import { decrementFactor, singleRodOhms } from '../../../src/lib/domain/calc';
-import { IEEE142_MULTIPLIERS } from '../../../src/lib/domain/calc/rods';
-import { radiusFromDiameterMm } from '../../../src/lib/domain/calc/units';
-import { parsePlan, type PlanDocument } from '../../../src/lib/schemas/plan';
+import { checkPlan } from '@/lib/domain/checker';
+import { decrementFactor, singleRodOhms } from '@/lib/domain/calc';
+import { IEEE142_MULTIPLIERS } from '@/lib/domain/calc/rods';
+import { radiusFromDiameterMm } from '@/lib/domain/calc/units';
+import { parsePlan, type PlanDocument } from '@/lib/schemas/plan';
 
 const dir = join(__dirname, '../../../fixtures/plans');
 function load(name: string): PlanDocument {

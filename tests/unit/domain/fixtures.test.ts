@@ -5,8 +5,8 @@
 import { readFileSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { checkPlan } from '../../../src/lib/domain/checker';
-import { parsePlan } from '../../../src/lib/schemas/plan';
+import { checkPlan } from '@/lib/domain/checker';
+import { parsePlan } from '@/lib/schemas/plan';
 
 const dir = join(__dirname, '../../../fixtures/plans');
 type Expected = { rule: string; severity?: string; elements: string[] }[];

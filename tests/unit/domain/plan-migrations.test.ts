@@ -4,9 +4,9 @@
  * the app (before the checker's second round and its optional fields) still loads unchanged.
  */
 import { describe, expect, it } from 'vitest';
-import { migratePlan, PLAN_STEPS, PlanVersionError, type PlanStep } from '../../../src/lib/domain/plan-migrations';
-import { checkPlan } from '../../../src/lib/domain/checker';
-import { PLAN_VERSION, planSchema } from '../../../src/lib/schemas/plan';
+import { migratePlan, PLAN_STEPS, PlanVersionError, type PlanStep } from '@/lib/domain/plan-migrations';
+import { checkPlan } from '@/lib/domain/checker';
+import { PLAN_VERSION, planSchema } from '@/lib/schemas/plan';
 import firstRound from './stored-plan-v1-first-round.json';
 
 describe('migratePlan', () => {

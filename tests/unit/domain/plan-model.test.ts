@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { buildPlanModel, compareIds, isConductive, isGroundSource, isNonBonding, isPoleGround } from '../../../src/lib/domain/plan-model';
+import { buildPlanModel, compareIds, isConductive, isGroundSource, isNonBonding, isPoleGround } from '@/lib/domain/plan-model';
 import { makePlan, node } from '../../helpers/plan-factory';
 
 const kinds = makePlan({

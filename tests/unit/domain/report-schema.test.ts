@@ -2,10 +2,10 @@
 import { readFileSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { checkPlan } from '../../../src/lib/domain/checker';
-import { libraryFacts } from '../../../src/lib/domain/library-facts';
-import { planSchema } from '../../../src/lib/schemas/plan';
-import { parseStoredReport, reportSchema } from '../../../src/lib/schemas/report';
+import { checkPlan } from '@/lib/domain/checker';
+import { libraryFacts } from '@/lib/domain/library-facts';
+import { planSchema } from '@/lib/schemas/plan';
+import { parseStoredReport, reportSchema } from '@/lib/schemas/report';
 
 const dir = join(import.meta.dirname, '../../../fixtures/plans');
 const fixtures = readdirSync(dir).filter((f) => f.endsWith('.json') && f !== 'expected.json');

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { PLAN_STATUSES, nextStatus } from '../../../src/lib/domain/plan-status';
-import { judgeDecision, judgeReopen, judgeWithdraw, judgeSubmit, relatedToEditors, type DecisionFacts } from '../../../src/lib/domain/review-guards';
+import { PLAN_STATUSES, nextStatus } from '@/lib/domain/plan-status';
+import { judgeDecision, judgeReopen, judgeWithdraw, judgeSubmit, relatedToEditors, type DecisionFacts } from '@/lib/domain/review-guards';
 
 describe('judgeSubmit', () => {
   const base = { status: 'draft' as const, currentRevision: 3, blockers: 0, decided: false };

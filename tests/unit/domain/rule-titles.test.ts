@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { RETIRED_RULE_IDS, RULE_IDS } from '../../../src/lib/domain/rules/index';
-import { RULE_TITLES, ruleTitle } from '../../../src/lib/domain/rules/titles';
+import { RETIRED_RULE_IDS, RULE_IDS } from '@/lib/domain/rules/index';
+import { RULE_TITLES, ruleTitle } from '@/lib/domain/rules/titles';
 
 describe('rule titles', () => {
   it('every rule id a report can carry, retired ones too, has a title in words', () => {

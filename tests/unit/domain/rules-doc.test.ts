@@ -5,8 +5,8 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { CALC_FAILED } from '../../../src/lib/domain/checker';
-import { RETIRED_RULE_IDS, RULE_IDS, RULES } from '../../../src/lib/domain/rules/index';
+import { CALC_FAILED } from '@/lib/domain/checker';
+import { RETIRED_RULE_IDS, RULE_IDS, RULES } from '@/lib/domain/rules/index';
 
 const text = readFileSync(join(__dirname, '../../../docs/rules.md'), 'utf8');
 const [current, retired = ''] = text.split('\n## Retired ids');

@@ -3,7 +3,7 @@
  * it does not, through the real checker, with exact rule ids, severities and element ids.
  */
 import { describe, expect, it } from 'vitest';
-import { checkPlan } from '../../../src/lib/domain/checker';
+import { checkPlan } from '@/lib/domain/checker';
 import { bucketLinks, bucketNodes, bucketPlan, link, makePlan, node, patchElement } from '../../helpers/plan-factory';
 import { describeRuleCases } from '../../helpers/rule-cases';
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { checkPlan } from '../../../src/lib/domain/checker';
-import { findStarter } from '../../../src/lib/domain/starters';
-import { parsePlan, type PlanDocument } from '../../../src/lib/schemas/plan';
+import { checkPlan } from '@/lib/domain/checker';
+import { findStarter } from '@/lib/domain/starters';
+import { parsePlan, type PlanDocument } from '@/lib/schemas/plan';
 
 const starter = () => findStarter('tangent-bucket')!.build('System data');
 const without = (plan: PlanDocument, ...keys: ('faultKa' | 'clearingCycles' | 'xOverR')[]): PlanDocument => {

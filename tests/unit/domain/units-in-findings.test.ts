@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { checkPlan } from '../../../src/lib/domain/checker';
-import { findStarter } from '../../../src/lib/domain/starters';
-import type { PlanDocument } from '../../../src/lib/schemas/plan';
+import { checkPlan } from '@/lib/domain/checker';
+import { findStarter } from '@/lib/domain/starters';
+import type { PlanDocument } from '@/lib/schemas/plan';
 
 // A rod driven 1 m from where a person works, jumpered to the cluster bar.
 const plan = (): PlanDocument => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { findZones } from '../../../src/lib/domain/zones';
+import { findZones } from '@/lib/domain/zones';
 import { bucketPlan, link, makePlan, node } from '../../helpers/plan-factory';
 
 const summary = (plan: Parameters<typeof findZones>[0]) =>

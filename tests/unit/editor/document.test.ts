@@ -1,12 +1,12 @@
-import { fontRuns, GREEK, LATIN } from '../../../src/components/editor/pdf-font';
+import { fontRuns, GREEK, LATIN } from '@/components/editor/pdf-font';
 import { describe, expect, it } from 'vitest';
-import { STARTERS, emptyPlan } from '../../../src/lib/domain/starters';
-import { parsePlan } from '../../../src/lib/schemas/plan';
-import { createEditorStore } from '../../../src/components/editor/store';
-import { nearestInDirection, placeUnpositioned, readingOrder, removeElements } from '../../../src/components/editor/plan-ops';
-import { buildFromForm, LINK_FIELDS, LINK_SCHEMA, NODE_FIELDS, NODE_SCHEMA, toFormValues } from '../../../src/components/editor/panels/fields';
-import { commandFor } from '../../../src/components/editor/keyboard';
-import { pdfText } from '../../../src/components/editor/export';
+import { STARTERS, emptyPlan } from '@/lib/domain/starters';
+import { parsePlan } from '@/lib/schemas/plan';
+import { createEditorStore } from '@/components/editor/store';
+import { nearestInDirection, placeUnpositioned, readingOrder, removeElements } from '@/components/editor/plan-ops';
+import { buildFromForm, LINK_FIELDS, LINK_SCHEMA, NODE_FIELDS, NODE_SCHEMA, toFormValues } from '@/components/editor/panels/fields';
+import { commandFor } from '@/components/editor/keyboard';
+import { pdfText } from '@/components/editor/export';
 
 describe('starters', () => {
   it('has the five starting layouts', () => {

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { drawingScene, glyphShapes, type Shape } from '../../../src/components/editor/drawing-scene';
-import type { CheckReport } from '../../../src/lib/domain/report';
-import { findStarter } from '../../../src/lib/domain/starters';
-import { NODE_KINDS, type PlanNode } from '../../../src/lib/schemas/plan';
+import { drawingScene, glyphShapes, type Shape } from '@/components/editor/drawing-scene';
+import type { CheckReport } from '@/lib/domain/report';
+import { findStarter } from '@/lib/domain/starters';
+import { NODE_KINDS, type PlanNode } from '@/lib/schemas/plan';
 
 const doc = findStarter('tangent-bucket')!.build();
 const points = (shapes: Shape[]) => shapes.flatMap((s) => (s.t === 'poly' ? s.pts.map((v, i) => [i % 2, v] as const) : [[0, s.x] as const, [1, s.y] as const]));

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { buildFromForm, NODE_FIELDS, NODE_SCHEMA, toFormValues } from '../../../src/components/editor/panels/fields';
+import { buildFromForm, NODE_FIELDS, NODE_SCHEMA, toFormValues } from '@/components/editor/panels/fields';
 
 // 5/8 in = 15.875 mm and 3/4 in = 19.05 mm exactly (1 in = 25.4 mm, NIST SP 811).
 const rod = { id: 'R1', kind: 'ground-rod', lengthM: 2.4384, diameterMm: 15.875, soilOhmM: 100 };
@@ -22,7 +22,7 @@ describe('the rod diameter field', () => {
 
 describe('the body weight basis', () => {
   it('names pounds beside kilograms (50 kg = 110.2 lb, 70 kg = 154.3 lb; 1 lb = 0.45359237 kg)', async () => {
-    const { CRITERIA_FIELDS } = await import('../../../src/components/editor/panels/fields');
+    const { CRITERIA_FIELDS } = await import('@/components/editor/panels/fields');
     const options = CRITERIA_FIELDS.find((f) => f.key === 'bodyKg')!.options!.map((o) => o.label);
     expect(options).toEqual(['50 kg (110 lb)', '70 kg (154 lb)']);
   });

@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { findStarter } from '../../../src/lib/domain/starters';
-import { parsePlan, type PlanDocument } from '../../../src/lib/schemas/plan';
-import { createEditorStore, HISTORY_LIMIT } from '../../../src/components/editor/store';
-import { STANDABLE } from '../../../src/components/editor/panels/fields';
-import { checkPlan } from '../../../src/lib/domain/checker';
+import { findStarter } from '@/lib/domain/starters';
+import { parsePlan, type PlanDocument } from '@/lib/schemas/plan';
+import { createEditorStore, HISTORY_LIMIT } from '@/components/editor/store';
+import { STANDABLE } from '@/components/editor/panels/fields';
+import { checkPlan } from '@/lib/domain/checker';
 
 const starter = () => findStarter('tangent-bucket')!.build('Test plan');
 const fresh = (doc: PlanDocument = starter()) => createEditorStore({ doc, baseRevision: 3 });

@@ -1,8 +1,8 @@
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import { findStarter } from '../../../src/lib/domain/starters';
-import { createApi, type EditorApi, type SaveResult } from '../../../src/components/editor/api-client';
-import { createEditorStore } from '../../../src/components/editor/store';
-import { draftKey, readLocalDraft, startSync } from '../../../src/components/editor/sync';
+import { findStarter } from '@/lib/domain/starters';
+import { createApi, type EditorApi, type SaveResult } from '@/components/editor/api-client';
+import { createEditorStore } from '@/components/editor/store';
+import { draftKey, readLocalDraft, startSync } from '@/components/editor/sync';
 
 class MemoryStorage {
   map = new Map<string, string>();

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { createEditorStore } from '../../../src/components/editor/store';
-import { findStarter } from '../../../src/lib/domain/starters';
-import { cableLabel, feetFromMetres, formatLength, lengthInputValue, metresFromFeet, parseLength } from '../../../src/lib/domain/units';
-import { CABLE_SIZES } from '../../../src/lib/schemas/plan';
+import { createEditorStore } from '@/components/editor/store';
+import { findStarter } from '@/lib/domain/starters';
+import { cableLabel, feetFromMetres, formatLength, lengthInputValue, metresFromFeet, parseLength } from '@/lib/domain/units';
+import { CABLE_SIZES } from '@/lib/schemas/plan';
 
 describe('lengths', () => {
   it('converts with the international foot (exactly 0.3048 m)', () => {

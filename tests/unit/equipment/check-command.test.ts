@@ -2,7 +2,7 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { expect, it } from 'vitest';
-import { runCheckCommand } from '../../../src/cli/check-command';
+import { runCheckCommand } from '@/cli/check-command';
 
 const dir = join(__dirname, '../../../fixtures/equipment');
 const files: Record<string, string> = {

@@ -1,6 +1,6 @@
 /** The inventory CSV: round trip through the export format, and every problem as `line N.column`. */
 import { describe, expect, it } from 'vitest';
-import { inventoryFromCsv, inventoryToCsv, parseInventoryCsv } from '../../../src/lib/schemas/equipment-csv';
+import { inventoryFromCsv, inventoryToCsv, parseInventoryCsv } from '@/lib/schemas/equipment-csv';
 
 const HEADER = 'tag,description,cable,lengthM,clampKind,clampKa,clampCycles,connection,inServiceOn,status,statusReason,lastTestedOn';
 const GOOD = 'GS-01,Phase set,2/0,3,grounding,27,15,ferrule,2024-05-01,in-service,,2026-01-10';

@@ -1,6 +1,6 @@
 /** Due dates with fixed dates: month ends and leap days (Gregorian calendar rules). */
 import { describe, expect, it } from 'vitest';
-import { addDays, addMonths, daysBetween, dueState, isCalendarDate, limitFor, testDueOn } from '../../../src/lib/domain/equipment';
+import { addDays, addMonths, daysBetween, dueState, isCalendarDate, limitFor, testDueOn } from '@/lib/domain/equipment';
 
 describe('addMonths', () => {
   it.each([

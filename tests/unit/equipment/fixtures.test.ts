@@ -5,9 +5,9 @@
 import { readFileSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { checkPlan } from '../../../src/lib/domain/checker';
-import { inventoryFromCsv } from '../../../src/lib/schemas/equipment-csv';
-import { parsePlan, type PlanDocument } from '../../../src/lib/schemas/plan';
+import { checkPlan } from '@/lib/domain/checker';
+import { inventoryFromCsv } from '@/lib/schemas/equipment-csv';
+import { parsePlan, type PlanDocument } from '@/lib/schemas/plan';
 
 const dir = join(__dirname, '../../../fixtures/equipment');
 const TODAY = '2026-06-15';

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { inventorySetStatus, usableSets, type InventorySet } from '../../../src/lib/domain/field-record';
+import { inventorySetStatus, usableSets, type InventorySet } from '@/lib/domain/field-record';
 
 const sets: InventorySet[] = [
   { tag: 'INV-1', status: 'in-service', testDueOn: '2026-05-04' },

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import {
   applyEntry, freeTextSetStatus, judgeClose, judgeEntry, nextStep, recordPlanFrom, replay, tableSetStatus, BRIEFING_ITEMS,
   type EntryBody, type FieldEntry, type RecordPlan, type RecordState, type SetStatusLookup,
-} from '../../../src/lib/domain/field-record';
+} from '@/lib/domain/field-record';
 import { planDocument } from '../../helpers/factories';
 
 const plan: RecordPlan = recordPlanFrom(planDocument());

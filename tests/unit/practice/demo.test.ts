@@ -1,9 +1,9 @@
 /** The practice demo's plans are clear and each of its exercises plants the gap it is meant to. */
 import { describe, expect, it } from 'vitest';
-import { checkPlan } from '../../../src/lib/domain/checker';
-import { prepareExercise } from '../../../src/lib/domain/practice';
-import { DEMO_EXERCISES, DEMO_PRACTICE_PLANS } from '../../../db/seeders/demo-practice';
-import { DEMO_PLANS } from '../../../db/seeders/demo-plans';
+import { checkPlan } from '@/lib/domain/checker';
+import { prepareExercise } from '@/lib/domain/practice';
+import { DEMO_EXERCISES, DEMO_PRACTICE_PLANS } from '@db/seeders/demo-practice';
+import { DEMO_PLANS } from '@db/seeders/demo-plans';
 
 const all = [...DEMO_PLANS.filter((p) => p.status === 'approved').map((p) => p.document), ...DEMO_PRACTICE_PLANS];
 

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { buildExercise, gradeFind, gradeFix, proposeRemovals } from '../../../src/lib/domain/practice';
-import type { PlanDocument, PlanLink } from '../../../src/lib/schemas/plan';
+import { buildExercise, gradeFind, gradeFix, proposeRemovals } from '@/lib/domain/practice';
+import type { PlanDocument, PlanLink } from '@/lib/schemas/plan';
 import { bucket, crew } from './plans';
 
 function exercise() {

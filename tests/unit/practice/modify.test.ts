@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { checkPlan } from '../../../src/lib/domain/checker';
-import { applyModifications, buildExercise, neutralLinkIds } from '../../../src/lib/domain/practice';
+import { checkPlan } from '@/lib/domain/checker';
+import { applyModifications, buildExercise, neutralLinkIds } from '@/lib/domain/practice';
 import { link, makePlan, bucketNodes, bucketLinks } from '../../helpers/plan-factory';
 import { bucket, crew } from './plans';
 

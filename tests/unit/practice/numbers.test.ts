@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { bodyCurrentQuestion, cableRatingQuestion, gradeNumbers, type AnswerKey } from '../../../src/lib/domain/practice';
-import { checkPlan } from '../../../src/lib/domain/checker';
+import { bodyCurrentQuestion, cableRatingQuestion, gradeNumbers, type AnswerKey } from '@/lib/domain/practice';
+import { checkPlan } from '@/lib/domain/checker';
 import { makePlan, bucketNodes, bucketLinks, patchElement } from '../../helpers/plan-factory';
 import { bucket, crew } from './plans';
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { nextExercises, progressByGap, progressRows, sortProgressRows } from '../../../src/lib/domain/practice';
+import { nextExercises, progressByGap, progressRows, sortProgressRows } from '@/lib/domain/practice';
 
 const cell = (apprenticeId: string, exerciseId: number, best: number, latest: number, attempts: number, lastAt: string) => ({ apprenticeId, exerciseId, best, latest, attempts, lastAt });
 const exercises = [

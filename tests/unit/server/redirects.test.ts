@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { sameOriginPath } from '../../../src/lib/server/redirects';
+import { sameOriginPath } from '@/lib/server/redirects';
 
 const origin = 'http://127.0.0.1:4321';
 

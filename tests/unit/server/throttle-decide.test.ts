@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { decide, type BucketPolicy } from '../../../db/repositories/throttle';
+import { decide, type BucketPolicy } from '@db/repositories/throttle';
 
 const t0 = new Date('2026-01-01T00:00:00Z');
 const at = (ms: number) => new Date(t0.getTime() + ms);

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { organisationSettingsBody } from '../../../src/lib/schemas/organisation';
+import { organisationSettingsBody } from '@/lib/schemas/organisation';
 
 describe('organisation settings body', () => {
   it('takes an IANA zone, a paper size and units', () => {

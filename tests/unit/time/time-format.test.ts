@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatDate, formatDateTime, isTimeZone } from '../../../src/lib/time-format';
+import { formatDate, formatDateTime, isTimeZone } from '@/lib/time-format';
 
 // One fixed instant read in several zones; offsets from the IANA tz database (public).
 const instant = new Date('2026-07-01T03:30:00Z');

@@ -5,10 +5,10 @@
  */
 import { memo } from 'react';
 import { BaseEdge, type EdgeProps, type EdgeTypes } from 'reactflow';
-import type { PlanLink } from '../../../lib/schemas/plan';
-import { cableTag } from '../../../lib/domain/units';
-import { SEVERITY_COLOUR } from '../../ui/SeverityMark';
-import { selectSeverityOf, useEditor } from '../selectors';
+import type { PlanLink } from '@/lib/schemas/plan';
+import { cableTag } from '@/lib/domain/units';
+import { SEVERITY_COLOUR } from '@/components/ui/SeverityMark';
+import { selectSeverityOf, useEditor } from '@/components/editor/selectors';
 
 const INK = '#1b2330';
 const NODE_RADIUS = 46;

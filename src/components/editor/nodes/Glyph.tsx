@@ -3,7 +3,7 @@
  * Materials: wood hatched, steel solid, concrete dotted, fiberglass outlined.
  */
 import { memo } from 'react';
-import type { Material, NodeKind } from '../../../lib/schemas/plan';
+import type { Material, NodeKind } from '@/lib/schemas/plan';
 
 const INK = '#1b2330';
 const s = { fill: 'none', stroke: INK, strokeWidth: 2, strokeLinecap: 'round' as const, strokeLinejoin: 'round' as const };

@@ -5,9 +5,9 @@
  */
 import { memo } from 'react';
 import { Handle, Position, type NodeProps, type NodeTypes } from 'reactflow';
-import { NODE_KINDS, type PlanNode } from '../../../lib/schemas/plan';
-import { SEVERITY_COLOUR, SeverityGlyph } from '../../ui/SeverityMark';
-import { selectSeverityOf, useEditor, worstContact } from '../selectors';
+import { NODE_KINDS, type PlanNode } from '@/lib/schemas/plan';
+import { SEVERITY_COLOUR, SeverityGlyph } from '@/components/ui/SeverityMark';
+import { selectSeverityOf, useEditor, worstContact } from '@/components/editor/selectors';
 import { Glyph } from './Glyph';
 
 const WORD = { blocker: 'Blocker', warning: 'Warning', note: 'Note' } as const;

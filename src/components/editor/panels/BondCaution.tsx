@@ -3,7 +3,7 @@
  * or to ground): a bond is a permanent connection and the check rates nothing on it.
  */
 import { useEffect, useRef } from 'react';
-import { useEditor } from '../selectors';
+import { useEditor } from '@/components/editor/selectors';
 
 export function BondCaution() {
   const pending = useEditor((s) => s.pendingBond);

@@ -3,9 +3,9 @@
  * the caution at its foot, always visible.
  */
 import { useState } from 'react';
-import { CAUTION, type Finding } from '../../../lib/domain/report';
-import { SeverityGlyph } from '../../ui/SeverityMark';
-import { useEditor } from '../selectors';
+import { CAUTION, type Finding } from '@/lib/domain/report';
+import { SeverityGlyph } from '@/components/ui/SeverityMark';
+import { useEditor } from '@/components/editor/selectors';
 import { FaultTable, JumpersTable, RodsTable, WorkersTable } from './FigureTables';
 import { FindingsList } from './FindingsList';
 

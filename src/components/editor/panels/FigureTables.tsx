@@ -1,7 +1,7 @@
 /** The drawer's figure tabs: contacts per worker, jumpers, rods and the fault. */
-import type { CheckReport, Figure } from '../../../lib/domain/report';
-import { formatForcePerLength, formatLength, milliampsNumber, type UnitSystem } from '../../../lib/domain/units';
-import type { PlanDocument } from '../../../lib/schemas/plan';
+import type { CheckReport, Figure } from '@/lib/domain/report';
+import { formatForcePerLength, formatLength, milliampsNumber, type UnitSystem } from '@/lib/domain/units';
+import type { PlanDocument } from '@/lib/schemas/plan';
 
 export const fmt = (v: Figure | undefined, digits = 2): string => (v === null || v === undefined ? '—' : v.toLocaleString('en', { maximumFractionDigits: digits }));
 const ma = milliampsNumber;

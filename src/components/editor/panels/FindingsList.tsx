@@ -1,6 +1,6 @@
 /** Findings grouped by severity, each told apart by word and glyph, with its basis and a "Show" action. */
-import type { Finding, Severity } from '../../../lib/domain/report';
-import { SeverityMark } from '../../ui/SeverityMark';
+import type { Finding, Severity } from '@/lib/domain/report';
+import { SeverityMark } from '@/components/ui/SeverityMark';
 
 const GROUPS: { severity: Severity; title: string }[] = [
   { severity: 'blocker', title: 'Blockers' },

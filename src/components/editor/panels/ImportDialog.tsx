@@ -1,6 +1,6 @@
 /** Importing a plan JSON file: every problem listed by path, nothing replaced until it parses. */
 import { useEffect, useRef } from 'react';
-import type { PlanIssue } from '../../../lib/schemas/plan';
+import type { PlanIssue } from '@/lib/schemas/plan';
 
 export function ImportProblems({ fileName, issues, onClose }: { fileName: string; issues: PlanIssue[]; onClose: () => void }) {
   const ref = useRef<HTMLButtonElement>(null);

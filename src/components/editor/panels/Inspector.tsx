@@ -3,9 +3,9 @@
  * system data and criteria; the units switch (metric / imperial) sits at its top.
  */
 import { useCallback } from 'react';
-import type { PlanCriteria, PlanLink, PlanNode, PlanSystem } from '../../../lib/schemas/plan';
-import { KIND_LABELS, LINK_LABELS } from '../plan-ops';
-import { findElement, isLink, useEditor } from '../selectors';
+import type { PlanCriteria, PlanLink, PlanNode, PlanSystem } from '@/lib/schemas/plan';
+import { KIND_LABELS, LINK_LABELS } from '@/components/editor/plan-ops';
+import { findElement, isLink, useEditor } from '@/components/editor/selectors';
 import { CRITERIA_FIELDS, CRITERIA_SCHEMA, LINK_FIELDS, LINK_SCHEMA, NODE_FIELDS, NODE_SCHEMA, SYSTEM_FIELDS, SYSTEM_SCHEMA } from './fields';
 import { PropertiesForm } from './PropertiesForm';
 import { SetPicker } from './SetPicker';

@@ -3,10 +3,10 @@
  * onto the canvas; below it the three link tools (tap the two ends, or drag from a node's nub).
  */
 import { memo } from 'react';
-import type { LinkKind, NodeKind } from '../../../lib/schemas/plan';
-import { Glyph } from '../nodes/Glyph';
-import { KIND_LABELS, LINK_LABELS } from '../plan-ops';
-import { useEditor } from '../selectors';
+import type { LinkKind, NodeKind } from '@/lib/schemas/plan';
+import { Glyph } from '@/components/editor/nodes/Glyph';
+import { KIND_LABELS, LINK_LABELS } from '@/components/editor/plan-ops';
+import { useEditor } from '@/components/editor/selectors';
 
 export const PALETTE_GROUPS: { name: string; kinds: NodeKind[] }[] = [
   { name: 'Conductors', kinds: ['phase', 'neutral', 'shield-wire', 'supply-end'] },

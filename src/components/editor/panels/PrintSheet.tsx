@@ -4,11 +4,11 @@
  * jumper figures, crew sign-on and the caution — the same sheet as the PDF.
  */
 import { forwardRef } from 'react';
-import { CAUTION, type CheckReport } from '../../../lib/domain/report';
-import { formatLength, type UnitSystem } from '../../../lib/domain/units';
-import type { PlanDocument } from '../../../lib/schemas/plan';
-import { drawingScene } from '../drawing-scene';
-import type { SheetMeta } from '../export';
+import { CAUTION, type CheckReport } from '@/lib/domain/report';
+import { formatLength, type UnitSystem } from '@/lib/domain/units';
+import type { PlanDocument } from '@/lib/schemas/plan';
+import { drawingScene } from '@/components/editor/drawing-scene';
+import type { SheetMeta } from '@/components/editor/export';
 import { FaultTable, JumpersTable, RodsTable, WorkersTable, fmt } from './FigureTables';
 import { FindingsList } from './FindingsList';
 import { ScenePicture } from './ScenePicture';

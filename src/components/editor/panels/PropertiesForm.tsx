@@ -4,9 +4,9 @@
  */
 import { useEffect, useId, useState } from 'react';
 import type { z } from 'zod';
-import type { UnitSystem } from '../../../lib/domain/units';
-import { cableLabel } from '../../../lib/domain/units';
-import type { CableSize, PlanNode } from '../../../lib/schemas/plan';
+import type { UnitSystem } from '@/lib/domain/units';
+import { cableLabel } from '@/lib/domain/units';
+import type { CableSize, PlanNode } from '@/lib/schemas/plan';
 import { buildFromForm, toFormValues, type FieldSpec, type FormValues } from './fields';
 
 export interface PropertiesFormProps {

@@ -1,5 +1,5 @@
 /** The save state in words and a shape (screens.md): Saved / Saving… / Offline — kept on this device / Conflict. */
-import type { SaveState } from '../store';
+import type { SaveState } from '@/components/editor/store';
 
 const TEXT: Record<SaveState, string> = {
   saved: 'Saved',

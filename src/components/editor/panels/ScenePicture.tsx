@@ -1,6 +1,6 @@
 /** The export drawing (drawing-scene.ts) as an inline SVG, for the print sheet: vector, no copy of the canvas. */
-import type { Shape } from '../drawing-scene';
-import { INK } from '../drawing-scene';
+import type { Shape } from '@/components/editor/drawing-scene';
+import { INK } from '@/components/editor/drawing-scene';
 
 export function ScenePicture({ shapes, width, height, title }: { shapes: Shape[]; width: number; height: number; title: string }) {
   return (

@@ -4,9 +4,9 @@
  * `equipmentId` holds the set's tag) and are listed here as coming from it.
  */
 import { useEffect, useId, useState } from 'react';
-import type { LinkOf, PlanLink } from '../../../lib/schemas/plan';
-import { dueState, type SetRecord } from '../../../lib/domain/equipment';
-import { useEditor } from '../selectors';
+import type { LinkOf, PlanLink } from '@/lib/schemas/plan';
+import { dueState, type SetRecord } from '@/lib/domain/equipment';
+import { useEditor } from '@/components/editor/selectors';
 
 type Jumper = LinkOf<'jumper'>;
 type ListedSet = SetRecord & { id: number; description: string };

@@ -4,7 +4,7 @@
  * comes back on the next load).
  */
 import { useEffect, useRef } from 'react';
-import { useEditor } from '../selectors';
+import { useEditor } from '@/components/editor/selectors';
 
 export function SignedOutDialog({ planId, onResume }: { planId: number; onResume: () => void }) {
   const signedOut = useEditor((s) => s.saveState === 'signed-out' || s.checkState === 'signed-out');

@@ -1,8 +1,8 @@
 /** The editor's top bar: title, status, revision, save state and the actions. */
 import { useEffect, useRef, useState } from 'react';
-import type { PlanStatus } from '../../../lib/domain/plan-status';
-import { StatusBadge } from '../../ui/StatusBadge';
-import { useEditor } from '../selectors';
+import type { PlanStatus } from '@/lib/domain/plan-status';
+import { StatusBadge } from '@/components/ui/StatusBadge';
+import { useEditor } from '@/components/editor/selectors';
 import { SaveIndicator } from './SaveIndicator';
 
 export interface TopBarProps {

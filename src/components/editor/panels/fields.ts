@@ -4,8 +4,8 @@
  * candidate is validated by the plan schema before it is stored.
  */
 import type { z } from 'zod';
-import { lengthInputValue, parseLength, parseNumber, type UnitSystem } from '../../../lib/domain/units';
-import { CABLE_SIZES, MATERIALS, criteriaSchema, linkSchema, nodeSchema, systemSchema, type LinkKind, type NodeKind } from '../../../lib/schemas/plan';
+import { lengthInputValue, parseLength, parseNumber, type UnitSystem } from '@/lib/domain/units';
+import { CABLE_SIZES, MATERIALS, criteriaSchema, linkSchema, nodeSchema, systemSchema, type LinkKind, type NodeKind } from '@/lib/schemas/plan';
 
 export type FieldType = 'text' | 'number' | 'length' | 'select' | 'boolean' | 'node';
 

@@ -3,9 +3,9 @@
  * replayed through the same pure rules the server uses. A new entry is judged here first, with the
  * same messages, against the organisation's sets sent with the record.
  */
-import { inventorySetStatus, judgeAppend, nextStep, replay, type FieldEntry, type Refusal } from '../../../lib/domain/field-record';
-import { judgingDay } from '../SetChoice';
-import type { CrewPerson, EntryView, RecordView } from '../types';
+import { inventorySetStatus, judgeAppend, nextStep, replay, type FieldEntry, type Refusal } from '@/lib/domain/field-record';
+import { judgingDay } from '@/components/records/SetChoice';
+import type { CrewPerson, EntryView, RecordView } from '@/components/records/types';
 import type { Pending } from './outbox';
 
 /**

@@ -5,8 +5,8 @@
  * stored entry). A refusal is kept beside its item, never dropped; a lost connection, a server
  * fault or a throttle waits and tries again later; a signed-out session waits for the next sign-in.
  */
-import type { EntryBody } from '../../../lib/domain/field-record';
-import type { ApiResult } from '../record-client';
+import type { EntryBody } from '@/lib/domain/field-record';
+import type { ApiResult } from '@/components/records/record-client';
 
 export type StampedEntry = EntryBody & { clientId: string; at: string };
 export interface Refused {

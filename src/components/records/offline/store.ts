@@ -4,7 +4,7 @@
  * the server. Everything is keyed by person: one person's queue waits for that person's next sign-in.
  */
 import { openDB, type DBSchema, type IDBPDatabase } from 'idb';
-import type { RecordView } from '../types';
+import type { RecordView } from '@/components/records/types';
 import type { OutboxStore, Pending } from './outbox';
 
 export interface CachedRecord {

@@ -4,8 +4,8 @@
  * device was last in step. Keyed by the signed-in person, so a queue waits for that person.
  */
 import { useCallback, useEffect, useMemo, useState } from 'react';
-import { fetchRecord, send, uploadPhoto } from '../record-client';
-import type { CrewPerson, EntryView, RecordView } from '../types';
+import { fetchRecord, send, uploadPhoto } from '@/components/records/record-client';
+import type { CrewPerson, EntryView, RecordView } from '@/components/records/types';
 import { Outbox, realClock, type FlushOutcome, type Pending, type StampedEntry, type Transport } from './outbox';
 import { cachedRecord, idbOutboxStore, keepRecord } from './store';
 

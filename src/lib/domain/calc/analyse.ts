@@ -2,13 +2,13 @@
  * Network figures for the report: the plan's network solved at the system frequency with the
  * fault injected into each phase in turn, worst case kept per contact, jumper and rod.
  */
-import type { PlanDocument } from '../../schemas/plan';
+import type { PlanDocument } from '@/lib/schemas/plan';
 import { solveInjections, type Injection } from './batch';
 import { tolerableBodyAmps } from './body';
 import type { ContactFigures, NetworkFigures } from './contract';
 import { computeFault } from './fault';
 import { bondFigures, jumperFigures, rodFigures, type WorstCurrents } from './figures';
-import { isSpan } from '../plan-model';
+import { isSpan } from '@/lib/domain/plan-model';
 import { assembleAdmittance, buildNetwork, REFERENCE, type Network } from './network';
 import { factorSymmetric, type LdlFactor } from './sparse';
 

@@ -2,7 +2,7 @@
  * Copper grounding cable: conductor data and the series impedance of a jumper at the system
  * frequency. Resistance per NEC Chapter 9 Table 8; inductance of a straight round wire.
  */
-import type { CableSize } from '../../schemas/plan';
+import type { CableSize } from '@/lib/schemas/plan';
 import { FEET_TO_M, MU0_H_PER_M, omega, radiusFromDiameterIn, type RadiusM } from './units';
 
 export interface CableData {

@@ -3,7 +3,7 @@
  * calculations (src/lib/domain/calc). Both sides code against these types; calc/index.ts
  * implements the functions named in the comments below.
  */
-import type { CableSize, PlanDocument } from '../../schemas/plan';
+import type { CableSize, PlanDocument } from '@/lib/schemas/plan';
 
 /** Fault-current shape at the work location (report field `fault`). */
 export interface FaultFigures {

@@ -2,7 +2,7 @@
  * Shape of the fault current at the work location: duration, DC-offset decrement factor,
  * first peak and the force it puts on parallel phase leads.
  */
-import type { PlanDocument } from '../../schemas/plan';
+import type { PlanDocument } from '@/lib/schemas/plan';
 import type { FaultFigures } from './contract';
 import { toAmps, kiloamps } from './units';
 

@@ -1,7 +1,7 @@
 /**
  * Jumper and rod figures for the report, from the worst currents the phase solves found.
  */
-import type { PlanDocument } from '../../schemas/plan';
+import type { PlanDocument } from '@/lib/schemas/plan';
 import type { Assumption, BondFigures, FaultFigures, JumperFigures, RodFigures } from './contract';
 import type { Network } from './network';
 import { cableRating, clampRatingAt, RATING_TABLE_HZ, TABLE_SHORT_S } from './ratings';

@@ -2,8 +2,8 @@
  * The electrical network of a plan at the system frequency: which plan nodes are unknowns, which
  * branches join them, and the admittance matrix to factorise. Remote earth is the reference.
  */
-import type { PlanDocument, PlanLink, PlanNode } from '../../schemas/plan';
-import { boomPaths, isConductive } from '../plan-model';
+import type { PlanDocument, PlanLink, PlanNode } from '@/lib/schemas/plan';
+import { boomPaths, isConductive } from '@/lib/domain/plan-model';
 import { BARE_STRANDS_OHMS, jumperImpedance } from './cable';
 import type { Assumption } from './contract';
 import { rodGroupOhms, rodInRange, type RodResistance } from './rods';

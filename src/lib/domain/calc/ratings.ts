@@ -2,7 +2,7 @@
  * Short-time current ratings of grounding cable and clamps for the plan's clearing time:
  * the ASTM F855 grade table, Onderdonk's fusing current, and I²t conversion between durations.
  */
-import type { CableSize } from '../../schemas/plan';
+import type { CableSize } from '@/lib/schemas/plan';
 import { CABLES } from './cable';
 
 /** Onderdonk's constants for copper: melting point and ambient, °C. */

@@ -2,7 +2,7 @@
  * The two questions a store asks under its lock, answered from the plan document and the entries
  * so far: may this entry be appended (and how many sets are on after it), and may the record close.
  */
-import type { PlanDocument } from '../../schemas/plan';
+import type { PlanDocument } from '@/lib/schemas/plan';
 import type { Refusal } from './refusals';
 import { applyEntry, judgeClose, judgeEntry, recordPlanFrom, replay } from './rules';
 import type { SetStatusLookup } from './set-status';

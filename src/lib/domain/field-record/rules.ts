@@ -3,7 +3,7 @@
  * they were recorded), what the record says now, whether a new entry is allowed and why not,
  * and which step comes next. No server code, no clock: the same module will run on the device.
  */
-import type { PlanDocument } from '../../schemas/plan';
+import type { PlanDocument } from '@/lib/schemas/plan';
 import { refuse, type Refusal } from './refusals';
 import type { SetStatusLookup } from './set-status';
 import { BRIEFING_ITEMS, type BriefingItem, type EntryBody, type FieldEntry, type Flag, type RecordPlan } from './types';

@@ -2,10 +2,10 @@
  * Grading: found, missed and wrongly marked elements for find; the fixed copy's own check for fix;
  * the exact choice for numbers. Scores are 0–100 and 100 means passed.
  */
-import { canonicalJson } from '../canonical-json';
-import { checkPlan } from '../checker';
-import type { Finding } from '../report';
-import type { PlanDocument } from '../../schemas/plan';
+import { canonicalJson } from '@/lib/domain/canonical-json';
+import { checkPlan } from '@/lib/domain/checker';
+import type { Finding } from '@/lib/domain/report';
+import type { PlanDocument } from '@/lib/schemas/plan';
 import { findingKey, type AnswerKey } from './types';
 
 export interface FindGrade {

@@ -3,9 +3,9 @@
  * neutral ids so the remaining ones do not show where one was taken out, and run the checker to
  * find what the change planted. The original document is never mutated.
  */
-import { checkPlan } from '../checker';
-import type { CheckReport, Finding } from '../report';
-import type { PlanDocument, PlanLink } from '../../schemas/plan';
+import { checkPlan } from '@/lib/domain/checker';
+import type { CheckReport, Finding } from '@/lib/domain/report';
+import type { PlanDocument, PlanLink } from '@/lib/schemas/plan';
 import { findingKey, type AnswerKey, type GapKind, type Modifications } from './types';
 
 export interface ModificationIssue {

@@ -3,10 +3,10 @@
  * make (the other body-weight constant, the wrong clearing time, the neighbouring cable row, the
  * fusing figure instead of the withstand rating).
  */
-import { tolerableBodyAmps } from '../calc/body';
-import { cableRating } from '../calc/ratings';
-import type { CableSize, PlanDocument } from '../../schemas/plan';
-import { CABLE_SIZES } from '../../schemas/plan';
+import { tolerableBodyAmps } from '@/lib/domain/calc/body';
+import { cableRating } from '@/lib/domain/calc/ratings';
+import type { CableSize, PlanDocument } from '@/lib/schemas/plan';
+import { CABLE_SIZES } from '@/lib/schemas/plan';
 import type { NumbersQuestion } from './types';
 
 /** Three significant figures: what the choices show and how they are told apart. */

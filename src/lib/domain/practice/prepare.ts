@@ -1,5 +1,5 @@
 /** An exercise of a given kind, ready to store: the built gap plus, for numbers, its question. */
-import type { PlanDocument } from '../../schemas/plan';
+import type { PlanDocument } from '@/lib/schemas/plan';
 import { buildExercise, type BuildResult } from './modify';
 import { bodyCurrentQuestion, cableRatingQuestion } from './numbers';
 import type { ExerciseKind, Modifications } from './types';

@@ -3,9 +3,9 @@
  * cable for a smaller one, run the checker on every candidate, and keep one candidate per kind of
  * gap — so a reviewer is offered gaps that each produce a blocker of a different kind.
  */
-import { checkPlan } from '../checker';
-import type { Finding } from '../report';
-import type { CableSize, PlanDocument } from '../../schemas/plan';
+import { checkPlan } from '@/lib/domain/checker';
+import type { Finding } from '@/lib/domain/report';
+import type { CableSize, PlanDocument } from '@/lib/schemas/plan';
 import { applyModifications, buildExercise, plantedFindings } from './modify';
 import { GAP_KINDS, type GapKind, type Modifications } from './types';
 

@@ -2,8 +2,8 @@
  * Practice exercises: a gap put into a copy of an approved plan, which the apprentice finds,
  * fixes, or answers a figure about. These are the shapes the pure practice functions share.
  */
-import type { CableSize } from '../../schemas/plan';
-import type { Finding } from '../report';
+import type { CableSize } from '@/lib/schemas/plan';
+import type { Finding } from '@/lib/domain/report';
 
 /** What the apprentice does: mark the unsafe elements, repair a copy, or pick a figure. */
 export const EXERCISE_KINDS = ['find', 'fix', 'numbers'] as const;

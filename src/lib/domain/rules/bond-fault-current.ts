@@ -1,5 +1,5 @@
-import { capitalise } from '../plan-model';
-import { BOND_DEFAULT_OHMS } from '../calc/network';
+import { capitalise } from '@/lib/domain/plan-model';
+import { BOND_DEFAULT_OHMS } from '@/lib/domain/calc/network';
 import { formatKiloamps, ohms } from './format';
 import type { Finding, RuleContext } from './types';
 

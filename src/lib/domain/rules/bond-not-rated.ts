@@ -1,4 +1,4 @@
-import { capitalise, isConductive, isSpan } from '../plan-model';
+import { capitalise, isConductive, isSpan } from '@/lib/domain/plan-model';
 import { listOf } from './format';
 import type { Finding, RuleContext } from './types';
 

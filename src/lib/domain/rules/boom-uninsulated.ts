@@ -1,4 +1,4 @@
-import { boomPaths, capitalise, isBondingLink } from '../plan-model';
+import { boomPaths, capitalise, isBondingLink } from '@/lib/domain/plan-model';
 import type { Finding, RuleContext } from './types';
 
 export const BOOM_UNINSULATED = 'boom-uninsulated';

@@ -1,5 +1,5 @@
-import { CABLE_SIZES, type CableSize } from '../../schemas/plan';
-import { capitalise } from '../plan-model';
+import { CABLE_SIZES, type CableSize } from '@/lib/schemas/plan';
+import { capitalise } from '@/lib/domain/plan-model';
 import { BELOW_MINIMUM_CABLES } from './cable-below-minimum';
 import { cableName, formatKiloamps, seconds } from './format';
 import type { Finding, RuleContext } from './types';

@@ -1,4 +1,4 @@
-import { DALZIEL_MAX_S, DALZIEL_MIN_S } from '../calc/index';
+import { DALZIEL_MAX_S, DALZIEL_MIN_S } from '@/lib/domain/calc/index';
 import { seconds } from './format';
 import type { Finding, RuleContext } from './types';
 

@@ -1,4 +1,4 @@
-import { isConductive } from '../plan-model';
+import { isConductive } from '@/lib/domain/plan-model';
 import type { Finding, RuleContext } from './types';
 
 export const CONTACT_UNSOLVED = 'contact-unsolved';

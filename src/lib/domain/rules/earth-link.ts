@@ -1,4 +1,4 @@
-import { capitalise } from '../plan-model';
+import { capitalise } from '@/lib/domain/plan-model';
 import type { Finding, RuleContext } from './types';
 
 export const EARTH_LINK = 'earth-link';

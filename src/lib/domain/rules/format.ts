@@ -14,8 +14,8 @@ export {
   formatFactor as factor,
   formatMillimetres as millimetres,
   formatKiloamps,
-} from '../units';
-import { formatForcePerLength } from '../units';
+} from '@/lib/domain/units';
+import { formatForcePerLength } from '@/lib/domain/units';
 
 /** Cable size as the trade writes it: "#2", "4/0", "250 kcmil". */
 export function cableName(cable: string): string {

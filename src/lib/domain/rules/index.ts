@@ -2,8 +2,8 @@
  * Every checker rule, one per file, and the stable order findings are reported in: severity
  * (blocker, warning, note), then rule id, then elements.
  */
-import { compareIds } from '../plan-model';
-import { SEVERITIES } from '../report';
+import { compareIds } from '@/lib/domain/plan-model';
+import { SEVERITIES } from '@/lib/domain/report';
 import { checkBodyCurrentExceeds } from './body-current-exceeds';
 import { checkBondFaultCurrent } from './bond-fault-current';
 import { checkBondNotRated } from './bond-not-rated';

@@ -1,5 +1,5 @@
-import { BARE_STRANDS_OHMS } from '../calc/cable';
-import { capitalise } from '../plan-model';
+import { BARE_STRANDS_OHMS } from '@/lib/domain/calc/cable';
+import { capitalise } from '@/lib/domain/plan-model';
 import { milliohms } from './format';
 import type { Finding, RuleContext } from './types';
 

@@ -1,4 +1,4 @@
-import { capitalise } from '../plan-model';
+import { capitalise } from '@/lib/domain/plan-model';
 import { metres } from './format';
 import type { Finding, RuleContext } from './types';
 

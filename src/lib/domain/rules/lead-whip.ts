@@ -1,4 +1,4 @@
-import { capitalise } from '../plan-model';
+import { capitalise } from '@/lib/domain/plan-model';
 import { listOf, metres, newtonsPerMetre } from './format';
 import type { Finding, RuleContext } from './types';
 

@@ -1,4 +1,4 @@
-import { capitalise, isNonBonding } from '../plan-model';
+import { capitalise, isNonBonding } from '@/lib/domain/plan-model';
 import type { Finding, RuleContext } from './types';
 
 export const LINK_ON_INSULATOR = 'link-on-insulator';

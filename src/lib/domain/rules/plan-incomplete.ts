@@ -1,4 +1,4 @@
-import { isGroundSource, isPoleGround } from '../plan-model';
+import { isGroundSource, isPoleGround } from '@/lib/domain/plan-model';
 import { listOf } from './format';
 import type { Finding, RuleContext } from './types';
 

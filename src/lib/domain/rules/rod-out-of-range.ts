@@ -1,5 +1,5 @@
-import { ROD_MIN_LENGTH_TO_RADIUS, rodInRange } from '../calc/rods';
-import { capitalise } from '../plan-model';
+import { ROD_MIN_LENGTH_TO_RADIUS, rodInRange } from '@/lib/domain/calc/rods';
+import { capitalise } from '@/lib/domain/plan-model';
 import { millimetres, shortLength } from './format';
 import type { Finding, RuleContext } from './types';
 

@@ -1,4 +1,4 @@
-import type { LinkOf } from '../../schemas/plan';
+import type { LinkOf } from '@/lib/schemas/plan';
 import { cableName, formatKiloamps, listOf, metres } from './format';
 import type { Finding, RuleContext } from './types';
 

@@ -1,4 +1,4 @@
-import { capitalise, isBondingLink, isConductive, isGroundSource, isPoleGround, isSpan } from '../plan-model';
+import { capitalise, isBondingLink, isConductive, isGroundSource, isPoleGround, isSpan } from '@/lib/domain/plan-model';
 import { listOf } from './format';
 import type { Finding, RuleContext } from './types';
 

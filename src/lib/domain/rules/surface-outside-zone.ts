@@ -1,4 +1,4 @@
-import { capitalise, isConductive } from '../plan-model';
+import { capitalise, isConductive } from '@/lib/domain/plan-model';
 import type { Finding, RuleContext } from './types';
 
 export const SURFACE_OUTSIDE_ZONE = 'surface-outside-zone';

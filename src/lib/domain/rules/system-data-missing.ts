@@ -1,4 +1,4 @@
-import type { PlanSystem } from '../../schemas/plan';
+import type { PlanSystem } from '@/lib/schemas/plan';
 import type { Finding, RuleContext } from './types';
 
 export const SYSTEM_DATA_MISSING = 'system-data-missing';

@@ -2,15 +2,15 @@
  * What every checker rule receives and returns. A rule is a pure function of this context; how
  * findings are shown (panel, JSON, PDF) is someone else's code.
  */
-import type { CableSize, PlanDocument } from '../../schemas/plan';
-import type { FaultFigures, NetworkFigures } from '../calc/contract';
-import type { PlanModel } from '../plan-model';
-import type { SetContext } from '../sets-in-plan';
-import type { Finding } from '../report';
-import type { UnitSystem } from '../units';
-import type { ZoneMap } from '../zones';
+import type { CableSize, PlanDocument } from '@/lib/schemas/plan';
+import type { FaultFigures, NetworkFigures } from '@/lib/domain/calc/contract';
+import type { PlanModel } from '@/lib/domain/plan-model';
+import type { SetContext } from '@/lib/domain/sets-in-plan';
+import type { Finding } from '@/lib/domain/report';
+import type { UnitSystem } from '@/lib/domain/units';
+import type { ZoneMap } from '@/lib/domain/zones';
 
-export type { Finding, Severity } from '../report';
+export type { Finding, Severity } from '@/lib/domain/report';
 
 export interface RuleContext {
   plan: PlanDocument;

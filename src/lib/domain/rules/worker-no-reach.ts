@@ -1,4 +1,4 @@
-import { capitalise } from '../plan-model';
+import { capitalise } from '@/lib/domain/plan-model';
 import type { Finding, RuleContext } from './types';
 
 export const WORKER_NO_REACH = 'worker-no-reach';

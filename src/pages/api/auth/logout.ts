@@ -1,5 +1,5 @@
-import { signOut } from '../../../lib/server/auth';
-import { endpoint, json } from '../../../lib/server/http';
+import { signOut } from '@/lib/server/auth';
+import { endpoint, json } from '@/lib/server/http';
 
 /** Ends this session. Signed out already is fine too. */
 export const POST = endpoint(async (ctx) => {

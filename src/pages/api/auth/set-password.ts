@@ -1,8 +1,8 @@
-import { setPasswordBody } from '../../../lib/schemas/api';
-import { AppError } from '../../../lib/server/errors';
-import { endpoint, json, readJson } from '../../../lib/server/http';
-import { setPasswordWithToken } from '../../../lib/server/passwords';
-import { throttleLinkUse } from '../../../lib/server/throttle';
+import { setPasswordBody } from '@/lib/schemas/api';
+import { AppError } from '@/lib/server/errors';
+import { endpoint, json, readJson } from '@/lib/server/http';
+import { setPasswordWithToken } from '@/lib/server/passwords';
+import { throttleLinkUse } from '@/lib/server/throttle';
 
 /** Sets a password through a one-time link (invitation or reset); the link then stops working. */
 export const POST = endpoint(async (ctx) => {

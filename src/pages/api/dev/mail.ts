@@ -1,8 +1,8 @@
-import { AppError } from '../../../lib/server/errors';
-import { requireRole } from '../../../lib/server/guards';
-import { endpoint, json } from '../../../lib/server/http';
-import { caughtMailFor } from '../../../lib/server/mail';
-import { settings } from '../../../lib/server/settings';
+import { AppError } from '@/lib/server/errors';
+import { requireRole } from '@/lib/server/guards';
+import { endpoint, json } from '@/lib/server/http';
+import { caughtMailFor } from '@/lib/server/mail';
+import { settings } from '@/lib/server/settings';
 
 /** The messages the local mail catcher received (only while the app uses it; admins only). */
 export const GET = endpoint(async (ctx) => {

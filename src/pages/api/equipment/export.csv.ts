@@ -1,8 +1,8 @@
-import { getDb } from '../../../../db/connection';
-import { allSets } from '../../../../db/repositories/equipment';
-import { inventoryToCsv } from '../../../lib/schemas/equipment-csv';
-import { requireUser } from '../../../lib/server/guards';
-import { endpoint } from '../../../lib/server/http';
+import { getDb } from '@db/connection';
+import { allSets } from '@db/repositories/equipment';
+import { inventoryToCsv } from '@/lib/schemas/equipment-csv';
+import { requireUser } from '@/lib/server/guards';
+import { endpoint } from '@/lib/server/http';
 
 /** The whole inventory as CSV, in the format the import and `npm run check -- --equipment` read. */
 export const GET = endpoint(async (ctx) => {

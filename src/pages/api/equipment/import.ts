@@ -1,8 +1,8 @@
-import { getDb } from '../../../../db/connection';
-import { AppError } from '../../../lib/server/errors';
-import { importInventory } from '../../../lib/server/equipment-pages';
-import { requireRole } from '../../../lib/server/guards';
-import { endpoint, json, readLimited } from '../../../lib/server/http';
+import { getDb } from '@db/connection';
+import { AppError } from '@/lib/server/errors';
+import { importInventory } from '@/lib/server/equipment-pages';
+import { requireRole } from '@/lib/server/guards';
+import { endpoint, json, readLimited } from '@/lib/server/http';
 
 const LIMIT = 2 * 1024 * 1024;
 

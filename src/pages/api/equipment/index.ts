@@ -1,10 +1,10 @@
-import { getDb } from '../../../../db/connection';
-import { listSets, saveSets } from '../../../../db/repositories/equipment';
-import { createSetBody, listSetsQuery } from '../../../lib/schemas/equipment';
-import { AppError } from '../../../lib/server/errors';
-import { today, unwrap } from '../../../lib/server/equipment-http';
-import { requireRole, requireUser } from '../../../lib/server/guards';
-import { endpoint, json, readJson, readQuery } from '../../../lib/server/http';
+import { getDb } from '@db/connection';
+import { listSets, saveSets } from '@db/repositories/equipment';
+import { createSetBody, listSetsQuery } from '@/lib/schemas/equipment';
+import { AppError } from '@/lib/server/errors';
+import { today, unwrap } from '@/lib/server/equipment-http';
+import { requireRole, requireUser } from '@/lib/server/guards';
+import { endpoint, json, readJson, readQuery } from '@/lib/server/http';
 
 /** The organisation's grounding sets: ?status=&due=overdue|soon&dueWithinDays=&q=&sort=&dir=&page=&pageSize= */
 export const GET = endpoint(async (ctx) => {

@@ -1,8 +1,8 @@
-import { getDb } from '../../../../db/connection';
-import { getSettings, saveSettings } from '../../../../db/repositories/equipment-settings';
-import { settingsBody } from '../../../lib/schemas/equipment';
-import { requireRole, requireUser } from '../../../lib/server/guards';
-import { endpoint, json, readJson } from '../../../lib/server/http';
+import { getDb } from '@db/connection';
+import { getSettings, saveSettings } from '@db/repositories/equipment-settings';
+import { settingsBody } from '@/lib/schemas/equipment';
+import { requireRole, requireUser } from '@/lib/server/guards';
+import { endpoint, json, readJson } from '@/lib/server/http';
 
 /** The organisation's test interval and resistance limits (its own choices; none ship as facts). */
 export const GET = endpoint(async (ctx) => {

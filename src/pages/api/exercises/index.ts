@@ -1,9 +1,9 @@
-import { getDb } from '../../../../db/connection';
-import { listExercises, progressCells } from '../../../../db/repositories/practice';
-import { createExerciseBody } from '../../../lib/schemas/practice';
-import { requireRole, requireUser } from '../../../lib/server/guards';
-import { endpoint, json, readJson } from '../../../lib/server/http';
-import { exerciseJson, isStaff, makeExercise, PRACTICE_STAFF, staffJson } from '../../../lib/server/practice';
+import { getDb } from '@db/connection';
+import { listExercises, progressCells } from '@db/repositories/practice';
+import { createExerciseBody } from '@/lib/schemas/practice';
+import { requireRole, requireUser } from '@/lib/server/guards';
+import { endpoint, json, readJson } from '@/lib/server/http';
+import { exerciseJson, isStaff, makeExercise, PRACTICE_STAFF, staffJson } from '@/lib/server/practice';
 
 /** The organisation's exercises: all of them for reviewers and admins, published ones (no answers) for everyone else. */
 export const GET = endpoint(async (ctx) => {

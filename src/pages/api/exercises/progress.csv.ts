@@ -1,6 +1,6 @@
-import { requireRole } from '../../../lib/server/guards';
-import { endpoint } from '../../../lib/server/http';
-import { PRACTICE_STAFF, progress, progressCsv } from '../../../lib/server/practice';
+import { requireRole } from '@/lib/server/guards';
+import { endpoint } from '@/lib/server/http';
+import { PRACTICE_STAFF, progress, progressCsv } from '@/lib/server/practice';
 
 /** The progress table as CSV (UTF-8, CRLF rows), for a spreadsheet. */
 export const GET = endpoint(async (ctx) => {

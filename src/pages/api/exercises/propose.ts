@@ -1,7 +1,7 @@
-import { proposeBody } from '../../../lib/schemas/practice';
-import { requireRole } from '../../../lib/server/guards';
-import { endpoint, json, readJson } from '../../../lib/server/http';
-import { PRACTICE_STAFF, propose } from '../../../lib/server/practice';
+import { proposeBody } from '@/lib/schemas/practice';
+import { requireRole } from '@/lib/server/guards';
+import { endpoint, json, readJson } from '@/lib/server/http';
+import { PRACTICE_STAFF, propose } from '@/lib/server/practice';
 
 /** `{planId, revision?}` → removals or cable swaps that each plant a blocker of a different kind, with the findings. */
 export const POST = endpoint(async (ctx) => {

@@ -1,8 +1,8 @@
-import { getDb } from '../../../../db/connection';
-import { getOrganisationSettings, saveOrganisationSettings } from '../../../../db/repositories/organisation-settings';
-import { organisationSettingsBody } from '../../../lib/schemas/organisation';
-import { requireRole, requireUser } from '../../../lib/server/guards';
-import { endpoint, json, readJson } from '../../../lib/server/http';
+import { getDb } from '@db/connection';
+import { getOrganisationSettings, saveOrganisationSettings } from '@db/repositories/organisation-settings';
+import { organisationSettingsBody } from '@/lib/schemas/organisation';
+import { requireRole, requireUser } from '@/lib/server/guards';
+import { endpoint, json, readJson } from '@/lib/server/http';
 
 /** The organisation's time zone, paper size and default units; anyone signed in reads, an admin saves. */
 export const GET = endpoint(async (ctx) => {

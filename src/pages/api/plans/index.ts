@@ -1,10 +1,10 @@
-import { getDb } from '../../../../db/connection';
-import { createPlan, describeStructure, listPlans } from '../../../../db/repositories/plans';
-import { createPlanBody, listPlansQuery } from '../../../lib/schemas/api';
-import { checkForOrganization } from '../../../lib/server/checking';
-import { requireRole, requireUser } from '../../../lib/server/guards';
-import { endpoint, json, PLAN_BODY_LIMIT, readJson, readQuery } from '../../../lib/server/http';
-import { planJson, summaryJson } from '../../../lib/server/plan-json';
+import { getDb } from '@db/connection';
+import { createPlan, describeStructure, listPlans } from '@db/repositories/plans';
+import { createPlanBody, listPlansQuery } from '@/lib/schemas/api';
+import { checkForOrganization } from '@/lib/server/checking';
+import { requireRole, requireUser } from '@/lib/server/guards';
+import { endpoint, json, PLAN_BODY_LIMIT, readJson, readQuery } from '@/lib/server/http';
+import { planJson, summaryJson } from '@/lib/server/plan-json';
 
 /** The organisation's plans, one page at a time: ?status=&q=&sort=&dir=&page=&pageSize= */
 export const GET = endpoint(async (ctx) => {

@@ -1,8 +1,8 @@
-import { getDb } from '../../../../db/connection';
-import { listRecords } from '../../../../db/repositories/field-records';
-import { listRecordsQuery } from '../../../lib/schemas/field-record';
-import { requireUser } from '../../../lib/server/guards';
-import { endpoint, json, readQuery } from '../../../lib/server/http';
+import { getDb } from '@db/connection';
+import { listRecords } from '@db/repositories/field-records';
+import { listRecordsQuery } from '@/lib/schemas/field-record';
+import { requireUser } from '@/lib/server/guards';
+import { endpoint, json, readQuery } from '@/lib/server/http';
 
 /** The organisation's field records, open ones with sets on first: ?status=&page=&pageSize= */
 export const GET = endpoint(async (ctx) => {

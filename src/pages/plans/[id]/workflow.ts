@@ -1,11 +1,11 @@
-import { readForm } from '../../../lib/server/forms';
+import { readForm } from '@/lib/server/forms';
 import type { APIRoute } from 'astro';
-import { getDb } from '../../../../db/connection';
-import { setCommentResolved } from '../../../../db/repositories/revisions';
-import { hasRole } from '../../../lib/server/guards';
-import { idParam } from '../../../lib/schemas/api';
-import { AppError } from '../../../lib/server/errors';
-import { reopen, submitForReview, withdraw } from '../../../lib/server/workflow';
+import { getDb } from '@db/connection';
+import { setCommentResolved } from '@db/repositories/revisions';
+import { hasRole } from '@/lib/server/guards';
+import { idParam } from '@/lib/schemas/api';
+import { AppError } from '@/lib/server/errors';
+import { reopen, submitForReview, withdraw } from '@/lib/server/workflow';
 
 /**
  * The plan page's workflow buttons post here as plain forms (no JavaScript needed): submit,

@@ -1,7 +1,7 @@
-import { updateUserBody } from '../../../../lib/schemas/api';
-import { requireRole } from '../../../../lib/server/guards';
-import { endpoint, json, readJson } from '../../../../lib/server/http';
-import { changePerson } from '../../../../lib/server/people-admin';
+import { updateUserBody } from '@/lib/schemas/api';
+import { requireRole } from '@/lib/server/guards';
+import { endpoint, json, readJson } from '@/lib/server/http';
+import { changePerson } from '@/lib/server/people-admin';
 
 /** Changes a person's role or disables them; disabling ends every session they have. */
 export const PATCH = endpoint(async (ctx) => {

@@ -1,9 +1,9 @@
-import { getDb } from '../../../../../db/connection';
-import { listPeople } from '../../../../../db/repositories/people';
-import { createUserBody } from '../../../../lib/schemas/api';
-import { requireRole } from '../../../../lib/server/guards';
-import { endpoint, json, readJson } from '../../../../lib/server/http';
-import { invitePerson } from '../../../../lib/server/people-admin';
+import { getDb } from '@db/connection';
+import { listPeople } from '@db/repositories/people';
+import { createUserBody } from '@/lib/schemas/api';
+import { requireRole } from '@/lib/server/guards';
+import { endpoint, json, readJson } from '@/lib/server/http';
+import { invitePerson } from '@/lib/server/people-admin';
 
 export const GET = endpoint(async (ctx) => {
   const admin = requireRole(ctx, 'admin');

@@ -1,11 +1,11 @@
-import { getDb } from '../../../../../db/connection';
-import { getSet, updateSet } from '../../../../../db/repositories/equipment';
-import { idParam } from '../../../../lib/schemas/api';
-import { patchSetBody } from '../../../../lib/schemas/equipment';
-import { AppError } from '../../../../lib/server/errors';
-import { today, unwrap } from '../../../../lib/server/equipment-http';
-import { requireRole, requireUser } from '../../../../lib/server/guards';
-import { endpoint, json, parseWith, readJson } from '../../../../lib/server/http';
+import { getDb } from '@db/connection';
+import { getSet, updateSet } from '@db/repositories/equipment';
+import { idParam } from '@/lib/schemas/api';
+import { patchSetBody } from '@/lib/schemas/equipment';
+import { AppError } from '@/lib/server/errors';
+import { today, unwrap } from '@/lib/server/equipment-http';
+import { requireRole, requireUser } from '@/lib/server/guards';
+import { endpoint, json, parseWith, readJson } from '@/lib/server/http';
 
 /** One set with its tests and events. */
 export const GET = endpoint(async (ctx) => {

@@ -1,11 +1,11 @@
-import { getDb } from '../../../../../db/connection';
-import { recordTest } from '../../../../../db/repositories/equipment';
-import { idParam } from '../../../../lib/schemas/api';
-import { setTestBody } from '../../../../lib/schemas/equipment';
-import { AppError } from '../../../../lib/server/errors';
-import { today, unwrap } from '../../../../lib/server/equipment-http';
-import { requireRole } from '../../../../lib/server/guards';
-import { endpoint, json, parseWith, readJson } from '../../../../lib/server/http';
+import { getDb } from '@db/connection';
+import { recordTest } from '@db/repositories/equipment';
+import { idParam } from '@/lib/schemas/api';
+import { setTestBody } from '@/lib/schemas/equipment';
+import { AppError } from '@/lib/server/errors';
+import { today, unwrap } from '@/lib/server/equipment-http';
+import { requireRole } from '@/lib/server/guards';
+import { endpoint, json, parseWith, readJson } from '@/lib/server/http';
 
 /** Records an in-service test (admin, crew lead); a pass can put the set back in service. */
 export const POST = endpoint(async (ctx) => {

@@ -1,8 +1,8 @@
-import { idParam } from '../../../../lib/schemas/api';
-import { attemptBody } from '../../../../lib/schemas/practice';
-import { requireRole } from '../../../../lib/server/guards';
-import { endpoint, json, parseWith, readJson } from '../../../../lib/server/http';
-import { attempt } from '../../../../lib/server/practice';
+import { idParam } from '@/lib/schemas/api';
+import { attemptBody } from '@/lib/schemas/practice';
+import { requireRole } from '@/lib/server/guards';
+import { endpoint, json, parseWith, readJson } from '@/lib/server/http';
+import { attempt } from '@/lib/server/practice';
 
 /** `{answer}` → `{score, found, missed, wrong, explanation}`; every attempt is kept. */
 export const POST = endpoint(async (ctx) => {

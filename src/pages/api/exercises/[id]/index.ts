@@ -1,11 +1,11 @@
-import { getDb } from '../../../../../db/connection';
-import { progressCells, setPublished } from '../../../../../db/repositories/practice';
-import { idParam } from '../../../../lib/schemas/api';
-import { publishBody } from '../../../../lib/schemas/practice';
-import { requireRole, requireUser } from '../../../../lib/server/guards';
-import { endpoint, json, parseWith, readJson } from '../../../../lib/server/http';
-import { AppError } from '../../../../lib/server/errors';
-import { exerciseJson, PRACTICE_STAFF, visibleExercise } from '../../../../lib/server/practice';
+import { getDb } from '@db/connection';
+import { progressCells, setPublished } from '@db/repositories/practice';
+import { idParam } from '@/lib/schemas/api';
+import { publishBody } from '@/lib/schemas/practice';
+import { requireRole, requireUser } from '@/lib/server/guards';
+import { endpoint, json, parseWith, readJson } from '@/lib/server/http';
+import { AppError } from '@/lib/server/errors';
+import { exerciseJson, PRACTICE_STAFF, visibleExercise } from '@/lib/server/practice';
 
 /** One exercise. A learner never receives the answer: no removed links, planted findings or original plan. */
 export const GET = endpoint(async (ctx) => {

@@ -1,9 +1,9 @@
-import { getDb } from '../../../../../db/connection';
-import { getPlan, storeReport } from '../../../../../db/repositories/plans';
-import { checkForOrganization } from '../../../../lib/server/checking';
-import { AppError } from '../../../../lib/server/errors';
-import { hasRole, requireUser } from '../../../../lib/server/guards';
-import { endpoint, json, pathId } from '../../../../lib/server/http';
+import { getDb } from '@db/connection';
+import { getPlan, storeReport } from '@db/repositories/plans';
+import { checkForOrganization } from '@/lib/server/checking';
+import { AppError } from '@/lib/server/errors';
+import { hasRole, requireUser } from '@/lib/server/guards';
+import { endpoint, json, pathId } from '@/lib/server/http';
 
 /**
  * Checks the plan's current revision again. For a crew lead or admin (who may edit the plan) the

@@ -1,11 +1,11 @@
 import { z } from 'zod';
-import { getDb } from '../../../../../db/connection';
-import { getRevision } from '../../../../../db/repositories/revisions';
-import { diffPlans } from '../../../../lib/domain/plan-diff';
-import { idParam } from '../../../../lib/schemas/api';
-import { AppError } from '../../../../lib/server/errors';
-import { requireUser } from '../../../../lib/server/guards';
-import { endpoint, json, pathId, readQuery } from '../../../../lib/server/http';
+import { getDb } from '@db/connection';
+import { getRevision } from '@db/repositories/revisions';
+import { diffPlans } from '@/lib/domain/plan-diff';
+import { idParam } from '@/lib/schemas/api';
+import { AppError } from '@/lib/server/errors';
+import { requireUser } from '@/lib/server/guards';
+import { endpoint, json, pathId, readQuery } from '@/lib/server/http';
 
 const query = z.object({ from: idParam, to: idParam });
 

@@ -1,9 +1,9 @@
-import { getDb } from '../../../../../db/connection';
-import { listEvents } from '../../../../../db/repositories/audit';
-import { getPlan } from '../../../../../db/repositories/plans';
-import { AppError } from '../../../../lib/server/errors';
-import { requireUser } from '../../../../lib/server/guards';
-import { endpoint, json, pathId } from '../../../../lib/server/http';
+import { getDb } from '@db/connection';
+import { listEvents } from '@db/repositories/audit';
+import { getPlan } from '@db/repositories/plans';
+import { AppError } from '@/lib/server/errors';
+import { requireUser } from '@/lib/server/guards';
+import { endpoint, json, pathId } from '@/lib/server/http';
 
 /** Who did what when: every save, state change, comment and decision on the plan, newest first. */
 export const GET = endpoint(async (ctx) => {

@@ -1,12 +1,12 @@
-import { getDb } from '../../../../../db/connection';
-import { getPlan, saveDraft, type PlanDetail } from '../../../../../db/repositories/plans';
-import { isEditable } from '../../../../lib/domain/plan-status';
-import { savePlanBody } from '../../../../lib/schemas/api';
-import { checkForOrganization } from '../../../../lib/server/checking';
-import { AppError } from '../../../../lib/server/errors';
-import { requireRole, requireUser } from '../../../../lib/server/guards';
-import { endpoint, json, pathId, PLAN_BODY_LIMIT, readJson } from '../../../../lib/server/http';
-import { planJson } from '../../../../lib/server/plan-json';
+import { getDb } from '@db/connection';
+import { getPlan, saveDraft, type PlanDetail } from '@db/repositories/plans';
+import { isEditable } from '@/lib/domain/plan-status';
+import { savePlanBody } from '@/lib/schemas/api';
+import { checkForOrganization } from '@/lib/server/checking';
+import { AppError } from '@/lib/server/errors';
+import { requireRole, requireUser } from '@/lib/server/guards';
+import { endpoint, json, pathId, PLAN_BODY_LIMIT, readJson } from '@/lib/server/http';
+import { planJson } from '@/lib/server/plan-json';
 
 export const GET = endpoint(async (ctx) => {
   const person = requireUser(ctx);

@@ -1,8 +1,8 @@
-import { createRecordBody } from '../../../../lib/schemas/field-record';
-import { idParam } from '../../../../lib/schemas/api';
-import { openRecord, RECORD_WRITERS } from '../../../../lib/server/field-records';
-import { requireRole } from '../../../../lib/server/guards';
-import { endpoint, json, parseWith, readJson } from '../../../../lib/server/http';
+import { createRecordBody } from '@/lib/schemas/field-record';
+import { idParam } from '@/lib/schemas/api';
+import { openRecord, RECORD_WRITERS } from '@/lib/server/field-records';
+import { requireRole } from '@/lib/server/guards';
+import { endpoint, json, parseWith, readJson } from '@/lib/server/http';
 
 /** Opens a field record on the plan's approved revision: 201, or 409 unless the plan is approved. */
 export const POST = endpoint(async (ctx) => {

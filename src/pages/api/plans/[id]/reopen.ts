@@ -1,7 +1,7 @@
-import { requireRole } from '../../../../lib/server/guards';
-import { endpoint, json, pathId } from '../../../../lib/server/http';
-import { planJson } from '../../../../lib/server/plan-json';
-import { reopen } from '../../../../lib/server/workflow';
+import { requireRole } from '@/lib/server/guards';
+import { endpoint, json, pathId } from '@/lib/server/http';
+import { planJson } from '@/lib/server/plan-json';
+import { reopen } from '@/lib/server/workflow';
 
 /** Starts a new draft revision of an approved plan; the approved revision is kept unchanged. */
 export const POST = endpoint(async (ctx) => {

@@ -1,8 +1,8 @@
-import { reviewBody } from '../../../../lib/schemas/api';
-import { requireRole } from '../../../../lib/server/guards';
-import { endpoint, json, pathId, readJson } from '../../../../lib/server/http';
-import { planJson } from '../../../../lib/server/plan-json';
-import { decide } from '../../../../lib/server/workflow';
+import { reviewBody } from '@/lib/schemas/api';
+import { requireRole } from '@/lib/server/guards';
+import { endpoint, json, pathId, readJson } from '@/lib/server/http';
+import { planJson } from '@/lib/server/plan-json';
+import { decide } from '@/lib/server/workflow';
 
 /** Approves or returns the submitted revision: `{decision, comment?, teachingNote?, revision?}`. */
 export const POST = endpoint(async (ctx) => {

@@ -1,7 +1,7 @@
-import { requireRole } from '../../../../lib/server/guards';
-import { endpoint, json, pathId } from '../../../../lib/server/http';
-import { planJson } from '../../../../lib/server/plan-json';
-import { submitForReview } from '../../../../lib/server/workflow';
+import { requireRole } from '@/lib/server/guards';
+import { endpoint, json, pathId } from '@/lib/server/http';
+import { planJson } from '@/lib/server/plan-json';
+import { submitForReview } from '@/lib/server/workflow';
 
 /** Submits the current revision for review: 409 with the blockers while the check finds any. */
 export const POST = endpoint(async (ctx) => {

@@ -1,7 +1,7 @@
-import { requireRole } from '../../../../lib/server/guards';
-import { endpoint, json, pathId } from '../../../../lib/server/http';
-import { planJson } from '../../../../lib/server/plan-json';
-import { withdraw } from '../../../../lib/server/workflow';
+import { requireRole } from '@/lib/server/guards';
+import { endpoint, json, pathId } from '@/lib/server/http';
+import { planJson } from '@/lib/server/plan-json';
+import { withdraw } from '@/lib/server/workflow';
 
 /** The author (or an admin) takes a submitted plan back to a draft before a reviewer decides it. */
 export const POST = endpoint(async (ctx) => {

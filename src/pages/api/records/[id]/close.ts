@@ -1,7 +1,7 @@
-import { idParam } from '../../../../lib/schemas/api';
-import { closeOut, RECORD_WRITERS, recordJson } from '../../../../lib/server/field-records';
-import { requireRole } from '../../../../lib/server/guards';
-import { endpoint, json, parseWith } from '../../../../lib/server/http';
+import { idParam } from '@/lib/schemas/api';
+import { closeOut, RECORD_WRITERS, recordJson } from '@/lib/server/field-records';
+import { requireRole } from '@/lib/server/guards';
+import { endpoint, json, parseWith } from '@/lib/server/http';
 
 /** Closes out the record: 409 listing the sets still on; once closed, every write is 409. */
 export const POST = endpoint(async (ctx) => {

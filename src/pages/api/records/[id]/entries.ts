@@ -1,8 +1,8 @@
-import { idParam } from '../../../../lib/schemas/api';
-import { entryBody } from '../../../../lib/schemas/field-record';
-import { entryJson, RECORD_WRITERS, recordEntry } from '../../../../lib/server/field-records';
-import { requireRole } from '../../../../lib/server/guards';
-import { endpoint, json, parseWith, readJson } from '../../../../lib/server/http';
+import { idParam } from '@/lib/schemas/api';
+import { entryBody } from '@/lib/schemas/field-record';
+import { entryJson, RECORD_WRITERS, recordEntry } from '@/lib/server/field-records';
+import { requireRole } from '@/lib/server/guards';
+import { endpoint, json, parseWith, readJson } from '@/lib/server/http';
 
 /** Records one entry: 201 when new, 200 with the stored entry when its clientId was seen before. */
 export const POST = endpoint(async (ctx) => {

@@ -1,7 +1,7 @@
-import { idParam } from '../../../../lib/schemas/api';
-import { inventoryCopy, readableRecord, recordJson } from '../../../../lib/server/field-records';
-import { requireUser } from '../../../../lib/server/guards';
-import { endpoint, json, parseWith } from '../../../../lib/server/http';
+import { idParam } from '@/lib/schemas/api';
+import { inventoryCopy, readableRecord, recordJson } from '@/lib/server/field-records';
+import { requireUser } from '@/lib/server/guards';
+import { endpoint, json, parseWith } from '@/lib/server/http';
 
 /** One record with its entries in order, the counts, the next step, and (open) the organisation's sets. */
 export const GET = endpoint(async (ctx) => {

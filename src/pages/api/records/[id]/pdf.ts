@@ -1,13 +1,13 @@
-import { getDb } from '../../../../../db/connection';
-import { nameMap } from '../../../../../db/repositories/review';
+import { getDb } from '@db/connection';
+import { nameMap } from '@db/repositories/review';
 import { z } from 'zod';
-import { idParam } from '../../../../lib/schemas/api';
-import { readableRecord } from '../../../../lib/server/field-records';
-import { requireUser } from '../../../../lib/server/guards';
-import { endpoint, parseWith, readQuery } from '../../../../lib/server/http';
-import { getObject } from '../../../../lib/server/object-store';
-import { photoKey } from '../../../../lib/server/photos';
-import { recordPdf } from '../../../../lib/server/record-pdf';
+import { idParam } from '@/lib/schemas/api';
+import { readableRecord } from '@/lib/server/field-records';
+import { requireUser } from '@/lib/server/guards';
+import { endpoint, parseWith, readQuery } from '@/lib/server/http';
+import { getObject } from '@/lib/server/object-store';
+import { photoKey } from '@/lib/server/photos';
+import { recordPdf } from '@/lib/server/record-pdf';
 
 const query = z.object({ paper: z.enum(['letter', 'a4'], { errorMap: () => ({ message: 'must be letter or a4' }) }).default('letter') });
 

@@ -1,9 +1,9 @@
-import { getDb } from '../../../../../../db/connection';
-import { listComments, setCommentResolved } from '../../../../../../db/repositories/revisions';
-import { resolveCommentBody } from '../../../../../lib/schemas/api';
-import { AppError } from '../../../../../lib/server/errors';
-import { requireRole } from '../../../../../lib/server/guards';
-import { endpoint, json, pathId, readJson } from '../../../../../lib/server/http';
+import { getDb } from '@db/connection';
+import { listComments, setCommentResolved } from '@db/repositories/revisions';
+import { resolveCommentBody } from '@/lib/schemas/api';
+import { AppError } from '@/lib/server/errors';
+import { requireRole } from '@/lib/server/guards';
+import { endpoint, json, pathId, readJson } from '@/lib/server/http';
 
 /** Resolves a comment (the crew lead fixed it) or opens it again: `{resolved}`. */
 export const PATCH = endpoint(async (ctx) => {

@@ -1,10 +1,10 @@
-import { getDb } from '../../../../../../db/connection';
-import { getPlan } from '../../../../../../db/repositories/plans';
-import { addComment, listComments } from '../../../../../../db/repositories/revisions';
-import { commentBody } from '../../../../../lib/schemas/api';
-import { AppError } from '../../../../../lib/server/errors';
-import { requireRole, requireUser } from '../../../../../lib/server/guards';
-import { endpoint, json, pathId, readJson } from '../../../../../lib/server/http';
+import { getDb } from '@db/connection';
+import { getPlan } from '@db/repositories/plans';
+import { addComment, listComments } from '@db/repositories/revisions';
+import { commentBody } from '@/lib/schemas/api';
+import { AppError } from '@/lib/server/errors';
+import { requireRole, requireUser } from '@/lib/server/guards';
+import { endpoint, json, pathId, readJson } from '@/lib/server/http';
 
 export const GET = endpoint(async (ctx) => {
   const person = requireUser(ctx);

@@ -1,8 +1,8 @@
-import { getDb } from '../../../../../../db/connection';
-import { getRevision } from '../../../../../../db/repositories/revisions';
-import { AppError } from '../../../../../lib/server/errors';
-import { requireUser } from '../../../../../lib/server/guards';
-import { endpoint, json, pathId } from '../../../../../lib/server/http';
+import { getDb } from '@db/connection';
+import { getRevision } from '@db/repositories/revisions';
+import { AppError } from '@/lib/server/errors';
+import { requireUser } from '@/lib/server/guards';
+import { endpoint, json, pathId } from '@/lib/server/http';
 
 /** One revision: its document, report, state and decision (approval with hashes). */
 export const GET = endpoint(async (ctx) => {

@@ -1,8 +1,8 @@
-import { getDb } from '../../../../../../db/connection';
-import { listRevisions } from '../../../../../../db/repositories/revisions';
-import { AppError } from '../../../../../lib/server/errors';
-import { requireUser } from '../../../../../lib/server/guards';
-import { endpoint, json, pathId } from '../../../../../lib/server/http';
+import { getDb } from '@db/connection';
+import { listRevisions } from '@db/repositories/revisions';
+import { AppError } from '@/lib/server/errors';
+import { requireUser } from '@/lib/server/guards';
+import { endpoint, json, pathId } from '@/lib/server/http';
 
 /** Every revision of the plan, newest first, with its counts and decision. */
 export const GET = endpoint(async (ctx) => {

@@ -1,13 +1,13 @@
-import { getDb } from '../../../../../../db/connection';
-import { getPhoto } from '../../../../../../db/repositories/field-records';
-import { idParam } from '../../../../../lib/schemas/api';
-import { photoSizeQuery } from '../../../../../lib/schemas/field-record';
-import { readableRecord } from '../../../../../lib/server/field-records';
-import { AppError } from '../../../../../lib/server/errors';
-import { requireUser } from '../../../../../lib/server/guards';
-import { endpoint, parseWith, readQuery } from '../../../../../lib/server/http';
-import { getObject, ObjectStoreUnavailable } from '../../../../../lib/server/object-store';
-import { photoKey } from '../../../../../lib/server/photos';
+import { getDb } from '@db/connection';
+import { getPhoto } from '@db/repositories/field-records';
+import { idParam } from '@/lib/schemas/api';
+import { photoSizeQuery } from '@/lib/schemas/field-record';
+import { readableRecord } from '@/lib/server/field-records';
+import { AppError } from '@/lib/server/errors';
+import { requireUser } from '@/lib/server/guards';
+import { endpoint, parseWith, readQuery } from '@/lib/server/http';
+import { getObject, ObjectStoreUnavailable } from '@/lib/server/object-store';
+import { photoKey } from '@/lib/server/photos';
 
 /** Streams a photo through the app to the organisation's people only: ?size=thumb|display|original */
 export const GET = endpoint(async (ctx) => {

@@ -1,8 +1,8 @@
-import { idParam } from '../../../../../lib/schemas/api';
-import { RECORD_WRITERS, readableRecord } from '../../../../../lib/server/field-records';
-import { requireRole } from '../../../../../lib/server/guards';
-import { endpoint, json, parseWith } from '../../../../../lib/server/http';
-import { readPhotoForm, storePhoto } from '../../../../../lib/server/photos';
+import { idParam } from '@/lib/schemas/api';
+import { RECORD_WRITERS, readableRecord } from '@/lib/server/field-records';
+import { requireRole } from '@/lib/server/guards';
+import { endpoint, json, parseWith } from '@/lib/server/http';
+import { readPhotoForm, storePhoto } from '@/lib/server/photos';
 
 /**
  * Adds a photo (multipart: the file in `photo`, optional `caption` and `clientId`): JPEG, PNG or
