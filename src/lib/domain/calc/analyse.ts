@@ -3,7 +3,7 @@
  * fault injected into each phase in turn, worst case kept per contact, jumper and rod.
  */
 import type { PlanDocument } from '@/lib/schemas/plan';
-import { solveInjections, type Injection } from './batch';
+import { drivingPointImpedances, positionOf, solveInjectionBlocks, type Injection } from './batch';
 import { tolerableBodyAmps } from './body';
 import type { ContactFigures, NetworkFigures } from './contract';
 import { computeFault } from './fault';
@@ -56,10 +56,8 @@ export function analyseNetwork(plan: PlanDocument): NetworkFigures {
   }
   const thevenin = measured.filter((m) => m.stand !== m.surface);
   if (factor) {
-    solveInjections(factor, thevenin.map((m): Injection => ({ into: m.stand, outOf: m.surface })), 1, (k, column) => {
-      const [zr, zi] = column.between(thevenin[k].stand, thevenin[k].surface);
-      thevenin[k].loopOhms = Math.hypot(zr + bodyOhms, zi);
-    });
+    const z = drivingPointImpedances(factor, thevenin.map((m): Injection => ({ into: m.stand, outOf: m.surface })));
+    thevenin.forEach((m, k) => (m.loopOhms = Math.hypot(z.re[k] + bodyOhms, z.im[k])));
   }
 
   const phases: { id: string; index: number }[] = [];
@@ -82,33 +80,54 @@ export function analyseNetwork(plan: PlanDocument): NetworkFigures {
   const capVolts = fault.lineToNeutralVolts ?? Infinity;
   const contactCapped = new Uint8Array(measured.length);
   if (factor) {
+    // Elimination positions of every end read after each phase's solve (remote earth reads 0 V).
+    const at = (indices: Int32Array) => Int32Array.from(indices, (i) => positionOf(factor, i));
+    const [cStand, cSurface, jFrom, jTo, bFrom, bTo, rNode] = [contactStand, contactSurface, jumperFrom, jumperTo, worst.bondFrom, worst.bondTo, rodNode].map(at);
+    const earth = positionOf(factor, REFERENCE);
     const injections = phases.map((phase): Injection => ({ into: phase.index, outOf: REFERENCE }));
-    solveInjections(factor, injections, fault.injectedKa * 1000, (k, column) => {
-      for (let c = 0; c < contactStand.length; c++) {
-        const openVolts = column.magnitudeBetween(contactStand[c], contactSurface[c]);
-        const touchVolts = Math.min(openVolts, capVolts);
-        const bodyAmps = touchVolts / contactLoop[c];
-        if (bodyAmps > contactBestA[c]) {
-          contactBestA[c] = bodyAmps;
-          contactBestV[c] = touchVolts;
-          contactBestPhase[c] = k;
-          contactCapped[c] = openVolts > capVolts ? 1 : 0;
+    solveInjectionBlocks(factor, injections, fault.injectedKa * 1000, ({ first, count, stride, values }) => {
+      /** |V_a − V_b| of right-hand side r, V, from elimination positions. */
+      const magnitude = (a: number, b: number, r: number) => {
+        const ia = a * stride + 2 * r;
+        const ib = b * stride + 2 * r;
+        const vr = values[ia] - values[ib];
+        const vi = values[ia + 1] - values[ib + 1];
+        return Math.sqrt(vr * vr + vi * vi);
+      };
+      // Phases in list order for each element, so ties keep the first phase, as one solve at a time did.
+      for (let c = 0; c < cStand.length; c++) {
+        for (let r = 0; r < count; r++) {
+          const openVolts = magnitude(cStand[c], cSurface[c], r);
+          const touchVolts = Math.min(openVolts, capVolts);
+          const bodyAmps = touchVolts / contactLoop[c];
+          if (bodyAmps > contactBestA[c]) {
+            contactBestA[c] = bodyAmps;
+            contactBestV[c] = touchVolts;
+            contactBestPhase[c] = first + r;
+            contactCapped[c] = openVolts > capVolts ? 1 : 0;
+          }
         }
       }
-      for (let j = 0; j < jumperFrom.length; j++) {
+      for (let j = 0; j < jFrom.length; j++) {
         if (jumperAdmittance[j] === 0) continue;
-        const amps = column.magnitudeBetween(jumperFrom[j], jumperTo[j]) * jumperAdmittance[j];
-        if (amps > jumperA[j]) jumperA[j] = amps;
+        for (let r = 0; r < count; r++) {
+          const amps = magnitude(jFrom[j], jTo[j], r) * jumperAdmittance[j];
+          if (amps > jumperA[j]) jumperA[j] = amps;
+        }
       }
-      for (let j = 0; j < worst.bondFrom.length; j++) {
-        const amps = column.magnitudeBetween(worst.bondFrom[j], worst.bondTo[j]) * worst.bondAdmittance[j];
-        if (amps > worst.bondA[j]) worst.bondA[j] = amps;
+      for (let j = 0; j < bFrom.length; j++) {
+        for (let r = 0; r < count; r++) {
+          const amps = magnitude(bFrom[j], bTo[j], r) * worst.bondAdmittance[j];
+          if (amps > worst.bondA[j]) worst.bondA[j] = amps;
+        }
       }
-      for (let r = 0; r < rodNode.length; r++) {
-        const riseV = column.magnitudeBetween(rodNode[r], REFERENCE);
-        if (riseV / rodOhms[r] > rodA[r]) {
-          rodA[r] = riseV / rodOhms[r];
-          rodV[r] = riseV;
+      for (let k = 0; k < rNode.length; k++) {
+        for (let r = 0; r < count; r++) {
+          const riseV = magnitude(rNode[k], earth, r);
+          if (riseV / rodOhms[k] > rodA[k]) {
+            rodA[k] = riseV / rodOhms[k];
+            rodV[k] = riseV;
+          }
         }
       }
     });

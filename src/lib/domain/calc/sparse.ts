@@ -29,6 +29,12 @@ export interface LdlFactor {
   /** Column pointers and row positions of L (strictly lower, in elimination positions). */
   colPtr: Int32Array;
   rowPos: Int32Array;
+  /**
+   * Elimination-tree parent of each position (the first row of its column of L), −1 for a root.
+   * A forward solve from a right-hand side that is non-zero at a few positions only touches those
+   * positions and their ancestors (the structure of L⁻¹·b is the closure of b's under this tree).
+   */
+  parent: Int32Array;
   lRe: Float64Array;
   lIm: Float64Array;
   dRe: Float64Array;
@@ -134,7 +140,9 @@ export function factorSymmetric(matrix: SymmetricEntries): LdlFactor {
     wRe[j] = 0;
     wIm[j] = 0;
   }
-  return { size: n, perm, colPtr, rowPos, lRe, lIm, dRe, dIm, workRe: wRe, workIm: wIm };
+  const parent = new Int32Array(n).fill(-1);
+  for (let k = 0; k < n; k++) if (colPtr[k + 1] > colPtr[k]) parent[k] = rowPos[colPtr[k]];
+  return { size: n, perm, colPtr, rowPos, parent, lRe, lIm, dRe, dIm, workRe: wRe, workIm: wIm };
 }
 
 /** Solves A·x = b with a factor from factorSymmetric; b and x are indexed by original unknown. */
@@ -190,11 +198,18 @@ export function solveSymmetric(
  * `block[(position·count + r)·2]` holds the real part of right-hand side r at that position, the
  * next slot its imaginary part (position = factor.perm[original index]). Walking L once for many
  * right-hand sides is several times faster than one solve after another.
+ *
+ * `forwardColumns`, when given, lists in ascending order every position at which the forward
+ * solve can meet a non-zero (the elimination-tree ancestors of the block's non-zeros, see
+ * `forwardReach` in batch.ts); the forward solve then skips the columns that are zero in every
+ * right-hand side. The diagonal and backward steps always run over the whole factor.
  */
-export function solveBlockInPlace(factor: LdlFactor, block: Float64Array, count: number): void {
+export function solveBlockInPlace(factor: LdlFactor, block: Float64Array, count: number, forwardColumns?: Int32Array): void {
   const { size: n, colPtr, rowPos, lRe, lIm, dRe, dIm } = factor;
   const stride = 2 * count;
-  for (let j = 0; j < n; j++) {
+  const forwardCount = forwardColumns ? forwardColumns.length : n;
+  for (let c = 0; c < forwardCount; c++) {
+    const j = forwardColumns ? forwardColumns[c] : c;
     const bj = j * stride;
     for (let p = colPtr[j]; p < colPtr[j + 1]; p++) {
       const lr = lRe[p];
