@@ -7,9 +7,11 @@ import { build as esbuild } from 'esbuild';
 import { fileURLToPath } from 'node:url';
 
 /**
- * The checker's worker thread (src/lib/server/checking.ts) needs a file of its own next to the
- * server entry: after the server build, bundle src/lib/server/check-worker.ts into
- * dist/server/check-worker.mjs (plain ESM, the pure checker inlined).
+ * Two files of our own next to Astro's server entry, bundled after the server build (plain ESM):
+ * the checker's worker thread (src/lib/server/check-worker.ts, the pure checker inlined, run by
+ * src/lib/server/checking.ts) as dist/server/check-worker.mjs, and the HTTP server
+ * (src/server-entry.ts: /api/* straight to Astro, everything else a file first) as
+ * dist/server/serve.mjs.
  */
 /** @returns {import('astro').AstroIntegration} */
 function checkWorker() {
@@ -22,14 +24,17 @@ function checkWorker() {
         serverDir = config.build.server;
       },
       'astro:build:done': async () => {
+        const common = { bundle: true, platform: /** @type {const} */ ('node'), format: /** @type {const} */ ('esm'), target: 'node20', logLevel: /** @type {const} */ ('warning') };
         await esbuild({
+          ...common,
           entryPoints: [fileURLToPath(new URL('./src/lib/server/check-worker.ts', import.meta.url))],
           outfile: fileURLToPath(new URL('check-worker.mjs', serverDir)),
-          bundle: true,
-          platform: 'node',
-          format: 'esm',
-          target: 'node20',
-          logLevel: 'warning',
+        });
+        await esbuild({
+          ...common,
+          entryPoints: [fileURLToPath(new URL('./src/server-entry.ts', import.meta.url))],
+          outfile: fileURLToPath(new URL('serve.mjs', serverDir)),
+          packages: 'external',
         });
       },
     },
@@ -42,7 +47,8 @@ const allowedHosts = ['127.0.0.1', 'localhost', ...(process.env.BONDMAP_ALLOWED_
 
 export default defineConfig({
   output: 'server',
-  adapter: node({ mode: 'standalone' }),
+  // Middleware mode: src/server-entry.ts is the HTTP server and calls Astro's handler itself.
+  adapter: node({ mode: 'middleware' }),
   integrations: [react(), tailwind({ applyBaseStyles: false }), checkWorker()],
   // src/middleware.ts refuses cross-site writes itself (forms and JSON alike, answering with the
   // JSON error shape), so Astro's own plain-text check is off.

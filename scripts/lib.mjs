@@ -58,7 +58,7 @@ function newestMtime(dir) {
 
 /** Builds the app unless dist/ is newer than every source file. */
 export function ensureBuild() {
-  const entry = join(ROOT, 'dist', 'server', 'entry.mjs');
+  const entry = join(ROOT, 'dist', 'server', 'serve.mjs');
   const sources = ['src', 'public', 'db', 'astro.config.mjs', 'tailwind.config.cjs', 'package-lock.json']
     .map((p) => join(ROOT, p))
     .filter(existsSync)
@@ -79,7 +79,7 @@ export async function startServer({ port, env, stdio = 'inherit' }) {
   // The health answer must carry this start's token: proof that the server answering is this child.
   const { randomBytes } = await import('node:crypto');
   const instance = randomBytes(12).toString('hex');
-  const child = spawn(process.execPath, [join(ROOT, 'dist', 'server', 'entry.mjs')], {
+  const child = spawn(process.execPath, [join(ROOT, 'dist', 'server', 'serve.mjs')], {
     cwd: ROOT,
     env: { ...process.env, ...env, HOST: '127.0.0.1', PORT: String(port), BONDMAP_INSTANCE: instance },
     stdio,
