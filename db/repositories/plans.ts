@@ -4,7 +4,7 @@
  */
 import { QueryTypes, Transaction } from 'sequelize';
 import type { PlanStatus } from '@/lib/domain/plan-status';
-import { isEditable } from '@/lib/domain/plan-status';
+import { judgeSave, mayStoreReport } from '@/lib/domain/review-guards';
 import { defaultSortDir, type ListPlansQuery } from '@/lib/schemas/api';
 import { pruneDeep } from '@/lib/schemas/depth';
 import { migratePlan } from '@/lib/domain/plan-migrations';
@@ -232,9 +232,9 @@ export async function saveDraft(db: Db, organizationId: number, planId: number, 
   const outcome = await db.sequelize.transaction({ isolationLevel: Transaction.ISOLATION_LEVELS.READ_COMMITTED }, async (transaction) => {
     const plan = await db.models.Plan.findOne({ where: { id: planId, organizationId }, lock: transaction.LOCK.UPDATE, transaction });
     if (!plan) return 'not-found' as const;
-    if (!isEditable(plan.status)) return 'not-editable' as const;
-    if (plan.currentRevision !== save.expectedRevision) return 'stale' as const;
-    const number = plan.currentRevision + 1;
+    const verdict = judgeSave({ status: plan.status, currentRevision: plan.currentRevision, expectedRevision: save.expectedRevision });
+    if (verdict.kind !== 'save') return verdict.kind;
+    const number = verdict.revision;
     const title = save.title ?? save.document.title;
     await db.models.PlanRevision.create(
       { planId, number, document: JSON.stringify({ ...save.document, title }), report: save.report ? JSON.stringify(save.report) : null, createdBy: actorId },
@@ -242,6 +242,7 @@ export async function saveDraft(db: Db, organizationId: number, planId: number, 
     );
     await plan.update(
       {
+        status: verdict.status,
         currentRevision: number,
         title,
         ...(save.structure !== undefined ? { structure: save.structure } : {}),
@@ -266,11 +267,9 @@ export async function saveDraft(db: Db, organizationId: number, planId: number, 
 export async function storeReport(db: Db, organizationId: number, planId: number, revision: number, report: StoredReport): Promise<boolean> {
   return db.sequelize.transaction({ isolationLevel: Transaction.ISOLATION_LEVELS.READ_COMMITTED }, async (transaction) => {
     const plan = await db.models.Plan.findOne({ where: { id: planId, organizationId }, lock: transaction.LOCK.UPDATE, transaction });
-    // Only the current revision of a plan still in the crew lead's hands takes a new report: an
-    // older revision is fixed once a later one exists, and a submitted or approved one is under review.
-    if (!plan || plan.currentRevision !== revision || !isEditable(plan.status)) return false;
-    // A returned revision keeps the report it was decided on.
-    if (await db.models.PlanDecision.count({ where: { planId, revision }, transaction })) return false;
+    if (!plan) return false;
+    const decided = (await db.models.PlanDecision.count({ where: { planId, revision }, transaction })) > 0;
+    if (!mayStoreReport({ status: plan.status, currentRevision: plan.currentRevision, revision, decided })) return false;
     await db.models.PlanRevision.update({ report: JSON.stringify(report) }, { where: { planId, number: revision }, transaction });
     await plan.update({ blockers: report.summary?.blockers ?? null, warnings: report.summary?.warnings ?? null }, { transaction });
     return true;

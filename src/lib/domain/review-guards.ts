@@ -36,6 +36,33 @@ export function judgeSubmit(facts: SubmitFacts): SubmitVerdict {
   return { kind: 'submit', revision: facts.decided ? facts.currentRevision + 1 : facts.currentRevision, copy: facts.decided, status };
 }
 
+export interface SaveFacts {
+  status: PlanStatus;
+  currentRevision: number;
+  /** The revision the crew lead edited from. */
+  expectedRevision: number;
+}
+
+export type SaveVerdict = { kind: 'not-editable' } | { kind: 'stale' } | { kind: 'save'; revision: number; status: PlanStatus };
+
+/** A save is a new revision n+1 of a plan in the crew lead's hands, made from revision n. */
+export function judgeSave(facts: SaveFacts): SaveVerdict {
+  const status = nextStatus(facts.status, 'save');
+  if (!status) return { kind: 'not-editable' };
+  if (facts.currentRevision !== facts.expectedRevision) return { kind: 'stale' };
+  return { kind: 'save', revision: facts.currentRevision + 1, status };
+}
+
+/**
+ * Whether a fresh check report may replace the stored one on a revision: only on the current
+ * revision of a plan still in the crew lead's hands (an older revision is fixed once a later one
+ * exists, a submitted or approved one is under review), and never on a revision already decided
+ * (a returned revision keeps the report it was decided on).
+ */
+export function mayStoreReport(facts: { status: PlanStatus; currentRevision: number; revision: number; decided: boolean }): boolean {
+  return nextStatus(facts.status, 'save') !== null && facts.currentRevision === facts.revision && !facts.decided;
+}
+
 export interface PersonLink {
   id: string;
   email: string;
@@ -98,6 +125,29 @@ export function judgeDecision(facts: DecisionFacts): DecisionVerdict {
     approvedRevision: facts.decision === 'approve' ? facts.currentRevision : null,
     // A return's comment also goes on the revision as a plan-wide comment.
     commentOnRevision: facts.decision === 'return',
+  };
+}
+
+export interface DecisionRequest {
+  decision: Decision;
+  comment?: string;
+  teachingNote?: string;
+  /** The revision the reviewer looked at; the plan's current one when not said. */
+  revision?: number;
+}
+
+/**
+ * What a decision records: the comment when there is one, the teaching note and the hashes of the
+ * approved document and report only with an approval (`hash` is asked only then).
+ */
+export function decisionRecord(request: DecisionRequest, currentRevision: number, hash: () => { documentHash: string; reportHash: string }) {
+  const approving = request.decision === 'approve';
+  return {
+    decision: request.decision,
+    comment: request.comment || null,
+    teachingNote: approving ? request.teachingNote || null : null,
+    ...(approving ? hash() : { documentHash: null, reportHash: null }),
+    revision: request.revision ?? currentRevision,
   };
 }
 

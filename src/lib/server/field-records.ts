@@ -3,7 +3,7 @@
  * lock (src/lib/domain/field-record), and the mail that goes with a deviation or a close-out.
  */
 import { getDb } from '@db/connection';
-import { addEntry, approvingReviewer, closeRecord, createRecord, getRecord, type Judge, type RecordDetail, type StoredEntry } from '@db/repositories/field-records';
+import { addEntry, approvingReviewer, closeRecord, getRecord, type Judge, type RecordDetail, type StoredEntry } from '@db/repositories/field-records';
 import { allSets } from '@db/repositories/equipment';
 import { inventorySetStatus, judgeAppend, judgeCloseOut, nextStep, recordPlanFrom, replay, type FieldEntry, type InventorySet, type Refusal, type SetStatusLookup } from '@/lib/domain/field-record';
 import type { Person } from '@/lib/domain/people';
@@ -50,20 +50,6 @@ export async function readableRecord(person: Person, id: number): Promise<Record
     throw new AppError('ROLE_REQUIRED', { message: `An open field record is for the crew. ${roleMessage(['crew_lead', 'admin', 'reviewer'])}`, extra: { requiredRoles: ['crew_lead', 'admin', 'reviewer'] } });
   }
   return record;
-}
-
-export async function openRecord(person: Person, planId: number, input: { workDate?: string; location?: string; clearanceRef?: string; detector?: string }, today: string) {
-  const outcome = await createRecord(getDb(), person.organizationId, {
-    planId,
-    leadId: person.id,
-    workDate: input.workDate ?? today,
-    location: input.location ?? '',
-    clearanceRef: input.clearanceRef ?? '',
-    detector: input.detector ?? '',
-  });
-  if (outcome.kind === 'not-found') throw new AppError('NOT_FOUND');
-  if (outcome.kind === 'not-approved') throw new AppError('RECORD_PLAN_NOT_APPROVED', { extra: { status: outcome.status } });
-  return outcome.record;
 }
 
 /** People named on a sign-on must be of the organisation (checked before the rules). */

@@ -18,7 +18,11 @@ export function roleMessage(roles: readonly Role[]): string {
 }
 
 export function requireRole(ctx: Pick<APIContext, 'locals'>, ...roles: Role[]): Person {
-  const person = requireUser(ctx);
+  return assertRole(requireUser(ctx), ...roles);
+}
+
+/** The same check on a person already signed in: the first line of a service (src/lib/server/services). */
+export function assertRole(person: Person, ...roles: Role[]): Person {
   if (!roles.includes(person.role)) {
     throw new AppError('ROLE_REQUIRED', { message: roleMessage(roles), extra: { requiredRoles: roles } });
   }

@@ -55,6 +55,12 @@ export async function propose(person: Person, planId: number, revision?: number)
   return { planId: approved.planId, revision: approved.revision, proposals: proposeRemovals(approved.document) };
 }
 
+/** Publishes an exercise to learners or withdraws it; another organisation's is NOT_FOUND. */
+export async function publishExercise(person: Person, id: number, published: boolean): Promise<ExerciseRecord> {
+  if (!(await repo.setPublished(getDb(), person.organizationId, id, published))) throw new AppError('NOT_FOUND');
+  return visibleExercise(person, id);
+}
+
 /** The exercise an apprentice (or crew lead) may see, or 404: published, this organisation. */
 export async function visibleExercise(person: Person, id: number): Promise<ExerciseRecord> {
   const exercise = await repo.getExercise(getDb(), person.organizationId, id);

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { PLAN_STATUSES, nextStatus } from '@/lib/domain/plan-status';
-import { judgeDecision, judgeReopen, judgeWithdraw, judgeSubmit, relatedToEditors, type DecisionFacts } from '@/lib/domain/review-guards';
+import { decisionRecord, judgeDecision, judgeReopen, judgeSave, judgeWithdraw, judgeSubmit, mayStoreReport, relatedToEditors, type DecisionFacts } from '@/lib/domain/review-guards';
 
 describe('judgeSubmit', () => {
   const base = { status: 'draft' as const, currentRevision: 3, blockers: 0, decided: false };
@@ -104,5 +104,53 @@ describe('judgeWithdraw', () => {
   it('refuses anyone else, and any plan not waiting for review', () => {
     expect(judgeWithdraw({ ...facts, actorId: 'other lead' })).toEqual({ kind: 'not-author' });
     for (const status of ['draft', 'returned', 'approved'] as const) expect(judgeWithdraw({ ...facts, status })).toEqual({ kind: 'not-submitted', status });
+  });
+});
+
+describe('judgeSave', () => {
+  it('makes revision n+1 of a draft or returned plan, keeping its state', () => {
+    expect(judgeSave({ status: 'draft', currentRevision: 2, expectedRevision: 2 })).toEqual({ kind: 'save', revision: 3, status: 'draft' });
+    expect(judgeSave({ status: 'returned', currentRevision: 4, expectedRevision: 4 })).toEqual({ kind: 'save', revision: 5, status: 'returned' });
+  });
+
+  it('refuses every state the transition table gives no save, before looking at the revision', () => {
+    for (const status of PLAN_STATUSES.filter((s) => nextStatus(s, 'save') === null)) {
+      expect(judgeSave({ status, currentRevision: 2, expectedRevision: 1 })).toEqual({ kind: 'not-editable' });
+    }
+    expect(judgeSave({ status: 'submitted', currentRevision: 2, expectedRevision: 2 }).kind).toBe('not-editable');
+  });
+
+  it('is stale when the revision edited from is not the current one', () => {
+    expect(judgeSave({ status: 'draft', currentRevision: 3, expectedRevision: 2 })).toEqual({ kind: 'stale' });
+  });
+});
+
+describe('mayStoreReport', () => {
+  const base = { status: 'draft' as const, currentRevision: 2, revision: 2, decided: false };
+  it('lets a fresh report replace the stored one only on the current, editable, undecided revision', () => {
+    expect(mayStoreReport(base)).toBe(true);
+    expect(mayStoreReport({ ...base, revision: 1 })).toBe(false);
+    expect(mayStoreReport({ ...base, status: 'submitted' })).toBe(false);
+    expect(mayStoreReport({ ...base, status: 'approved' })).toBe(false);
+    expect(mayStoreReport({ ...base, status: 'returned', decided: true })).toBe(false);
+    expect(mayStoreReport({ ...base, status: 'returned' })).toBe(true);
+  });
+});
+
+describe('decisionRecord', () => {
+  const hashes = { documentHash: 'd'.repeat(64), reportHash: 'r'.repeat(64) };
+  it('records the hashes and teaching note with an approval only', () => {
+    expect(decisionRecord({ decision: 'approve', teachingNote: 'Note the bond.' }, 3, () => hashes)).toEqual({ decision: 'approve', comment: null, teachingNote: 'Note the bond.', ...hashes, revision: 3 });
+    let asked = false;
+    const returned = decisionRecord({ decision: 'return', comment: 'Show the neutral.', teachingNote: 'ignored', revision: 2 }, 3, () => {
+      asked = true;
+      return hashes;
+    });
+    expect(returned).toEqual({ decision: 'return', comment: 'Show the neutral.', teachingNote: null, documentHash: null, reportHash: null, revision: 2 });
+    expect(asked).toBe(false);
+  });
+
+  it('stores an empty comment or note as none', () => {
+    expect(decisionRecord({ decision: 'approve', comment: '', teachingNote: '' }, 1, () => hashes)).toMatchObject({ comment: null, teachingNote: null });
   });
 });

@@ -1,6 +1,6 @@
 import { forgotPasswordBody } from '@/lib/schemas/api';
 import { endpoint, json, readJson } from '@/lib/server/http';
-import { requestPasswordReset } from '@/lib/server/reset-request';
+import { requestPasswordReset } from '@/lib/server/services/account';
 
 /** Sends a reset link if the e-mail belongs to an active person; the answer is the same either way. */
 export const POST = endpoint(async (ctx) => {

@@ -1,6 +1,6 @@
 import { loginBody } from '@/lib/schemas/api';
 import { endpoint, json, readJson } from '@/lib/server/http';
-import { attemptSignIn } from '@/lib/server/sign-in';
+import { attemptSignIn } from '@/lib/server/services/account';
 
 /** Signs in with `{email, password}`. Unknown e-mail and wrong password get the same answer. */
 export const POST = endpoint(async (ctx) => {

@@ -1,8 +1,7 @@
-import { getDb } from '@db/connection';
 import { AppError } from '@/lib/server/errors';
-import { importInventory } from '@/lib/server/equipment-pages';
-import { requireRole } from '@/lib/server/guards';
+import { requireUser } from '@/lib/server/guards';
 import { endpoint, json, readLimited } from '@/lib/server/http';
+import { importSets } from '@/lib/server/services/equipment';
 
 const LIMIT = 2 * 1024 * 1024;
 
@@ -11,11 +10,10 @@ const LIMIT = 2 * 1024 * 1024;
  * are added. Any bad row answers 400 with every problem as `line N.column`, and nothing is saved.
  */
 export const POST = endpoint(async (ctx) => {
-  const person = requireRole(ctx, 'admin');
+  const person = requireUser(ctx);
   const type = ctx.request.headers.get('content-type') ?? '';
   if (!/^text\/(csv|plain)\b/i.test(type)) throw new AppError('UNSUPPORTED_MEDIA', { message: 'Send the inventory as CSV (Content-Type: text/csv).' });
   if (Number(ctx.request.headers.get('content-length') ?? 0) > LIMIT) throw new AppError('BODY_TOO_LARGE', { extra: { limitBytes: LIMIT } });
-  const result = await importInventory(getDb(), person.organizationId, person.id, await readLimited(ctx.request, LIMIT));
-  if (!result.ok) throw new AppError('VALIDATION', { message: 'Some rows are not valid; nothing was imported. Fix the cells listed and import the whole file again.', issues: result.issues });
-  return json({ created: result.created.length, updated: result.updated.length, items: [...result.created, ...result.updated] });
+  const { created, updated } = await importSets(person, await readLimited(ctx.request, LIMIT));
+  return json({ created: created.length, updated: updated.length, items: [...created, ...updated] });
 });

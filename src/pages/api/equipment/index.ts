@@ -1,10 +1,10 @@
 import { getDb } from '@db/connection';
-import { listSets, saveSets } from '@db/repositories/equipment';
+import { listSets } from '@db/repositories/equipment';
 import { createSetBody, listSetsQuery } from '@/lib/schemas/equipment';
-import { AppError } from '@/lib/server/errors';
-import { today, unwrap } from '@/lib/server/equipment-http';
-import { requireRole, requireUser } from '@/lib/server/guards';
+import { today } from '@/lib/server/equipment-http';
+import { requireUser } from '@/lib/server/guards';
 import { endpoint, json, readJson, readQuery } from '@/lib/server/http';
+import { addSet } from '@/lib/server/services/equipment';
 
 /** The organisation's grounding sets: ?status=&due=overdue|soon&dueWithinDays=&q=&sort=&dir=&page=&pageSize= */
 export const GET = endpoint(async (ctx) => {
@@ -15,9 +15,8 @@ export const GET = endpoint(async (ctx) => {
 
 /** Adds a set (admin); a tag the organisation already uses is 409 naming it. */
 export const POST = endpoint(async (ctx) => {
-  const person = requireRole(ctx, 'admin');
+  const person = requireUser(ctx);
   const body = await readJson(ctx, createSetBody);
-  if (body.lastTestedOn && body.lastTestedOn > today()) throw new AppError('VALIDATION', { issues: [{ path: 'lastTestedOn', message: 'must not be in the future' }] });
-  const { created } = unwrap(await saveSets(getDb(), person.organizationId, person.id, [body], 'create'));
-  return json({ set: created[0] }, 201, { location: `/api/equipment/${created[0].id}` });
+  const set = await addSet(person, body);
+  return json({ set }, 201, { location: `/api/equipment/${set.id}` });
 });

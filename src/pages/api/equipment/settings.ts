@@ -1,8 +1,9 @@
 import { getDb } from '@db/connection';
-import { getSettings, saveSettings } from '@db/repositories/equipment-settings';
+import { getSettings } from '@db/repositories/equipment-settings';
 import { settingsBody } from '@/lib/schemas/equipment';
-import { requireRole, requireUser } from '@/lib/server/guards';
+import { requireUser } from '@/lib/server/guards';
 import { endpoint, json, readJson } from '@/lib/server/http';
+import { saveTestSettings } from '@/lib/server/services/equipment';
 
 /** The organisation's test interval and resistance limits (its own choices; none ship as facts). */
 export const GET = endpoint(async (ctx) => {
@@ -11,7 +12,7 @@ export const GET = endpoint(async (ctx) => {
 });
 
 export const PUT = endpoint(async (ctx) => {
-  const person = requireRole(ctx, 'admin');
+  const person = requireUser(ctx);
   const body = await readJson(ctx, settingsBody);
-  return json({ settings: await saveSettings(getDb(), person.organizationId, person.id, body) });
+  return json({ settings: await saveTestSettings(person, body) });
 });

@@ -1,8 +1,9 @@
 import { getDb } from '@db/connection';
-import { getOrganisationSettings, saveOrganisationSettings } from '@db/repositories/organisation-settings';
+import { getOrganisationSettings } from '@db/repositories/organisation-settings';
 import { organisationSettingsBody } from '@/lib/schemas/organisation';
-import { requireRole, requireUser } from '@/lib/server/guards';
+import { requireUser } from '@/lib/server/guards';
 import { endpoint, json, readJson } from '@/lib/server/http';
+import { changeOrganisationSettings } from '@/lib/server/services/organisation';
 
 /** The organisation's time zone, paper size and default units; anyone signed in reads, an admin saves. */
 export const GET = endpoint(async (ctx) => {
@@ -11,7 +12,7 @@ export const GET = endpoint(async (ctx) => {
 });
 
 export const PUT = endpoint(async (ctx) => {
-  const person = requireRole(ctx, 'admin');
+  const person = requireUser(ctx);
   const body = await readJson(ctx, organisationSettingsBody);
-  return json({ settings: await saveOrganisationSettings(getDb(), person.organizationId, person.id, body) });
+  return json({ settings: await changeOrganisationSettings(person, body) });
 });

@@ -1,10 +1,10 @@
 import { getDb } from '@db/connection';
-import { createPlan, describeStructure, listPlans } from '@db/repositories/plans';
+import { listPlans } from '@db/repositories/plans';
 import { createPlanBody, listPlansQuery } from '@/lib/schemas/api';
-import { checkForOrganization } from '@/lib/server/checking';
-import { requireRole, requireUser } from '@/lib/server/guards';
+import { requireUser } from '@/lib/server/guards';
 import { endpoint, json, PLAN_BODY_LIMIT, readJson, readQuery } from '@/lib/server/http';
 import { planJson, summaryJson } from '@/lib/server/plan-json';
+import { startPlan } from '@/lib/server/services/plans';
 
 /** The organisation's plans, one page at a time: ?status=&q=&sort=&dir=&page=&pageSize= */
 export const GET = endpoint(async (ctx) => {
@@ -16,16 +16,8 @@ export const GET = endpoint(async (ctx) => {
 
 /** Creates a draft plan from `{title, structure?, document}`; the first revision carries its check. */
 export const POST = endpoint(async (ctx) => {
-  const person = requireRole(ctx, 'crew_lead', 'admin');
+  const person = requireUser(ctx);
   const body = await readJson(ctx, createPlanBody, PLAN_BODY_LIMIT);
-  const document = { ...body.document, title: body.title };
-  const plan = await createPlan(getDb(), {
-    organizationId: person.organizationId,
-    authorId: person.id,
-    title: body.title,
-    structure: body.structure ?? describeStructure(document),
-    document,
-    report: await checkForOrganization(getDb(), person.organizationId, document),
-  });
+  const plan = await startPlan(person, body);
   return json({ plan: planJson(plan) }, 201, { location: `/api/plans/${plan.id}` });
 });

@@ -1,17 +1,31 @@
 import { readForm } from '@/lib/server/forms';
 import type { APIRoute } from 'astro';
-import { getDb } from '@db/connection';
-import { setCommentResolved } from '@db/repositories/revisions';
-import { hasRole } from '@/lib/server/guards';
+import type { Person } from '@/lib/domain/people';
 import { idParam } from '@/lib/schemas/api';
 import { AppError } from '@/lib/server/errors';
-import { reopen, submitForReview, withdraw } from '@/lib/server/workflow';
+import { resolveComment } from '@/lib/server/services/comments';
+import { reopen, submitForReview, withdraw } from '@/lib/server/services/review';
 
 /**
  * The plan page's workflow buttons post here as plain forms (no JavaScript needed): submit,
- * withdraw a submitted one, reopen an approved plan, resolve or reopen a comment. Answers with a redirect back to the plan
- * carrying what happened; the same rules as the JSON API apply, through the same functions.
+ * withdraw a submitted one, reopen an approved plan, resolve or reopen a comment. Each calls the
+ * same service as the JSON API (src/lib/server/services) and answers with a redirect back to the
+ * plan carrying what happened.
  */
+const ACTIONS: Record<string, (person: Person, planId: number, form: FormData, url: URL) => Promise<string>> = {
+  submit: async (person, planId, _form, url) => (await submitForReview(person, planId, url), 'submitted'),
+  reopen: async (person, planId) => (await reopen(person, planId), 'reopened'),
+  withdraw: async (person, planId) => (await withdraw(person, planId), 'withdrawn'),
+  resolve: async (person, planId, form) => (await resolveComment(person, planId, commentId(form), true), 'resolved'),
+  unresolve: async (person, planId, form) => (await resolveComment(person, planId, commentId(form), false), 'reopened-comment'),
+};
+
+function commentId(form: FormData): number {
+  const parsed = idParam.safeParse(form.get('commentId'));
+  if (!parsed.success) throw new AppError('NOT_FOUND');
+  return parsed.data;
+}
+
 export const POST: APIRoute = async (ctx) => {
   const person = ctx.locals.person!;
   const id = idParam.safeParse(ctx.params.id);
@@ -19,26 +33,11 @@ export const POST: APIRoute = async (ctx) => {
   const back = (query: string) => ctx.redirect(`/plans/${id.data}?${query}`, 303);
   const form = await readForm(ctx.request);
   if (form instanceof Response) return form;
-  const action = String(form.get('action') ?? '');
+  const name = String(form.get('action') ?? '');
+  if (!Object.hasOwn(ACTIONS, name)) return back('problem=ROLE_REQUIRED');
+  const action = ACTIONS[name];
   try {
-    if (action === 'submit' && hasRole(person, 'crew_lead', 'admin')) {
-      await submitForReview(person, id.data, ctx.url);
-      return back('notice=submitted');
-    }
-    if (action === 'reopen' && hasRole(person, 'crew_lead', 'admin')) {
-      await reopen(person, id.data);
-      return back('notice=reopened');
-    }
-    if (action === 'withdraw' && hasRole(person, 'crew_lead', 'admin')) {
-      await withdraw(person, id.data);
-      return back('notice=withdrawn');
-    }
-    if ((action === 'resolve' || action === 'unresolve') && hasRole(person, 'crew_lead', 'admin', 'reviewer')) {
-      const commentId = idParam.safeParse(form.get('commentId'));
-      if (!commentId.success || !(await setCommentResolved(getDb(), person.organizationId, id.data, commentId.data, person.id, action === 'resolve'))) throw new AppError('NOT_FOUND');
-      return back(`notice=${action === 'resolve' ? 'resolved' : 'reopened-comment'}`);
-    }
-    return back('problem=ROLE_REQUIRED');
+    return back(`notice=${await action(person, id.data, form, ctx.url)}`);
   } catch (error) {
     if (error instanceof AppError) return back(`problem=${error.code}`);
     throw error;

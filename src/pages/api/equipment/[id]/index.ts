@@ -1,11 +1,11 @@
 import { getDb } from '@db/connection';
-import { getSet, updateSet } from '@db/repositories/equipment';
+import { getSet } from '@db/repositories/equipment';
 import { idParam } from '@/lib/schemas/api';
 import { patchSetBody } from '@/lib/schemas/equipment';
 import { AppError } from '@/lib/server/errors';
-import { today, unwrap } from '@/lib/server/equipment-http';
-import { requireRole, requireUser } from '@/lib/server/guards';
+import { requireUser } from '@/lib/server/guards';
 import { endpoint, json, parseWith, readJson } from '@/lib/server/http';
+import { changeSet } from '@/lib/server/services/equipment';
 
 /** One set with its tests and events. */
 export const GET = endpoint(async (ctx) => {
@@ -17,10 +17,8 @@ export const GET = endpoint(async (ctx) => {
 
 /** Edits a set, changes its status (a reason is required out of service) or records a fault (admin). */
 export const PATCH = endpoint(async (ctx) => {
-  const person = requireRole(ctx, 'admin');
+  const person = requireUser(ctx);
   const id = parseWith(idParam, ctx.params.id);
   const body = await readJson(ctx, patchSetBody);
-  if (body.faultOn && body.faultOn > today()) throw new AppError('VALIDATION', { issues: [{ path: 'faultOn', message: 'must not be in the future' }] });
-  const set = unwrap(await updateSet(getDb(), person.organizationId, id, person.id, body));
-  return json({ set });
+  return json({ set: await changeSet(person, id, body) });
 });

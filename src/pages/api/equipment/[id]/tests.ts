@@ -1,18 +1,13 @@
-import { getDb } from '@db/connection';
-import { recordTest } from '@db/repositories/equipment';
 import { idParam } from '@/lib/schemas/api';
 import { setTestBody } from '@/lib/schemas/equipment';
-import { AppError } from '@/lib/server/errors';
-import { today, unwrap } from '@/lib/server/equipment-http';
-import { requireRole } from '@/lib/server/guards';
+import { requireUser } from '@/lib/server/guards';
 import { endpoint, json, parseWith, readJson } from '@/lib/server/http';
+import { recordSetTest } from '@/lib/server/services/equipment';
 
 /** Records an in-service test (admin, crew lead); a pass can put the set back in service. */
 export const POST = endpoint(async (ctx) => {
-  const person = requireRole(ctx, 'admin', 'crew_lead');
+  const person = requireUser(ctx);
   const id = parseWith(idParam, ctx.params.id);
   const body = await readJson(ctx, setTestBody);
-  if (body.testedOn > today()) throw new AppError('VALIDATION', { issues: [{ path: 'testedOn', message: 'must not be in the future' }] });
-  const value = unwrap(await recordTest(getDb(), person.organizationId, id, person.id, body));
-  return json(value, 201);
+  return json(await recordSetTest(person, id, body), 201);
 });

@@ -1,11 +1,10 @@
 import { getDb } from '@db/connection';
-import { progressCells, setPublished } from '@db/repositories/practice';
+import { progressCells } from '@db/repositories/practice';
 import { idParam } from '@/lib/schemas/api';
 import { publishBody } from '@/lib/schemas/practice';
 import { requireRole, requireUser } from '@/lib/server/guards';
 import { endpoint, json, parseWith, readJson } from '@/lib/server/http';
-import { AppError } from '@/lib/server/errors';
-import { exerciseJson, PRACTICE_STAFF, visibleExercise } from '@/lib/server/practice';
+import { exerciseJson, PRACTICE_STAFF, publishExercise, visibleExercise } from '@/lib/server/practice';
 
 /** One exercise. A learner never receives the answer: no removed links, planted findings or original plan. */
 export const GET = endpoint(async (ctx) => {
@@ -20,6 +19,5 @@ export const PATCH = endpoint(async (ctx) => {
   const person = requireRole(ctx, ...PRACTICE_STAFF);
   const id = parseWith(idParam, ctx.params.id);
   const body = await readJson(ctx, publishBody, 1024);
-  if (!(await setPublished(getDb(), person.organizationId, id, body.published))) throw new AppError('NOT_FOUND');
-  return json({ exercise: exerciseJson(person, await visibleExercise(person, id)) });
+  return json({ exercise: exerciseJson(person, await publishExercise(person, id, body.published)) });
 });

@@ -1,9 +1,6 @@
-import { getDb } from '@db/connection';
-import { getPlan, storeReport } from '@db/repositories/plans';
-import { checkForOrganization } from '@/lib/server/checking';
-import { AppError } from '@/lib/server/errors';
-import { hasRole, requireUser } from '@/lib/server/guards';
+import { requireUser } from '@/lib/server/guards';
 import { endpoint, json, pathId } from '@/lib/server/http';
+import { recheckPlan } from '@/lib/server/services/plans';
 
 /**
  * Checks the plan's current revision again. For a crew lead or admin (who may edit the plan) the
@@ -12,11 +9,5 @@ import { endpoint, json, pathId } from '@/lib/server/http';
  */
 export const POST = endpoint(async (ctx) => {
   const person = requireUser(ctx);
-  const id = pathId(ctx, 'id');
-  const db = getDb();
-  const plan = await getPlan(db, person.organizationId, id);
-  if (!plan) throw new AppError('NOT_FOUND');
-  const report = await checkForOrganization(db, person.organizationId, plan.document);
-  const stored = hasRole(person, 'crew_lead', 'admin') && (await storeReport(db, person.organizationId, id, plan.currentRevision, report));
-  return json({ revision: plan.currentRevision, stored, report });
+  return json(await recheckPlan(person, pathId(ctx, 'id')));
 });

@@ -1,20 +1,24 @@
 /**
- * The review workflow as the endpoints and pages use it: each step re-reads and re-checks on the
- * server, moves the plan in one transaction, and queues the messages that go with it.
+ * The review workflow's operations, one function each, called by the JSON endpoints and the form
+ * pages alike: who may do it, a fresh server check where one is needed, the move in one
+ * transaction (the guards are the domain's, src/lib/domain/review-guards.ts) and the mail queued
+ * inside it. Each returns the plan as it now is or throws an AppError.
  */
 import { getDb } from '@db/connection';
 import { getPlan, type PlanDetail } from '@db/repositories/plans';
-import { decidePlan, reopenApproved, submitPlan, type Decision } from '@db/repositories/review';
+import { decidePlan, reopenApproved, submitPlan } from '@db/repositories/review';
 import { withdrawPlan } from '@db/repositories/withdraw';
-import { fingerprint } from '@/lib/server/fingerprint';
+import { decisionRecord, type DecisionRequest } from '@/lib/domain/review-guards';
 import type { Person } from '@/lib/domain/people';
-import { checkForOrganization } from './checking';
-import { AppError } from './errors';
-import { queueMail } from './mail';
-import { decidedMessage, submittedMessage } from './mail-messages';
-import { publicUrl } from './settings';
+import { checkForOrganization } from '@/lib/server/checking';
+import { AppError } from '@/lib/server/errors';
+import { fingerprint } from '@/lib/server/fingerprint';
+import { assertRole } from '@/lib/server/guards';
+import { queueMail } from '@/lib/server/mail';
+import { decidedMessage, submittedMessage } from '@/lib/server/mail-messages';
+import { publicUrl } from '@/lib/server/settings';
 
-async function requirePlan(person: Person, planId: number): Promise<PlanDetail> {
+export async function requirePlan(person: Person, planId: number): Promise<PlanDetail> {
   const plan = await getPlan(getDb(), person.organizationId, planId);
   if (!plan) throw new AppError('NOT_FOUND');
   return plan;
@@ -22,6 +26,7 @@ async function requirePlan(person: Person, planId: number): Promise<PlanDetail> 
 
 /** Submits the plan for review; refused while the server's own check finds any blocker. */
 export async function submitForReview(person: Person, planId: number, requestUrl?: URL): Promise<PlanDetail> {
+  assertRole(person, 'crew_lead', 'admin');
   const db = getDb();
   const plan = await requirePlan(person, planId);
   const report = await checkForOrganization(db, person.organizationId, plan.document, 'submit');
@@ -45,23 +50,12 @@ export async function submitForReview(person: Person, planId: number, requestUrl
 }
 
 /** Records a reviewer's decision; the approval carries the hashes of the document and report. */
-export async function decide(
-  person: Person,
-  planId: number,
-  input: { decision: Decision; comment?: string; teachingNote?: string; revision?: number },
-  requestUrl?: URL,
-): Promise<PlanDetail> {
+export async function decide(person: Person, planId: number, input: DecisionRequest, requestUrl?: URL): Promise<PlanDetail> {
+  assertRole(person, 'reviewer', 'admin');
   const db = getDb();
   const plan = await requirePlan(person, planId);
-  const approving = input.decision === 'approve';
-  const outcome = await decidePlan(db, person.organizationId, planId, person.id, {
-    decision: input.decision,
-    comment: input.comment || null,
-    teachingNote: approving ? input.teachingNote || null : null,
-    documentHash: approving ? fingerprint(plan.document) : null,
-    reportHash: approving ? fingerprint(plan.report) : null,
-    revision: input.revision ?? plan.currentRevision,
-  }, async (transaction, revision) => {
+  const record = decisionRecord(input, plan.currentRevision, () => ({ documentHash: fingerprint(plan.document), reportHash: fingerprint(plan.report) }));
+  const outcome = await decidePlan(db, person.organizationId, planId, person.id, record, async (transaction, revision) => {
     // The author's mail is queued inside the decision's transaction: all of it or none.
     const author = await db.models.User.findByPk(plan.authorId, { attributes: ['email', 'disabled'], transaction });
     if (!author || author.disabled) return;
@@ -90,6 +84,7 @@ export async function decide(
 
 /** Starts a new draft revision from an approved plan; the approved revision stays as it was. */
 export async function reopen(person: Person, planId: number): Promise<PlanDetail> {
+  assertRole(person, 'crew_lead', 'admin');
   const outcome = await reopenApproved(getDb(), person.organizationId, planId, person.id);
   if (outcome.kind === 'not-found') throw new AppError('NOT_FOUND');
   if (outcome.kind === 'not-approved') throw new AppError('NOT_APPROVED', { extra: { status: outcome.status } });
@@ -98,6 +93,7 @@ export async function reopen(person: Person, planId: number): Promise<PlanDetail
 
 /** Takes a submitted plan back to a draft at the same revision, before a reviewer decides it. */
 export async function withdraw(person: Person, planId: number): Promise<PlanDetail> {
+  assertRole(person, 'crew_lead', 'admin');
   const outcome = await withdrawPlan(getDb(), person.organizationId, planId, { id: person.id, isAdmin: person.role === 'admin' });
   if (outcome.kind === 'not-found') throw new AppError('NOT_FOUND');
   if (outcome.kind === 'not-author') throw new AppError('NOT_AUTHOR');

@@ -1,21 +1,19 @@
-/** What an admin may do to people, shared by the JSON API and the /admin/users page. */
+/** What an admin may do to people: invite, change a role, disable or enable; for the JSON API and the /admin/users page. */
 import { UniqueConstraintError } from 'sequelize';
 import { getDb } from '@db/connection';
 import { recordEvent } from '@db/repositories/audit';
-import { countActiveAdmins, createPerson, emailOrganization, findPerson, findPersonForSignIn, lockOrganization, updatePerson } from '@db/repositories/people';
+import { countActiveAdmins, createPerson, emailOrganization, findPerson, lockOrganization, updatePerson } from '@db/repositories/people';
 import { createPasswordToken } from '@db/repositories/sign-in';
 import { normaliseEmail, type Person } from '@/lib/domain/people';
 import type { Role } from '@/lib/domain/roles';
-import { endAllSessions } from './auth';
-import { AppError } from './errors';
-import { roleMessage } from './guards';
-import { queueMail } from './mail';
-import { addressInUseMessage, invitationMessage, resetMessage } from './mail-messages';
-import { publicUrl } from './settings';
+import { endAllSessions } from '@/lib/server/auth';
+import { AppError } from '@/lib/server/errors';
+import { assertRole, roleMessage } from '@/lib/server/guards';
+import { queueMail } from '@/lib/server/mail';
+import { addressInUseMessage, invitationMessage } from '@/lib/server/mail-messages';
+import { publicUrl } from '@/lib/server/settings';
 
 export const INVITE_DAYS = 7;
-
-export const RESET_HOURS = 1;
 
 /** What an invitation answers: the same whether or not the address belongs to another organisation. */
 export interface InvitationSent {
@@ -36,6 +34,7 @@ const emailTaken = () => new AppError('EMAIL_TAKEN', { issues: [{ path: 'email',
  * belongs to another organisation. An address of the admin's own organisation is 409.
  */
 export async function invitePerson(admin: Person, input: { email: string; name: string; role: Role }, requestUrl?: URL): Promise<InvitationSent> {
+  assertRole(admin, 'admin');
   const db = getDb();
   const email = normaliseEmail(input.email);
   const sent: InvitationSent = { email, name: input.name, role: input.role, expiresInDays: INVITE_DAYS, message: `An invitation was sent to ${email}. The link in it works once and for ${INVITE_DAYS} days.` };
@@ -64,23 +63,11 @@ export async function invitePerson(admin: Person, input: { email: string; name: 
 }
 
 /**
- * Sends a password-reset link to an active person with this e-mail. Says nothing about whether
- * the address exists: the caller answers the same either way.
- */
-export async function sendPasswordReset(email: string, requestUrl?: URL): Promise<void> {
-  const db = getDb();
-  const found = await findPersonForSignIn(db, email);
-  if (!found || found.person.disabled) return;
-  const token = await createPasswordToken(db, found.person.id, 'reset', new Date(Date.now() + RESET_HOURS * 3600_000));
-  await queueMail([resetMessage(found.person.email, found.person.name, `${publicUrl(requestUrl)}/set-password/${token}`, RESET_HOURS)]);
-  await recordEvent(db, { organizationId: found.person.organizationId, actorId: null, action: 'user.reset-requested', subjectType: 'user', subjectId: found.person.id });
-}
-
-/**
  * Changes a role or disables/enables a person; never leaves the organisation without an admin.
  * The organisation row is locked for the check and the change, so parallel changes go in turn.
  */
 export async function changePerson(admin: Person, id: string, changes: { role?: Role; disabled?: boolean }): Promise<Person> {
+  assertRole(admin, 'admin');
   const db = getDb();
   const person = await db.sequelize.transaction(async (transaction) => {
     await lockOrganization(db, admin.organizationId, transaction);

@@ -1,0 +1,66 @@
+/**
+ * The grounding-set inventory's operations, for the equipment endpoints and the equipment pages
+ * alike: add a set, import a CSV, record a test, edit a set or record a fault, save the test
+ * settings. Each checks who may do it and returns what was stored, or throws an AppError naming
+ * the field.
+ */
+import { getDb } from '@db/connection';
+import { recordTest, saveSets, updateSet, type SetJson } from '@db/repositories/equipment';
+import { saveSettings } from '@db/repositories/equipment-settings';
+import type { Person } from '@/lib/domain/people';
+import type { CreateSetBody, PatchSetBody, SetTestBody, SettingsBody } from '@/lib/schemas/equipment';
+import { parseInventoryCsv } from '@/lib/schemas/equipment-csv';
+import { today, unwrap } from '@/lib/server/equipment-http';
+import { AppError } from '@/lib/server/errors';
+import { assertRole } from '@/lib/server/guards';
+
+/** A date a person says something happened on cannot be after today (UTC). */
+function notInFuture(path: string, day: string | null | undefined): void {
+  if (day && day > today()) throw new AppError('VALIDATION', { issues: [{ path, message: 'must not be in the future' }] });
+}
+
+/** Adds a set; a tag the organisation already uses is SET_TAG_TAKEN naming it. */
+export async function addSet(person: Person, input: CreateSetBody): Promise<SetJson> {
+  assertRole(person, 'admin');
+  notInFuture('lastTestedOn', input.lastTestedOn);
+  const { created } = unwrap(await saveSets(getDb(), person.organizationId, person.id, [input], 'create'));
+  return created[0];
+}
+
+/**
+ * Imports a CSV inventory, all or nothing: rows whose tag exists update that set, the others are
+ * added. Any bad row is VALIDATION with every problem as `line N.column`, and nothing is saved.
+ */
+export async function importSets(person: Person, csv: string): Promise<{ created: SetJson[]; updated: SetJson[] }> {
+  assertRole(person, 'admin');
+  const invalid = (issues: { path: string; message: string }[]) =>
+    new AppError('VALIDATION', { message: 'Some rows are not valid; nothing was imported. Fix the cells listed and import the whole file again.', issues });
+  const parsed = parseInventoryCsv(csv);
+  if (!parsed.ok) throw invalid(parsed.issues);
+  const day = today();
+  const future = parsed.rows.filter((r) => r.body.lastTestedOn && r.body.lastTestedOn > day);
+  if (future.length) throw invalid(future.map((r) => ({ path: `line ${r.line}.lastTestedOn`, message: 'must not be in the future' })));
+  const outcome = await saveSets(getDb(), person.organizationId, person.id, parsed.rows.map((r) => r.body), 'upsert');
+  if (outcome.kind !== 'ok') throw invalid([{ path: 'tag', message: 'another import changed the same tags at the same moment; import again' }]);
+  return outcome.value;
+}
+
+/** Records an in-service test; a pass can put the set back in service. */
+export async function recordSetTest(person: Person, setId: number, input: SetTestBody) {
+  assertRole(person, 'admin', 'crew_lead');
+  notInFuture('testedOn', input.testedOn);
+  return unwrap(await recordTest(getDb(), person.organizationId, setId, person.id, input));
+}
+
+/** Edits a set, changes its status (a reason is required out of service) or records a fault. */
+export async function changeSet(person: Person, setId: number, input: PatchSetBody): Promise<SetJson> {
+  assertRole(person, 'admin');
+  notInFuture('faultOn', input.faultOn);
+  return unwrap(await updateSet(getDb(), person.organizationId, setId, person.id, input));
+}
+
+/** The organisation's test interval and resistance limits (its own choices; none ship as facts). */
+export async function saveTestSettings(person: Person, input: SettingsBody) {
+  assertRole(person, 'admin');
+  return saveSettings(getDb(), person.organizationId, person.id, input);
+}
