@@ -3,6 +3,7 @@
  * and its answer key as written at creation; the approved revision it came from is only read.
  */
 import { Op } from 'sequelize';
+import { rolesFor } from '@/lib/domain/permissions';
 import type { AnswerKey, ExerciseKind, GapKind, Modifications } from '@/lib/domain/practice/types';
 import type { PlanDocument } from '@/lib/schemas/plan';
 import type { Db } from '@db/connection';
@@ -150,10 +151,10 @@ export async function progressCells(db: Db, organizationId: number, apprenticeId
   return [...cells.values()];
 }
 
-/** The organisation's apprentices (active ones, and anyone of it who has attempts), by name. */
+/** Who takes practice (active ones, and anyone of the organisation who has attempts), by name. */
 export async function practisingPeople(db: Db, organizationId: number, withAttempts: string[]): Promise<{ id: string; name: string }[]> {
   const rows = await db.models.User.findAll({
-    where: { organizationId, [Op.or]: [{ role: 'apprentice', disabled: false }, { id: withAttempts }] },
+    where: { organizationId, [Op.or]: [{ role: [...rolesFor('practice.take')], disabled: false }, { id: withAttempts }] },
     attributes: ['id', 'name'],
     order: [['name', 'ASC'], ['id', 'ASC']],
   });

@@ -5,10 +5,11 @@ import { recordEvent } from '@db/repositories/audit';
 import { countActiveAdmins, createPerson, emailOrganization, findPerson, findPersonForSignIn, lockOrganization, updatePerson } from '@db/repositories/people';
 import { createPasswordToken } from '@db/repositories/sign-in';
 import { normaliseEmail, type Person } from '@/lib/domain/people';
+import { can } from '@/lib/domain/permissions';
 import type { Role } from '@/lib/domain/roles';
 import { endAllSessions } from './auth';
 import { AppError } from './errors';
-import { roleMessage } from './guards';
+import { roleRefusal } from './guards';
 import { queueMail } from './mail';
 import { addressInUseMessage, invitationMessage, resetMessage } from './mail-messages';
 import { publicUrl } from './settings';
@@ -86,12 +87,12 @@ export async function changePerson(admin: Person, id: string, changes: { role?: 
     await lockOrganization(db, admin.organizationId, transaction);
     // The caller may have lost the admin role to a change that was waiting ahead of this one.
     const actor = await findPerson(db, admin.organizationId, admin.id, transaction);
-    if (!actor || actor.role !== 'admin' || actor.disabled) throw new AppError('ROLE_REQUIRED', { message: roleMessage(['admin']), extra: { requiredRoles: ['admin'] } });
+    if (!actor || !can(actor.role, 'people.manage') || actor.disabled) throw roleRefusal('people.manage');
     const target = await findPerson(db, admin.organizationId, id, transaction);
     if (!target) throw new AppError('NOT_FOUND');
-    const losesAdmin = (changes.role !== undefined && changes.role !== 'admin') || changes.disabled === true;
+    const losesAdmin = (changes.role !== undefined && !can(changes.role, 'people.manage')) || changes.disabled === true;
     if (target.id === admin.id && losesAdmin) throw new AppError('SELF_CHANGE');
-    if (target.role === 'admin' && losesAdmin && (await countActiveAdmins(db, admin.organizationId, target.id, transaction)) === 0) {
+    if (can(target.role, 'people.manage') && losesAdmin && (await countActiveAdmins(db, admin.organizationId, target.id, transaction)) === 0) {
       throw new AppError('SELF_CHANGE', { message: 'The organisation would be left without an active admin. Make someone else admin first.' });
     }
     const updated = (await updatePerson(db, admin.organizationId, id, changes, transaction))!;

@@ -8,6 +8,7 @@ import { decidePlan, reopenApproved, submitPlan, type Decision } from '@db/repos
 import { withdrawPlan } from '@db/repositories/withdraw';
 import { fingerprint } from '@/lib/server/fingerprint';
 import type { Person } from '@/lib/domain/people';
+import { can, rolesFor } from '@/lib/domain/permissions';
 import { checkForOrganization } from './checking';
 import { AppError } from './errors';
 import { queueMail } from './mail';
@@ -29,7 +30,7 @@ export async function submitForReview(person: Person, planId: number, requestUrl
   const outcome = await submitPlan(db, person.organizationId, planId, person.id, report, {
     checkedRevision: plan.currentRevision,
     then: async (transaction, revision) => {
-      const reviewers = await db.models.User.findAll({ where: { organizationId: person.organizationId, role: 'reviewer', disabled: false }, attributes: ['email', 'id'], transaction });
+      const reviewers = await db.models.User.findAll({ where: { organizationId: person.organizationId, role: [...rolesFor('notify.plan-submitted')], disabled: false }, attributes: ['email', 'id'], transaction });
       const ref = { id: plan.id, title: plan.title, revision, organizationId: person.organizationId };
       await queueMail(reviewers.filter((r) => r.id !== person.id).map((r) => submittedMessage(r.email, ref, person.name, publicUrl(requestUrl))), transaction);
     },
@@ -98,7 +99,7 @@ export async function reopen(person: Person, planId: number): Promise<PlanDetail
 
 /** Takes a submitted plan back to a draft at the same revision, before a reviewer decides it. */
 export async function withdraw(person: Person, planId: number): Promise<PlanDetail> {
-  const outcome = await withdrawPlan(getDb(), person.organizationId, planId, { id: person.id, isAdmin: person.role === 'admin' });
+  const outcome = await withdrawPlan(getDb(), person.organizationId, planId, { id: person.id, isAdmin: can(person.role, 'plan.withdraw-any') });
   if (outcome.kind === 'not-found') throw new AppError('NOT_FOUND');
   if (outcome.kind === 'not-author') throw new AppError('NOT_AUTHOR');
   if (outcome.kind === 'not-submitted') throw new AppError('NOT_WITHDRAWABLE', { extra: { status: outcome.status } });

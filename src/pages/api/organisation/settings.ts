@@ -1,7 +1,7 @@
 import { getDb } from '@db/connection';
 import { getOrganisationSettings, saveOrganisationSettings } from '@db/repositories/organisation-settings';
 import { organisationSettingsBody } from '@/lib/schemas/organisation';
-import { requireRole, requireUser } from '@/lib/server/guards';
+import { requireCan, requireUser } from '@/lib/server/guards';
 import { endpoint, json, readJson } from '@/lib/server/http';
 
 /** The organisation's time zone, paper size and default units; anyone signed in reads, an admin saves. */
@@ -11,7 +11,7 @@ export const GET = endpoint(async (ctx) => {
 });
 
 export const PUT = endpoint(async (ctx) => {
-  const person = requireRole(ctx, 'admin');
+  const person = requireCan(ctx, 'settings.edit');
   const body = await readJson(ctx, organisationSettingsBody);
   return json({ settings: await saveOrganisationSettings(getDb(), person.organizationId, person.id, body) });
 });

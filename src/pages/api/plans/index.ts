@@ -2,13 +2,13 @@ import { getDb } from '@db/connection';
 import { createPlan, describeStructure, listPlans } from '@db/repositories/plans';
 import { createPlanBody, listPlansQuery } from '@/lib/schemas/api';
 import { checkForOrganization } from '@/lib/server/checking';
-import { requireRole, requireUser } from '@/lib/server/guards';
+import { requireCan } from '@/lib/server/guards';
 import { endpoint, json, PLAN_BODY_LIMIT, readJson, readQuery } from '@/lib/server/http';
 import { planJson, summaryJson } from '@/lib/server/plan-json';
 
 /** The organisation's plans, one page at a time: ?status=&q=&sort=&dir=&page=&pageSize= */
 export const GET = endpoint(async (ctx) => {
-  const person = requireUser(ctx);
+  const person = requireCan(ctx, 'plan.view');
   const query = readQuery(ctx.url, listPlansQuery);
   const page = await listPlans(getDb(), person.organizationId, query);
   return json({ ...page, items: page.items.map(summaryJson) });
@@ -16,7 +16,7 @@ export const GET = endpoint(async (ctx) => {
 
 /** Creates a draft plan from `{title, structure?, document}`; the first revision carries its check. */
 export const POST = endpoint(async (ctx) => {
-  const person = requireRole(ctx, 'crew_lead', 'admin');
+  const person = requireCan(ctx, 'plan.create');
   const body = await readJson(ctx, createPlanBody, PLAN_BODY_LIMIT);
   const document = { ...body.document, title: body.title };
   const plan = await createPlan(getDb(), {

@@ -2,7 +2,7 @@ import { getDb } from '@db/connection';
 import { getPlan, storeReport } from '@db/repositories/plans';
 import { checkForOrganization } from '@/lib/server/checking';
 import { AppError } from '@/lib/server/errors';
-import { hasRole, requireUser } from '@/lib/server/guards';
+import { allows, requireCan } from '@/lib/server/guards';
 import { endpoint, json, pathId } from '@/lib/server/http';
 
 /**
@@ -11,12 +11,12 @@ import { endpoint, json, pathId } from '@/lib/server/http';
  * report is computed and returned with `stored: false`.
  */
 export const POST = endpoint(async (ctx) => {
-  const person = requireUser(ctx);
+  const person = requireCan(ctx, 'plan.check');
   const id = pathId(ctx, 'id');
   const db = getDb();
   const plan = await getPlan(db, person.organizationId, id);
   if (!plan) throw new AppError('NOT_FOUND');
   const report = await checkForOrganization(db, person.organizationId, plan.document);
-  const stored = hasRole(person, 'crew_lead', 'admin') && (await storeReport(db, person.organizationId, id, plan.currentRevision, report));
+  const stored = allows(person, 'plan.edit') && (await storeReport(db, person.organizationId, id, plan.currentRevision, report));
   return json({ revision: plan.currentRevision, stored, report });
 });

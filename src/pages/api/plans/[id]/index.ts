@@ -4,12 +4,12 @@ import { isEditable } from '@/lib/domain/plan-status';
 import { savePlanBody } from '@/lib/schemas/api';
 import { checkForOrganization } from '@/lib/server/checking';
 import { AppError } from '@/lib/server/errors';
-import { requireRole, requireUser } from '@/lib/server/guards';
+import { requireCan } from '@/lib/server/guards';
 import { endpoint, json, pathId, PLAN_BODY_LIMIT, readJson } from '@/lib/server/http';
 import { planJson } from '@/lib/server/plan-json';
 
 export const GET = endpoint(async (ctx) => {
-  const person = requireUser(ctx);
+  const person = requireCan(ctx, 'plan.view');
   const id = pathId(ctx, 'id');
   const plan = await getPlan(getDb(), person.organizationId, id);
   if (!plan) throw new AppError('NOT_FOUND');
@@ -21,7 +21,7 @@ export const GET = endpoint(async (ctx) => {
  * saved since, the answer is 409 with the current revision, and nothing is overwritten.
  */
 export const PUT = endpoint(async (ctx) => {
-  const person = requireRole(ctx, 'crew_lead', 'admin');
+  const person = requireCan(ctx, 'plan.edit');
   const id = pathId(ctx, 'id');
   const body = await readJson(ctx, savePlanBody, PLAN_BODY_LIMIT);
   const document = body.title ? { ...body.document, title: body.title } : body.document;

@@ -1,12 +1,12 @@
 import { createRecordBody } from '@/lib/schemas/field-record';
 import { idParam } from '@/lib/schemas/api';
-import { openRecord, RECORD_WRITERS } from '@/lib/server/field-records';
-import { requireRole } from '@/lib/server/guards';
+import { openRecord } from '@/lib/server/field-records';
+import { requireCan } from '@/lib/server/guards';
 import { endpoint, json, parseWith, readJson } from '@/lib/server/http';
 
 /** Opens a field record on the plan's approved revision: 201, or 409 unless the plan is approved. */
 export const POST = endpoint(async (ctx) => {
-  const person = requireRole(ctx, ...RECORD_WRITERS);
+  const person = requireCan(ctx, 'records.write');
   const planId = parseWith(idParam, ctx.params.id);
   const hasBody = Number(ctx.request.headers.get('content-length') ?? 0) > 0 || ctx.request.headers.has('transfer-encoding');
   const body = hasBody ? await readJson(ctx, createRecordBody) : {};

@@ -2,12 +2,12 @@ import { getDb } from '@db/connection';
 import { listComments, setCommentResolved } from '@db/repositories/revisions';
 import { resolveCommentBody } from '@/lib/schemas/api';
 import { AppError } from '@/lib/server/errors';
-import { requireRole } from '@/lib/server/guards';
+import { requireCan } from '@/lib/server/guards';
 import { endpoint, json, pathId, readJson } from '@/lib/server/http';
 
 /** Resolves a comment (the crew lead fixed it) or opens it again: `{resolved}`. */
 export const PATCH = endpoint(async (ctx) => {
-  const person = requireRole(ctx, 'crew_lead', 'admin', 'reviewer');
+  const person = requireCan(ctx, 'comment.resolve');
   const id = pathId(ctx, 'id');
   const commentId = pathId(ctx, 'cid', 'commentId');
   const body = await readJson(ctx, resolveCommentBody, 4 * 1024);
