@@ -106,9 +106,13 @@ export async function getExercise(db: Db, organizationId: number, id: number): P
   return row ? (await toRecords(db, [row]))[0] : null;
 }
 
+/**
+ * False only when the organisation has no such exercise. MariaDB counts changed rows, not matched
+ * ones, so publishing a published exercise updates none and is told apart by looking it up.
+ */
 export async function setPublished(db: Db, organizationId: number, id: number, published: boolean): Promise<boolean> {
   const [count] = await db.models.PracticeExercise.update({ published }, { where: { id, organizationId } });
-  return count > 0;
+  return count > 0 || (await db.models.PracticeExercise.count({ where: { id, organizationId } })) > 0;
 }
 
 export interface NewAttempt {
