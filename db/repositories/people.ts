@@ -3,6 +3,7 @@ import { randomBytes } from 'node:crypto';
 import { Op, type Transaction } from 'sequelize';
 import type { Person } from '@/lib/domain/people';
 import { normaliseEmail } from '@/lib/domain/people';
+import { rolesFor } from '@/lib/domain/permissions';
 import type { Role } from '@/lib/domain/roles';
 import type { Db } from '@db/connection';
 import type { User } from '@db/models';
@@ -83,7 +84,7 @@ export async function setPasswordHash(db: Db, userId: string, passwordHash: stri
 
 export async function countActiveAdmins(db: Db, organizationId: number, exceptId?: string, transaction?: Transaction): Promise<number> {
   return db.models.User.count({
-    where: { organizationId, role: 'admin', disabled: false, ...(exceptId ? { id: { [Op.ne]: exceptId } } : {}) },
+    where: { organizationId, role: [...rolesFor('people.manage')], disabled: false, ...(exceptId ? { id: { [Op.ne]: exceptId } } : {}) },
     transaction,
   });
 }

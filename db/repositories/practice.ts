@@ -3,6 +3,7 @@
  * and its answer key as written at creation; the approved revision it came from is only read.
  */
 import { Op } from 'sequelize';
+import { rolesFor } from '@/lib/domain/permissions';
 import type { AnswerKey, ExerciseKind, GapKind, Modifications } from '@/lib/domain/practice/types';
 import type { PlanDocument } from '@/lib/schemas/plan';
 import type { Db } from '@db/connection';
@@ -105,9 +106,13 @@ export async function getExercise(db: Db, organizationId: number, id: number): P
   return row ? (await toRecords(db, [row]))[0] : null;
 }
 
+/**
+ * False only when the organisation has no such exercise. MariaDB counts changed rows, not matched
+ * ones, so publishing a published exercise updates none and is told apart by looking it up.
+ */
 export async function setPublished(db: Db, organizationId: number, id: number, published: boolean): Promise<boolean> {
   const [count] = await db.models.PracticeExercise.update({ published }, { where: { id, organizationId } });
-  return count > 0;
+  return count > 0 || (await db.models.PracticeExercise.count({ where: { id, organizationId } })) > 0;
 }
 
 export interface NewAttempt {
@@ -150,10 +155,10 @@ export async function progressCells(db: Db, organizationId: number, apprenticeId
   return [...cells.values()];
 }
 
-/** The organisation's apprentices (active ones, and anyone of it who has attempts), by name. */
+/** Who takes practice (active ones, and anyone of the organisation who has attempts), by name. */
 export async function practisingPeople(db: Db, organizationId: number, withAttempts: string[]): Promise<{ id: string; name: string }[]> {
   const rows = await db.models.User.findAll({
-    where: { organizationId, [Op.or]: [{ role: 'apprentice', disabled: false }, { id: withAttempts }] },
+    where: { organizationId, [Op.or]: [{ role: [...rolesFor('practice.take')], disabled: false }, { id: withAttempts }] },
     attributes: ['id', 'name'],
     order: [['name', 'ASC'], ['id', 'ASC']],
   });

@@ -1,4 +1,4 @@
-/** The four roles of an organisation and what each may do (product.md, "Who uses it"). */
+/** The four roles of an organisation; what each may do is the table in permissions.ts. */
 export const ROLES = ['admin', 'reviewer', 'crew_lead', 'apprentice'] as const;
 export type Role = (typeof ROLES)[number];
 
@@ -12,6 +12,3 @@ export const ROLE_LABELS: Record<Role, string> = {
 export function isRole(value: unknown): value is Role {
   return typeof value === 'string' && (ROLES as readonly string[]).includes(value);
 }
-
-/** Roles that may create and edit plans. */
-export const PLAN_AUTHOR_ROLES: readonly Role[] = ['crew_lead', 'admin'];

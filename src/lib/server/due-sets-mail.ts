@@ -7,6 +7,7 @@
 import { Op, UniqueConstraintError } from 'sequelize';
 import { getDb, type Db } from '@db/connection';
 import { addDays, dueState, DUE_SOON_DAYS, type DueState } from '@/lib/domain/equipment';
+import { rolesFor } from '@/lib/domain/permissions';
 import { today } from './equipment-http';
 import { queueMail, type OutgoingMail } from './mail';
 import { compose } from './mail-messages';
@@ -51,7 +52,7 @@ async function runFor(db: Db, organizationId: number, day: string, baseUrl: stri
       await claim.update({ listed: JSON.stringify(Object.fromEntries(sets.map((s) => [s.tag, s.state]))) }, { transaction });
       const fresh = sets.filter((s) => before[s.tag] !== s.state);
       if (fresh.length === 0) return;
-      const admins = await db.models.User.findAll({ where: { organizationId, role: 'admin', disabled: false }, attributes: ['email'], transaction });
+      const admins = await db.models.User.findAll({ where: { organizationId, role: [...rolesFor('notify.sets-due')], disabled: false }, attributes: ['email'], transaction });
       await queueMail(admins.map((a) => dueSetsMessage(a.email, organizationId, fresh, baseUrl)), transaction, db);
     });
     return true;

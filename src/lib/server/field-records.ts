@@ -7,15 +7,14 @@ import { addEntry, approvingReviewer, closeRecord, getRecord, type Judge, type R
 import { allSets } from '@db/repositories/equipment';
 import { inventorySetStatus, judgeAppend, judgeCloseOut, nextStep, recordPlanFrom, replay, type FieldEntry, type InventorySet, type Refusal, type SetStatusLookup } from '@/lib/domain/field-record';
 import type { Person } from '@/lib/domain/people';
+import { can } from '@/lib/domain/permissions';
 import type { EntryInput } from '@/lib/schemas/field-record';
 import { today } from './equipment-http';
 import { AppError } from './errors';
-import { roleMessage } from './guards';
+import { roleRefusal } from './guards';
 import { queueMail } from './mail';
 import { closedMessages, deviationMessage } from './record-mail';
 import { publicUrl } from './settings';
-
-export const RECORD_WRITERS = ['crew_lead', 'admin'] as const;
 
 /** The organisation's sets as the record needs them, with the day they are judged on. */
 export interface InventoryCopy {
@@ -42,13 +41,11 @@ function refusalError(refusal: Refusal): AppError {
   return new AppError(refusal.code, { message: refusal.message, extra: refusal.items ? { items: refusal.items } : undefined });
 }
 
-/** Reads a record the person may see: other organisations 404; apprentices only closed records. */
+/** Reads a record the person may see: other organisations 404; open records only for `records.view-open`. */
 export async function readableRecord(person: Person, id: number): Promise<RecordDetail> {
   const record = await getRecord(getDb(), person.organizationId, id);
   if (!record) throw new AppError('NOT_FOUND');
-  if (person.role === 'apprentice' && record.status !== 'closed') {
-    throw new AppError('ROLE_REQUIRED', { message: `An open field record is for the crew. ${roleMessage(['crew_lead', 'admin', 'reviewer'])}`, extra: { requiredRoles: ['crew_lead', 'admin', 'reviewer'] } });
-  }
+  if (record.status !== 'closed' && !can(person.role, 'records.view-open')) throw roleRefusal('records.view-open', 'An open field record is for the crew. ');
   return record;
 }
 

@@ -1,18 +1,23 @@
 /** Small helpers for .astro pages: role checks that answer with a page, the outage page. */
 import type { AstroGlobal } from 'astro';
+import { can, rolesFor, type Action } from '@/lib/domain/permissions';
 import type { Role } from '@/lib/domain/roles';
 import { roleMessage } from './guards';
 import { currentRequestId } from './log';
 import { escapeHtml } from './html';
 
 /**
- * For a page only some roles may open: null when allowed, else the 403 page naming the roles, in
- * the app's shell for a signed-in person (src/pages/not-for-your-role.astro).
+ * For a page only some roles may open: null when the person's role allows `action`, else the 403
+ * page naming the roles that do, in the app's shell for a signed-in person
+ * (src/pages/not-for-your-role.astro).
  */
-export async function pageRoleRefusal(Astro: AstroGlobal, ...roles: Role[]): Promise<Response | null> {
+export async function pageRefusal(Astro: AstroGlobal, action: Action): Promise<Response | null> {
   const person = Astro.locals.person;
-  if (person && roles.includes(person.role)) return null;
-  if (!person) return plainPage(403, 'Not for your role', roleMessage(roles));
+  return person && can(person.role, action) ? null : refusalPage(Astro, rolesFor(action));
+}
+
+function refusalPage(Astro: AstroGlobal, roles: readonly Role[]): Response | Promise<Response> {
+  if (!Astro.locals.person) return plainPage(403, 'Not for your role', roleMessage(roles));
   return Astro.rewrite(`/not-for-your-role?need=${roles.join(',')}`);
 }
 

@@ -7,17 +7,17 @@ import * as repo from '@db/repositories/practice';
 import type { ExerciseRecord, ProgressCell } from '@db/repositories/practice';
 import { checkPlan } from '@/lib/domain/checker';
 import type { Person } from '@/lib/domain/people';
+import { can } from '@/lib/domain/permissions';
+import { assertCan } from '@/lib/server/guards';
 import { gradeFind, gradeFix, gradeNumbers, prepareExercise, proposeRemovals } from '@/lib/domain/practice';
-import type { Role } from '@/lib/domain/roles';
 import type { CreateExerciseBody } from '@/lib/schemas/practice';
 import { findAnswer, fixAnswer, numbersAnswer } from '@/lib/schemas/practice';
 import { z } from 'zod';
 import { AppError } from './errors';
 import { parseWith } from './http';
 
-/** Roles that make exercises and see answers and everyone's progress. */
-export const PRACTICE_STAFF: Role[] = ['reviewer', 'admin'];
-export const isStaff = (person: Person) => PRACTICE_STAFF.includes(person.role);
+/** Whoever makes exercises sees answers, unpublished exercises and everyone's progress. */
+export const isStaff = (person: Person) => can(person.role, 'practice.manage');
 
 async function approvedOr404(person: Person, planId: number, revision?: number) {
   const db = getDb();
@@ -57,6 +57,7 @@ export async function propose(person: Person, planId: number, revision?: number)
 
 /** Publishes an exercise to learners or withdraws it; another organisation's is NOT_FOUND. */
 export async function publishExercise(person: Person, id: number, published: boolean): Promise<ExerciseRecord> {
+  assertCan(person, 'practice.manage');
   if (!(await repo.setPublished(getDb(), person.organizationId, id, published))) throw new AppError('NOT_FOUND');
   return visibleExercise(person, id);
 }

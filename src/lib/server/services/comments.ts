@@ -8,7 +8,7 @@ import type { Person } from '@/lib/domain/people';
 import type { z } from 'zod';
 import type { commentBody } from '@/lib/schemas/api';
 import { AppError } from '@/lib/server/errors';
-import { assertRole } from '@/lib/server/guards';
+import { assertCan } from '@/lib/server/guards';
 import { requirePlan } from './review';
 
 async function storedComment(person: Person, planId: number, commentId: number): Promise<CommentView> {
@@ -19,7 +19,7 @@ async function storedComment(person: Person, planId: number, commentId: number):
 
 /** Adds a comment on the current revision, pinned to one of its nodes or links when `elementId` is given. */
 export async function commentOnPlan(person: Person, planId: number, input: z.infer<typeof commentBody>): Promise<CommentView> {
-  assertRole(person, 'reviewer', 'admin', 'crew_lead');
+  assertCan(person, 'plan.comment');
   const plan = await requirePlan(person, planId);
   const elementId = input.elementId ?? null;
   const known = new Set([...plan.document.nodes.map((n) => n.id), ...plan.document.links.map((l) => l.id)]);
@@ -33,7 +33,7 @@ export async function commentOnPlan(person: Person, planId: number, input: z.inf
 
 /** Resolves a comment (the crew lead fixed it) or opens it again. */
 export async function resolveComment(person: Person, planId: number, commentId: number, resolved: boolean): Promise<CommentView> {
-  assertRole(person, 'crew_lead', 'admin', 'reviewer');
+  assertCan(person, 'comment.resolve');
   if (!(await setCommentResolved(getDb(), person.organizationId, planId, commentId, person.id, resolved))) throw new AppError('NOT_FOUND');
   return storedComment(person, planId, commentId);
 }

@@ -12,7 +12,7 @@ import type { CreateSetBody, PatchSetBody, SetTestBody, SettingsBody } from '@/l
 import { parseInventoryCsv } from '@/lib/schemas/equipment-csv';
 import { today, unwrap } from '@/lib/server/equipment-http';
 import { AppError } from '@/lib/server/errors';
-import { assertRole } from '@/lib/server/guards';
+import { assertCan } from '@/lib/server/guards';
 
 /** A date a person says something happened on cannot be after today (UTC). */
 function notInFuture(path: string, day: string | null | undefined): void {
@@ -21,7 +21,7 @@ function notInFuture(path: string, day: string | null | undefined): void {
 
 /** Adds a set; a tag the organisation already uses is SET_TAG_TAKEN naming it. */
 export async function addSet(person: Person, input: CreateSetBody): Promise<SetJson> {
-  assertRole(person, 'admin');
+  assertCan(person, 'sets.manage');
   notInFuture('lastTestedOn', input.lastTestedOn);
   const { created } = unwrap(await saveSets(getDb(), person.organizationId, person.id, [input], 'create'));
   return created[0];
@@ -32,7 +32,7 @@ export async function addSet(person: Person, input: CreateSetBody): Promise<SetJ
  * added. Any bad row is VALIDATION with every problem as `line N.column`, and nothing is saved.
  */
 export async function importSets(person: Person, csv: string): Promise<{ created: SetJson[]; updated: SetJson[] }> {
-  assertRole(person, 'admin');
+  assertCan(person, 'sets.manage');
   const invalid = (issues: { path: string; message: string }[]) =>
     new AppError('VALIDATION', { message: 'Some rows are not valid; nothing was imported. Fix the cells listed and import the whole file again.', issues });
   const parsed = parseInventoryCsv(csv);
@@ -47,20 +47,20 @@ export async function importSets(person: Person, csv: string): Promise<{ created
 
 /** Records an in-service test; a pass can put the set back in service. */
 export async function recordSetTest(person: Person, setId: number, input: SetTestBody) {
-  assertRole(person, 'admin', 'crew_lead');
+  assertCan(person, 'sets.test');
   notInFuture('testedOn', input.testedOn);
   return unwrap(await recordTest(getDb(), person.organizationId, setId, person.id, input));
 }
 
 /** Edits a set, changes its status (a reason is required out of service) or records a fault. */
 export async function changeSet(person: Person, setId: number, input: PatchSetBody): Promise<SetJson> {
-  assertRole(person, 'admin');
+  assertCan(person, 'sets.manage');
   notInFuture('faultOn', input.faultOn);
   return unwrap(await updateSet(getDb(), person.organizationId, setId, person.id, input));
 }
 
 /** The organisation's test interval and resistance limits (its own choices; none ship as facts). */
 export async function saveTestSettings(person: Person, input: SettingsBody) {
-  assertRole(person, 'admin');
+  assertCan(person, 'settings.edit');
   return saveSettings(getDb(), person.organizationId, person.id, input);
 }

@@ -5,10 +5,11 @@ import { recordEvent } from '@db/repositories/audit';
 import { countActiveAdmins, createPerson, emailOrganization, findPerson, lockOrganization, updatePerson } from '@db/repositories/people';
 import { createPasswordToken } from '@db/repositories/sign-in';
 import { normaliseEmail, type Person } from '@/lib/domain/people';
+import { can } from '@/lib/domain/permissions';
 import type { Role } from '@/lib/domain/roles';
 import { endAllSessions } from '@/lib/server/auth';
 import { AppError } from '@/lib/server/errors';
-import { assertRole, roleMessage } from '@/lib/server/guards';
+import { assertCan, roleRefusal } from '@/lib/server/guards';
 import { queueMail } from '@/lib/server/mail';
 import { addressInUseMessage, invitationMessage } from '@/lib/server/mail-messages';
 import { publicUrl } from '@/lib/server/settings';
@@ -34,7 +35,7 @@ const emailTaken = () => new AppError('EMAIL_TAKEN', { issues: [{ path: 'email',
  * belongs to another organisation. An address of the admin's own organisation is 409.
  */
 export async function invitePerson(admin: Person, input: { email: string; name: string; role: Role }, requestUrl?: URL): Promise<InvitationSent> {
-  assertRole(admin, 'admin');
+  assertCan(admin, 'people.manage');
   const db = getDb();
   const email = normaliseEmail(input.email);
   const sent: InvitationSent = { email, name: input.name, role: input.role, expiresInDays: INVITE_DAYS, message: `An invitation was sent to ${email}. The link in it works once and for ${INVITE_DAYS} days.` };
@@ -67,18 +68,18 @@ export async function invitePerson(admin: Person, input: { email: string; name: 
  * The organisation row is locked for the check and the change, so parallel changes go in turn.
  */
 export async function changePerson(admin: Person, id: string, changes: { role?: Role; disabled?: boolean }): Promise<Person> {
-  assertRole(admin, 'admin');
+  assertCan(admin, 'people.manage');
   const db = getDb();
   const person = await db.sequelize.transaction(async (transaction) => {
     await lockOrganization(db, admin.organizationId, transaction);
     // The caller may have lost the admin role to a change that was waiting ahead of this one.
     const actor = await findPerson(db, admin.organizationId, admin.id, transaction);
-    if (!actor || actor.role !== 'admin' || actor.disabled) throw new AppError('ROLE_REQUIRED', { message: roleMessage(['admin']), extra: { requiredRoles: ['admin'] } });
+    if (!actor || !can(actor.role, 'people.manage') || actor.disabled) throw roleRefusal('people.manage');
     const target = await findPerson(db, admin.organizationId, id, transaction);
     if (!target) throw new AppError('NOT_FOUND');
-    const losesAdmin = (changes.role !== undefined && changes.role !== 'admin') || changes.disabled === true;
+    const losesAdmin = (changes.role !== undefined && !can(changes.role, 'people.manage')) || changes.disabled === true;
     if (target.id === admin.id && losesAdmin) throw new AppError('SELF_CHANGE');
-    if (target.role === 'admin' && losesAdmin && (await countActiveAdmins(db, admin.organizationId, target.id, transaction)) === 0) {
+    if (can(target.role, 'people.manage') && losesAdmin && (await countActiveAdmins(db, admin.organizationId, target.id, transaction)) === 0) {
       throw new AppError('SELF_CHANGE', { message: 'The organisation would be left without an active admin. Make someone else admin first.' });
     }
     const updated = (await updatePerson(db, admin.organizationId, id, changes, transaction))!;

@@ -11,13 +11,13 @@ import { judgeSave } from '@/lib/domain/review-guards';
 import type { createPlanBody, savePlanBody } from '@/lib/schemas/api';
 import { checkForOrganization } from '@/lib/server/checking';
 import { AppError } from '@/lib/server/errors';
-import { assertRole, hasRole } from '@/lib/server/guards';
+import { allows, assertCan } from '@/lib/server/guards';
 import { planJson } from '@/lib/server/plan-json';
 import { requirePlan } from './review';
 
 /** A new draft from `{title, structure?, document}`; the first revision carries its check. */
 export async function startPlan(person: Person, input: z.infer<typeof createPlanBody>): Promise<PlanDetail> {
-  assertRole(person, 'crew_lead', 'admin');
+  assertCan(person, 'plan.create');
   const db = getDb();
   const document = { ...input.document, title: input.title };
   return createPlan(db, {
@@ -42,7 +42,7 @@ function refuse(kind: 'stale' | 'not-editable', current: PlanDetail, yourRevisio
  * saved since, STALE_REVISION carries the current revision, and nothing is overwritten.
  */
 export async function savePlan(person: Person, planId: number, input: z.infer<typeof savePlanBody>): Promise<PlanDetail> {
-  assertRole(person, 'crew_lead', 'admin');
+  assertCan(person, 'plan.edit');
   const db = getDb();
   const document = input.title ? { ...input.document, title: input.title } : input.document;
   // Refuse a stale or locked save before spending a check on it; saveDraft judges again under
@@ -62,10 +62,11 @@ export async function savePlan(person: Person, planId: number, input: z.infer<ty
  * report is stored with that revision when it may take one; for anyone else it is only returned.
  */
 export async function recheckPlan(person: Person, planId: number): Promise<{ revision: number; stored: boolean; report: CheckReport }> {
+  assertCan(person, 'plan.check');
   const db = getDb();
   const plan = await getPlan(db, person.organizationId, planId);
   if (!plan) throw new AppError('NOT_FOUND');
   const report = await checkForOrganization(db, person.organizationId, plan.document);
-  const stored = hasRole(person, 'crew_lead', 'admin') && (await storeReport(db, person.organizationId, planId, plan.currentRevision, report));
+  const stored = allows(person, 'plan.edit') && (await storeReport(db, person.organizationId, planId, plan.currentRevision, report));
   return { revision: plan.currentRevision, stored, report };
 }

@@ -9,12 +9,11 @@ import type { Person } from '@/lib/domain/people';
 import type { createRecordBody } from '@/lib/schemas/field-record';
 import { today } from '@/lib/server/equipment-http';
 import { AppError } from '@/lib/server/errors';
-import { RECORD_WRITERS } from '@/lib/server/field-records';
-import { assertRole } from '@/lib/server/guards';
+import { assertCan } from '@/lib/server/guards';
 
 /** Opens a record on the plan's approved revision, for the work date given or today (UTC). */
 export async function openRecord(person: Person, planId: number, input: z.infer<typeof createRecordBody>, now = new Date()) {
-  assertRole(person, ...RECORD_WRITERS);
+  assertCan(person, 'records.write');
   const outcome = await createRecord(getDb(), person.organizationId, {
     planId,
     leadId: person.id,

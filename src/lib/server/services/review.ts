@@ -8,12 +8,13 @@ import { getDb } from '@db/connection';
 import { getPlan, type PlanDetail } from '@db/repositories/plans';
 import { decidePlan, reopenApproved, submitPlan } from '@db/repositories/review';
 import { withdrawPlan } from '@db/repositories/withdraw';
+import { can, rolesFor } from '@/lib/domain/permissions';
 import { decisionRecord, type DecisionRequest } from '@/lib/domain/review-guards';
 import type { Person } from '@/lib/domain/people';
 import { checkForOrganization } from '@/lib/server/checking';
 import { AppError } from '@/lib/server/errors';
 import { fingerprint } from '@/lib/server/fingerprint';
-import { assertRole } from '@/lib/server/guards';
+import { assertCan } from '@/lib/server/guards';
 import { queueMail } from '@/lib/server/mail';
 import { decidedMessage, submittedMessage } from '@/lib/server/mail-messages';
 import { publicUrl } from '@/lib/server/settings';
@@ -26,7 +27,7 @@ export async function requirePlan(person: Person, planId: number): Promise<PlanD
 
 /** Submits the plan for review; refused while the server's own check finds any blocker. */
 export async function submitForReview(person: Person, planId: number, requestUrl?: URL): Promise<PlanDetail> {
-  assertRole(person, 'crew_lead', 'admin');
+  assertCan(person, 'plan.submit');
   const db = getDb();
   const plan = await requirePlan(person, planId);
   const report = await checkForOrganization(db, person.organizationId, plan.document, 'submit');
@@ -34,7 +35,7 @@ export async function submitForReview(person: Person, planId: number, requestUrl
   const outcome = await submitPlan(db, person.organizationId, planId, person.id, report, {
     checkedRevision: plan.currentRevision,
     then: async (transaction, revision) => {
-      const reviewers = await db.models.User.findAll({ where: { organizationId: person.organizationId, role: 'reviewer', disabled: false }, attributes: ['email', 'id'], transaction });
+      const reviewers = await db.models.User.findAll({ where: { organizationId: person.organizationId, role: [...rolesFor('notify.plan-submitted')], disabled: false }, attributes: ['email', 'id'], transaction });
       const ref = { id: plan.id, title: plan.title, revision, organizationId: person.organizationId };
       await queueMail(reviewers.filter((r) => r.id !== person.id).map((r) => submittedMessage(r.email, ref, person.name, publicUrl(requestUrl))), transaction);
     },
@@ -51,7 +52,7 @@ export async function submitForReview(person: Person, planId: number, requestUrl
 
 /** Records a reviewer's decision; the approval carries the hashes of the document and report. */
 export async function decide(person: Person, planId: number, input: DecisionRequest, requestUrl?: URL): Promise<PlanDetail> {
-  assertRole(person, 'reviewer', 'admin');
+  assertCan(person, 'plan.review');
   const db = getDb();
   const plan = await requirePlan(person, planId);
   const record = decisionRecord(input, plan.currentRevision, () => ({ documentHash: fingerprint(plan.document), reportHash: fingerprint(plan.report) }));
@@ -84,7 +85,7 @@ export async function decide(person: Person, planId: number, input: DecisionRequ
 
 /** Starts a new draft revision from an approved plan; the approved revision stays as it was. */
 export async function reopen(person: Person, planId: number): Promise<PlanDetail> {
-  assertRole(person, 'crew_lead', 'admin');
+  assertCan(person, 'plan.reopen');
   const outcome = await reopenApproved(getDb(), person.organizationId, planId, person.id);
   if (outcome.kind === 'not-found') throw new AppError('NOT_FOUND');
   if (outcome.kind === 'not-approved') throw new AppError('NOT_APPROVED', { extra: { status: outcome.status } });
@@ -93,8 +94,8 @@ export async function reopen(person: Person, planId: number): Promise<PlanDetail
 
 /** Takes a submitted plan back to a draft at the same revision, before a reviewer decides it. */
 export async function withdraw(person: Person, planId: number): Promise<PlanDetail> {
-  assertRole(person, 'crew_lead', 'admin');
-  const outcome = await withdrawPlan(getDb(), person.organizationId, planId, { id: person.id, isAdmin: person.role === 'admin' });
+  assertCan(person, 'plan.withdraw');
+  const outcome = await withdrawPlan(getDb(), person.organizationId, planId, { id: person.id, isAdmin: can(person.role, 'plan.withdraw-any') });
   if (outcome.kind === 'not-found') throw new AppError('NOT_FOUND');
   if (outcome.kind === 'not-author') throw new AppError('NOT_AUTHOR');
   if (outcome.kind === 'not-submitted') throw new AppError('NOT_WITHDRAWABLE', { extra: { status: outcome.status } });

@@ -1,5 +1,5 @@
 import { AppError } from '@/lib/server/errors';
-import { requireUser } from '@/lib/server/guards';
+import { requireCan } from '@/lib/server/guards';
 import { endpoint, json, readLimited } from '@/lib/server/http';
 import { importSets } from '@/lib/server/services/equipment';
 
@@ -10,7 +10,7 @@ const LIMIT = 2 * 1024 * 1024;
  * are added. Any bad row answers 400 with every problem as `line N.column`, and nothing is saved.
  */
 export const POST = endpoint(async (ctx) => {
-  const person = requireUser(ctx);
+  const person = requireCan(ctx, 'sets.manage');
   const type = ctx.request.headers.get('content-type') ?? '';
   if (!/^text\/(csv|plain)\b/i.test(type)) throw new AppError('UNSUPPORTED_MEDIA', { message: 'Send the inventory as CSV (Content-Type: text/csv).' });
   if (Number(ctx.request.headers.get('content-length') ?? 0) > LIMIT) throw new AppError('BODY_TOO_LARGE', { extra: { limitBytes: LIMIT } });

@@ -1,7 +1,7 @@
 import { getDb } from '@db/connection';
 import { getOrganisationSettings } from '@db/repositories/organisation-settings';
 import { organisationSettingsBody } from '@/lib/schemas/organisation';
-import { requireUser } from '@/lib/server/guards';
+import { requireCan, requireUser } from '@/lib/server/guards';
 import { endpoint, json, readJson } from '@/lib/server/http';
 import { changeOrganisationSettings } from '@/lib/server/services/organisation';
 
@@ -12,7 +12,7 @@ export const GET = endpoint(async (ctx) => {
 });
 
 export const PUT = endpoint(async (ctx) => {
-  const person = requireUser(ctx);
+  const person = requireCan(ctx, 'settings.edit');
   const body = await readJson(ctx, organisationSettingsBody);
   return json({ settings: await changeOrganisationSettings(person, body) });
 });

@@ -3,13 +3,13 @@ import { getSet } from '@db/repositories/equipment';
 import { idParam } from '@/lib/schemas/api';
 import { patchSetBody } from '@/lib/schemas/equipment';
 import { AppError } from '@/lib/server/errors';
-import { requireUser } from '@/lib/server/guards';
+import { requireCan } from '@/lib/server/guards';
 import { endpoint, json, parseWith, readJson } from '@/lib/server/http';
 import { changeSet } from '@/lib/server/services/equipment';
 
 /** One set with its tests and events. */
 export const GET = endpoint(async (ctx) => {
-  const person = requireUser(ctx);
+  const person = requireCan(ctx, 'sets.view');
   const found = await getSet(getDb(), person.organizationId, parseWith(idParam, ctx.params.id));
   if (!found) throw new AppError('NOT_FOUND');
   return json(found);
@@ -17,7 +17,7 @@ export const GET = endpoint(async (ctx) => {
 
 /** Edits a set, changes its status (a reason is required out of service) or records a fault (admin). */
 export const PATCH = endpoint(async (ctx) => {
-  const person = requireUser(ctx);
+  const person = requireCan(ctx, 'sets.manage');
   const id = parseWith(idParam, ctx.params.id);
   const body = await readJson(ctx, patchSetBody);
   return json({ set: await changeSet(person, id, body) });

@@ -1,4 +1,4 @@
-import { requireUser } from '@/lib/server/guards';
+import { requireCan } from '@/lib/server/guards';
 import { endpoint, json, pathId } from '@/lib/server/http';
 import { recheckPlan } from '@/lib/server/services/plans';
 
@@ -8,6 +8,6 @@ import { recheckPlan } from '@/lib/server/services/plans';
  * report is computed and returned with `stored: false`.
  */
 export const POST = endpoint(async (ctx) => {
-  const person = requireUser(ctx);
+  const person = requireCan(ctx, 'plan.check');
   return json(await recheckPlan(person, pathId(ctx, 'id')));
 });

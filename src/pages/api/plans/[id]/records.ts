@@ -1,12 +1,12 @@
 import { createRecordBody } from '@/lib/schemas/field-record';
 import { idParam } from '@/lib/schemas/api';
-import { requireUser } from '@/lib/server/guards';
+import { requireCan } from '@/lib/server/guards';
 import { endpoint, json, parseWith, readJson } from '@/lib/server/http';
 import { openRecord } from '@/lib/server/services/records';
 
 /** Opens a field record on the plan's approved revision: 201, or 409 unless the plan is approved. */
 export const POST = endpoint(async (ctx) => {
-  const person = requireUser(ctx);
+  const person = requireCan(ctx, 'records.write');
   const planId = parseWith(idParam, ctx.params.id);
   const hasBody = Number(ctx.request.headers.get('content-length') ?? 0) > 0 || ctx.request.headers.has('transfer-encoding');
   const body = hasBody ? await readJson(ctx, createRecordBody) : {};

@@ -3,7 +3,7 @@ import { nameMap } from '@db/repositories/review';
 import { z } from 'zod';
 import { idParam } from '@/lib/schemas/api';
 import { readableRecord } from '@/lib/server/field-records';
-import { requireUser } from '@/lib/server/guards';
+import { requireCan } from '@/lib/server/guards';
 import { endpoint, parseWith, readQuery } from '@/lib/server/http';
 import { getObject } from '@/lib/server/object-store';
 import { photoKey } from '@/lib/server/photos';
@@ -13,7 +13,7 @@ const query = z.object({ paper: z.enum(['letter', 'a4'], { errorMap: () => ({ me
 
 /** The record as a PDF, Letter unless ?paper=a4. */
 export const GET = endpoint(async (ctx) => {
-  const person = requireUser(ctx);
+  const person = requireCan(ctx, 'records.view');
   const { paper } = readQuery(ctx.url, query);
   const record = await readableRecord(person, parseWith(idParam, ctx.params.id));
   const ids = record.entries.flatMap((e) => [e.entry.actorId, ...(e.entry.type === 'sign-on' ? e.entry.people : []), ...(e.entry.type === 'briefing' ? [e.entry.by] : [])]);

@@ -4,14 +4,14 @@ import { idParam } from '@/lib/schemas/api';
 import { photoSizeQuery } from '@/lib/schemas/field-record';
 import { readableRecord } from '@/lib/server/field-records';
 import { AppError } from '@/lib/server/errors';
-import { requireUser } from '@/lib/server/guards';
+import { requireCan } from '@/lib/server/guards';
 import { endpoint, parseWith, readQuery } from '@/lib/server/http';
 import { getObject, ObjectStoreUnavailable } from '@/lib/server/object-store';
 import { photoKey } from '@/lib/server/photos';
 
 /** Streams a photo through the app to the organisation's people only: ?size=thumb|display|original */
 export const GET = endpoint(async (ctx) => {
-  const person = requireUser(ctx);
+  const person = requireCan(ctx, 'records.view');
   const recordId = parseWith(idParam, ctx.params.id);
   await readableRecord(person, recordId);
   const photo = await getPhoto(getDb(), person.organizationId, recordId, parseWith(idParam, ctx.params.photoId));

@@ -1,6 +1,6 @@
 import { idParam } from '@/lib/schemas/api';
-import { RECORD_WRITERS, readableRecord } from '@/lib/server/field-records';
-import { requireRole } from '@/lib/server/guards';
+import { readableRecord } from '@/lib/server/field-records';
+import { requireCan } from '@/lib/server/guards';
 import { endpoint, json, parseWith } from '@/lib/server/http';
 import { readPhotoForm, storePhoto } from '@/lib/server/photos';
 
@@ -9,7 +9,7 @@ import { readPhotoForm, storePhoto } from '@/lib/server/photos';
  * WebP up to 15 MB. 201 when stored; 200 with the stored photo when its clientId was sent before.
  */
 export const POST = endpoint(async (ctx) => {
-  const person = requireRole(ctx, ...RECORD_WRITERS);
+  const person = requireCan(ctx, 'records.write');
   const recordId = parseWith(idParam, ctx.params.id);
   const record = await readableRecord(person, recordId);
   const form = await readPhotoForm(ctx);
