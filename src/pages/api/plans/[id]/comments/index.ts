@@ -2,6 +2,7 @@ import { getDb } from '@db/connection';
 import { getPlan } from '@db/repositories/plans';
 import { addComment, listComments } from '@db/repositories/revisions';
 import { commentBody } from '@/lib/schemas/api';
+import { replyToComment } from '@/lib/server/comment-replies';
 import { AppError } from '@/lib/server/errors';
 import { requireRole, requireUser } from '@/lib/server/guards';
 import { endpoint, json, pathId, readJson } from '@/lib/server/http';
@@ -13,12 +14,19 @@ export const GET = endpoint(async (ctx) => {
   return json({ comments });
 });
 
-/** Adds a comment on the current revision, pinned to one of its nodes or links when `elementId` is given. */
+/**
+ * Adds a comment on the current revision, pinned to one of its nodes or links when `elementId` is
+ * given, or a reply under comment `replyTo` of this plan (one level deep; its writer gets a mail).
+ */
 export const POST = endpoint(async (ctx) => {
   const person = requireRole(ctx, 'reviewer', 'admin', 'crew_lead');
   const id = pathId(ctx, 'id');
   const body = await readJson(ctx, commentBody, 64 * 1024);
   const db = getDb();
+  if (body.replyTo) {
+    const replyId = await replyToComment(person, id, { replyTo: body.replyTo, body: body.body }, ctx.url);
+    return json({ comment: (await listComments(db, person.organizationId, id))!.find((c) => c.id === replyId) }, 201);
+  }
   const plan = await getPlan(db, person.organizationId, id);
   if (!plan) throw new AppError('NOT_FOUND');
   const elementId = body.elementId ?? null;
