@@ -1,9 +1,12 @@
 /**
  * An organisation in feet reads the findings on the read-only drawing (the drawer's list and
  * Explain) in feet on the library, review and plan pages, as the server-rendered lists do: the
- * stored report says metres, the drawing must not.
+ * stored report says metres, the drawing must not. Its PDF and print sheet say feet, pounds of
+ * body weight and pounds-force per foot too.
  */
+import { readFileSync } from 'node:fs';
 import type { Page } from 'playwright-core';
+import { extractText, getDocumentProxy } from 'unpdf';
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { BASE_URL, signedIn } from '../helpers/api';
 import { useBrowser } from '../helpers/e2e';
@@ -62,4 +65,26 @@ it('words the findings on the read-only drawing in feet on the review, plan and 
   expect((await reviewer.post(`/api/plans/${planId}/review`, { decision: 'approve' })).status).toBe(200);
   await page.goto(`${BASE_URL}/library/${planId}`);
   await expectFeet(page, 'library');
+
+  const download = page.waitForEvent('download');
+  await page.getByRole('button', { name: 'Export' }).click();
+  await page.getByRole('menuitem', { name: 'PDF sheet' }).click();
+  const pdf = await getDocumentProxy(new Uint8Array(readFileSync((await (await download).path())!)));
+  const text = (await extractText(pdf, { mergePages: true })).text.replace(/\s+/g, ' ');
+  expectFeetIn(text, 'PDF');
+  // 50 kg is 110 lb (0.45359237 kg a pound, NIST SP 811); the force per length in lbf/ft.
+  expect(text).toContain('body criteria 110 lb');
+  expect(text).toMatch(/peak force \d+(\.\d)? lbf\/ft/);
+  // Sentences and figures only: a basis keeps its standard's own SI wording ("threshold 100 N/m").
+  const withoutBasis = (t: string) => t.replace(/Basis: .*?(?=\[(NOTE|WARNING|BLOCKER)\]|Workers)/g, '');
+  expect(withoutBasis(text)).not.toMatch(/ N\/m|\d kg/);
+  expect(text).not.toContain('?');
+
+  await page.emulateMedia({ media: 'print' });
+  await page.evaluate(() => window.dispatchEvent(new Event('beforeprint')));
+  const sheetLines = (await page.getByTestId('print-sheet').innerText()).split('\n');
+  const sheet = sheetLines.join(' ').replace(/\s+/g, ' ');
+  expectFeetIn(sheet, 'print sheet');
+  expect(sheet).toContain('body criteria 110 lb');
+  expect(sheetLines.filter((l) => !l.startsWith('Basis:')).join(' ')).not.toMatch(/ N\/m|\d kg/);
 });
