@@ -93,6 +93,12 @@ it('prints on A4 for an organisation that chose A4, as its PDF does', async () =
     const { page } = await browser.signIn(who, {}, PASSWORD);
     await page.goto(`${BASE_URL}${path}`);
     await page.locator('.react-flow__node').first().waitFor();
+    // The exported PDF sheet is on A4 too.
+    const download = page.waitForEvent('download');
+    await page.getByRole('button', { name: 'Export' }).click();
+    await page.getByRole('menuitem', { name: 'PDF sheet' }).click();
+    const sheet = await getDocumentProxy(new Uint8Array(readFileSync((await (await download).path())!)));
+    expect((await sheet.getPage(1)).view.map(Math.round), `${path} exported PDF`).toEqual([0, 0, 595, 842]);
     await page.emulateMedia({ media: 'print' });
     await page.evaluate(() => window.dispatchEvent(new Event('beforeprint')));
     const pdf = await getDocumentProxy(new Uint8Array(await page.pdf({ preferCSSPageSize: true })));
