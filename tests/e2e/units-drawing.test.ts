@@ -57,6 +57,21 @@ it('words the findings on the read-only drawing in feet on the review, plan and 
   const { page } = await browser.signIn(team.reviewer.email, {}, PASSWORD);
   await page.goto(`${BASE_URL}/plans/${planId}/review`);
   await expectFeet(page, 'review');
+
+  // "Show" on a finding brings its element back into view and flashes it, after the drawing was panned away.
+  const flow = (await page.locator('.react-flow').first().boundingBox())!;
+  const inView = async () => {
+    const r = await page.locator('.react-flow__node[data-id="R9"]').boundingBox();
+    return !!r && r.x >= flow.x && r.x + r.width <= flow.x + flow.width && r.y >= flow.y && r.y + r.height <= flow.y + flow.height;
+  };
+  await page.mouse.move(flow.x + 20, flow.y + 20);
+  await page.mouse.down();
+  await page.mouse.move(flow.x - 1500, flow.y - 1500, { steps: 8 });
+  await page.mouse.up();
+  expect(await inView()).toBe(false);
+  await page.getByRole('button', { name: 'Show R9', exact: true }).click();
+  await expect.poll(inView).toBe(true);
+  expect(await page.locator('.react-flow__node[data-id="R9"] .bm-node').getAttribute('class')).toMatch(/\bbm-flash\b/);
   await page.goto(`${BASE_URL}/plans/${planId}`);
   await page.locator('.react-flow__node').first().waitFor();
   expectFeetIn(await page.locator('[data-testid="findings"] [data-rule="rod-barricade"]').innerText(), 'plan: the drawer\'s finding');
