@@ -87,7 +87,10 @@ it('prints on A4 for an organisation that chose A4, as its PDF does', async () =
   const admin = await signedIn(team.admin.email, PASSWORD);
   expect((await admin.put('/api/organisation/settings', { timeZone: 'UTC', paperSize: 'a4', units: 'metric' })).status).toBe(200);
   const lead = await signedIn(team.lead.email, PASSWORD);
-  const id = (await lead.post('/api/plans', { title: 'A4 print pole', structure: 'Invented pole 4', document: planDocument() })).body.plan.id;
+  const base = planDocument();
+  // Jumper jA names its grounding set: the sheet carries the number beside the jumper.
+  const document = { ...base, links: base.links.map((l) => (l.id === 'jA' ? { ...l, equipmentId: 'QX-417' } : l)) };
+  const id = (await lead.post('/api/plans', { title: 'A4 print pole', structure: 'Invented pole 4', document })).body.plan.id;
   // On each page the plan can be printed from: the plan itself, and (reviewer) its review.
   for (const [who, path] of [[team.lead.email, `/plans/${id}`], [team.reviewer.email, `/plans/${id}/review`]] as const) {
     const { page } = await browser.signIn(who, {}, PASSWORD);
@@ -99,6 +102,9 @@ it('prints on A4 for an organisation that chose A4, as its PDF does', async () =
     await page.getByRole('menuitem', { name: 'PDF sheet' }).click();
     const sheet = await getDocumentProxy(new Uint8Array(readFileSync((await (await download).path())!)));
     expect((await sheet.getPage(1)).view.map(Math.round), `${path} exported PDF`).toEqual([0, 0, 595, 842]);
+    const sheetText = (await extractText(sheet, { mergePages: true })).text.replace(/\s+/g, ' ');
+    expect(sheetText).toMatch(/jA \([^)]*\) · set no\. QX-417/);
+    expect(sheetText).toMatch(/jB \([^)]*\) · set no\. _+/);
     await page.emulateMedia({ media: 'print' });
     await page.evaluate(() => window.dispatchEvent(new Event('beforeprint')));
     const pdf = await getDocumentProxy(new Uint8Array(await page.pdf({ preferCSSPageSize: true })));
