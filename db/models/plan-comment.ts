@@ -1,6 +1,9 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 
-/** A review comment, optionally pinned to one node or link of the revision it was made on. */
+/**
+ * A review comment, optionally pinned to one node or link of the revision it was made on, or a
+ * reply to another comment of the same plan (`replyTo`, one level deep).
+ */
 export class PlanComment extends Model<InferAttributes<PlanComment>, InferCreationAttributes<PlanComment>> {
   declare id: CreationOptional<number>;
   declare planId: number;
@@ -10,6 +13,7 @@ export class PlanComment extends Model<InferAttributes<PlanComment>, InferCreati
   declare body: string;
   declare resolvedAt: Date | null;
   declare resolvedBy: string | null;
+  declare replyTo: CreationOptional<number | null>;
   declare createdAt: CreationOptional<Date>;
 }
 
@@ -24,6 +28,7 @@ export function initPlanComment(sequelize: Sequelize): typeof PlanComment {
       body: { type: DataTypes.TEXT, allowNull: false },
       resolvedAt: { type: DataTypes.DATE(3), allowNull: true },
       resolvedBy: { type: DataTypes.STRING(32), allowNull: true },
+      replyTo: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true, defaultValue: null },
       createdAt: DataTypes.DATE(3),
     },
     { sequelize, tableName: 'plan_comments', updatedAt: false },

@@ -82,6 +82,8 @@ export interface CommentView {
   createdAt: Date;
   resolvedAt: Date | null;
   resolvedByName: string | null;
+  /** The comment this one answers; null when it starts a thread. */
+  replyTo: number | null;
 }
 
 export async function listComments(db: Db, organizationId: number, planId: number): Promise<CommentView[] | null> {
@@ -98,6 +100,7 @@ export async function listComments(db: Db, organizationId: number, planId: numbe
     createdAt: r.createdAt,
     resolvedAt: r.resolvedAt,
     resolvedByName: r.resolvedBy ? names.get(r.resolvedBy) ?? null : null,
+    replyTo: r.replyTo ?? null,
   }));
 }
 
@@ -113,13 +116,13 @@ export async function addComment(db: Db, organizationId: number, planId: number,
 
 /**
  * Marks a comment resolved (or open again); false when it is not a comment of this plan of this
- * organisation. The plan is checked against the organisation in the same transaction as the write.
+ * organisation, or is a reply (a thread is resolved by its first comment). The plan is checked against the organisation in the same transaction as the write.
  */
 export async function setCommentResolved(db: Db, organizationId: number, planId: number, commentId: number, actorId: string, resolved: boolean): Promise<boolean> {
   return db.sequelize.transaction(async (transaction) => {
     if (!(await db.models.Plan.findOne({ where: { id: planId, organizationId }, attributes: ['id'], transaction }))) return false;
     // Found first, then changed: an update that changes nothing reports no rows in MariaDB.
-    const comment = await db.models.PlanComment.findOne({ where: { id: commentId, planId }, transaction });
+    const comment = await db.models.PlanComment.findOne({ where: { id: commentId, planId, replyTo: null }, transaction });
     if (!comment) return false;
     await comment.update(resolved ? { resolvedAt: new Date(), resolvedBy: actorId } : { resolvedAt: null, resolvedBy: null }, { transaction });
     await recordEvent(db, { organizationId, actorId, action: resolved ? 'comment.resolved' : 'comment.reopened', subjectType: 'plan', subjectId: planId, details: { commentId } }, transaction);
@@ -131,7 +134,7 @@ export async function setCommentResolved(db: Db, organizationId: number, planId:
 export async function openCommentCounts(db: Db, planIds: number[]): Promise<Map<number, number>> {
   if (!planIds.length) return new Map();
   const rows = (await db.models.PlanComment.findAll({
-    where: { planId: { [Op.in]: planIds }, resolvedAt: null },
+    where: { planId: { [Op.in]: planIds }, resolvedAt: null, replyTo: null },
     attributes: ['planId', [db.sequelize.fn('COUNT', db.sequelize.col('id')), 'n']],
     group: ['planId'],
     raw: true,

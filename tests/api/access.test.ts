@@ -98,6 +98,7 @@ const routes: Route[] = [
   { name: 'GET /api/plans/:id/revisions/:n', call: (c) => c.get(`/api/plans/${planId}/revisions/1`), expect: { anonymous: 401, admin: 200, reviewer: 200, crew_lead: 200, apprentice: 200, other: 404 } },
   { name: 'GET /api/plans/:id/comments', call: (c) => c.get(`/api/plans/${planId}/comments`), expect: { anonymous: 401, admin: 200, reviewer: 200, crew_lead: 200, apprentice: 200, other: 404 } },
   { name: 'POST /api/plans/:id/comments', call: (c) => c.post(`/api/plans/${planId}/comments`, { elementId: 'A', body: 'Check this clamp.' }), expect: { anonymous: 401, admin: 201, reviewer: 201, crew_lead: 201, apprentice: 403, other: 404 } },
+  { name: 'POST /api/plans/:id/comments (a reply)', call: (c) => c.post(`/api/plans/${planId}/comments`, { replyTo: commentId, body: 'Rated for 43 kA.' }), expect: { anonymous: 401, admin: 201, reviewer: 201, crew_lead: 201, apprentice: 403, other: 404 } },
   { name: 'PATCH /api/plans/:id/comments/:cid', call: (c) => c.patch(`/api/plans/${planId}/comments/${commentId}`, { resolved: true }), expect: { anonymous: 401, admin: 200, reviewer: 200, crew_lead: 200, apprentice: 403, other: 404 } },
   { name: 'GET /api/plans/:id/history', call: (c) => c.get(`/api/plans/${planId}/history`), expect: { anonymous: 401, admin: 200, reviewer: 200, crew_lead: 200, apprentice: 200, other: 404 } },
   { name: 'GET /api/plans/:id/diff', call: (c) => c.get(`/api/plans/${planId}/diff?from=1&to=2`), expect: { anonymous: 401, admin: 200, reviewer: 200, crew_lead: 200, apprentice: 200, other: 404 } },
@@ -146,6 +147,16 @@ const formRoutes: FormRoute[] = [
     name: 'POST /plans/:id/workflow unresolve',
     call: (c) => workflow(() => form.draftId, { action: 'unresolve', commentId: String(form.commentId) })(c),
     expect: { anonymous: '303 sign-in', admin: '303 notice=reopened-comment', reviewer: '303 notice=reopened-comment', crew_lead: '303 notice=reopened-comment', apprentice: '303 problem=ROLE_REQUIRED', other: '303 problem=NOT_FOUND' },
+  },
+  {
+    name: 'POST /plans/:id/workflow reply',
+    call: (c) => workflow(() => form.draftId, { action: 'reply', replyTo: String(form.commentId), body: 'A form reply.' })(c),
+    expect: { anonymous: '303 sign-in', admin: '303 notice=replied', reviewer: '303 notice=replied', crew_lead: '303 notice=replied', apprentice: '303 problem=ROLE_REQUIRED', other: '303 problem=NOT_FOUND' },
+  },
+  {
+    name: 'POST /plans/:id/review reply',
+    call: (c) => c.form(`/plans/${form.draftId}/review`, { action: 'reply', replyTo: String(form.commentId), body: 'A review-page reply.' }),
+    expect: { anonymous: '303 sign-in', admin: '200', reviewer: '200', crew_lead: '403', apprentice: '403', other: '403' },
   },
   {
     name: 'POST /plans/:id/workflow submit',

@@ -77,8 +77,24 @@ describe('organisation settings', () => {
     expect((await lead.post(`/api/plans/${plan.id}/submit`)).status).toBe(200);
     const page = await reviewer.get(`/plans/${plan.id}/review`);
     const section = page.body.slice(page.body.indexOf('data-testid="review-findings"'));
-    const barricade = /<code class="text-sm">rod-barricade<\/code>\s*<p>([^<]*)<\/p>/.exec(section);
+    const barricade = /<code [^>]*data-rule-id="rod-barricade"[^>]*>rod-barricade<\/code>\s*<p>([^<]*)<\/p>/.exec(section);
     expect(barricade?.[1]).toMatch(/\d+ ft \d+ in/);
     expect(barricade?.[1]).not.toMatch(/\d m\b/);
+    // The plan page's own list (for readers without scripts) says the same, its rule id a label beside it.
+    const planPage = (await reviewer.get(`/plans/${plan.id}`)).body;
+    const summary = /<code [^>]*data-rule-id="rod-barricade"[^>]*>rod-barricade<\/code>\s*<p>([^<]*)<\/p>/.exec(planPage.slice(planPage.indexOf('data-testid="plan-summary"')));
+    expect(summary?.[1]).toBe(barricade?.[1]);
+  });
+
+  it('lists a refused submit\'s blockers on the plan page with their rule ids as labels', async () => {
+    const base = planDocument();
+    const plan = (await lead.post('/api/plans', { title: 'Blocked pole', document: { ...base, links: base.links.filter((l) => l.id !== 'jC') } })).body.plan;
+    const sent = await lead.form(`/plans/${plan.id}/workflow`, { action: 'submit' });
+    expect(sent.headers.get('location')).toBe(`/plans/${plan.id}?problem=SUBMIT_BLOCKED`);
+    const page = (await lead.get(sent.headers.get('location')!)).body;
+    const list = page.slice(page.indexOf('<ul class="list-disc pl-5 text-blocker">'), page.indexOf('</ul>', page.indexOf('<ul class="list-disc pl-5 text-blocker">')));
+    const items = [...list.matchAll(/<li>([^<]*) <code [^>]*data-rule-id="([a-z-]+)"/g)];
+    expect(items.length).toBeGreaterThan(0);
+    for (const [, sentence, rule] of items) expect(sentence).not.toContain(rule);
   });
 });

@@ -1,7 +1,7 @@
 /**
  * The editor on a touch tablet (1024×768, touch only): a three-phase plan drawn from an empty
- * canvas with taps alone ends with exactly the links that were drawn, and tapping the blank
- * inside of a symbol selects it.
+ * canvas with taps alone ends with exactly the links that were drawn, tapping the blank
+ * inside of a symbol selects it, and the side panels fold away for the drawing.
  */
 import type { Page } from 'playwright-core';
 import { expect, it } from 'vitest';
@@ -58,5 +58,14 @@ it('draws a three-phase plan with taps alone and gets exactly the links it drew'
   await expect.poll(() => node(page, 'N1').getAttribute('class')).toMatch(/\bselected\b/);
   const box = (await node(page, 'N1').locator('.bm-glyph-box').boundingBox({ timeout: 5000 }))!;
   expect(Math.min(box.width, box.height)).toBeGreaterThanOrEqual(44);
+
+  // The side panels fold away and give their room to the drawing.
+  const before = (await page.locator('.react-flow').first().boundingBox())!.width;
+  await page.getByRole('button', { name: 'Fold tools' }).tap();
+  await page.getByRole('button', { name: 'Fold details' }).tap();
+  await expect.poll(async () => (await page.locator('.react-flow').first().boundingBox())!.width).toBeGreaterThan(before + 300);
+  expect(await page.getByRole('button', { name: 'Add phase' }).isVisible()).toBe(false);
+  await page.getByRole('button', { name: 'Tools', exact: true }).tap();
+  await page.getByRole('button', { name: 'Add phase' }).waitFor();
   expect(errors).toEqual([]);
 });

@@ -20,14 +20,14 @@ export function useBrowser() {
     await browser?.close();
   });
   return {
-    /** Signs a demo person in through the sign-in form and returns their page (options: a tablet viewport, touch). */
-    async signIn(email: string, options: BrowserContextOptions = {}): Promise<{ context: BrowserContext; page: Page }> {
+    /** Signs a person in (a demo one unless `password` is given) through the sign-in form and returns their page (options: a tablet viewport, touch). */
+    async signIn(email: string, options: BrowserContextOptions = {}, password = DEMO_PASSWORD): Promise<{ context: BrowserContext; page: Page }> {
       const context = await browser.newContext({ viewport: { width: 1366, height: 900 }, acceptDownloads: true, ...options });
       contexts.push(context);
       const page = await context.newPage();
       await page.goto(`${BASE_URL}/login`);
       await page.getByLabel('E-mail').fill(email);
-      await page.getByLabel('Password').fill(DEMO_PASSWORD);
+      await page.getByLabel('Password').fill(password);
       await (options.hasTouch ? page.getByRole('button', { name: 'Sign in' }).tap() : page.getByRole('button', { name: 'Sign in' }).click());
       await page.waitForURL((url) => url.pathname !== '/login');
       return { context, page };

@@ -5,7 +5,7 @@
  * it can be searched and read back.
  */
 import { CAUTION, type CheckReport } from '@/lib/domain/report';
-import { formatLength, type UnitSystem } from '@/lib/domain/units';
+import { formatForcePerLength, formatLength, formatWeight, type UnitSystem } from '@/lib/domain/units';
 import type { PlanDocument } from '@/lib/schemas/plan';
 import type { Shape } from './drawing-scene';
 
@@ -92,12 +92,16 @@ export async function renderPlanPng(doc: PlanDocument, report: CheckReport | nul
   return new Blob([bytes], { type: 'image/png' });
 }
 
+const SUPERSCRIPT: Record<string, string> = { '⁰': '0', '¹': '1', '²': '2', '³': '3', '⁴': '4', '⁵': '5', '⁶': '6', '⁷': '7', '⁸': '8', '⁹': '9', '⁺': '+', '⁻': '-', '⁼': '=', '⁽': '(', '⁾': ')', 'ⁿ': 'n', 'ⁱ': 'i' };
+
 /**
  * The embedded Source Sans 3 subsets print Latin-1, general punctuation, − and Greek (Ω ρ π µ ²):
  * spell out the few other symbols our sentences use.
  */
 export function pdfText(text: string): string {
   return text
+    // Superscripts beyond Latin-1 (10⁻⁷) are not in the embedded subsets: written as a power (10^-7).
+    .replace(/[¹²³\u2070-\u207f]*[\u2070-\u207f][¹²³\u2070-\u207f]*/g, (run) => `^${[...run].map((c) => SUPERSCRIPT[c] ?? '?').join('')}`)
     .replace(/≤/g, '<=').replace(/≥/g, '>=').replace(/√/g, 'sqrt ')
     .replace(/[^\x20-\xff\n\u2000-\u206f\u2212\u0370-\u03ff]/g, '?');
 }
@@ -173,7 +177,7 @@ export async function buildPdf(doc: PlanDocument, report: CheckReport | null, me
 
   const s = doc.system;
   line('System data', 12, true);
-  line(`Fault current ${f(s.faultKa)} kA · clearing time ${f(s.clearingCycles)} cycles at ${s.frequencyHz} Hz · X/R ${f(s.xOverR)} · nominal ${f(s.nominalKv)} kV · phase spacing ${s.phaseSpacingM === undefined ? '-' : formatLength(s.phaseSpacingM, units)} · body criteria ${doc.criteria?.bodyKg ?? 50} kg, ${doc.criteria?.bodyOhms ?? 1000} Ω`);
+  line(`Fault current ${f(s.faultKa)} kA · clearing time ${f(s.clearingCycles)} cycles at ${s.frequencyHz} Hz · X/R ${f(s.xOverR)} · nominal ${f(s.nominalKv)} kV · phase spacing ${s.phaseSpacingM === undefined ? '-' : formatLength(s.phaseSpacingM, units)} · body criteria ${formatWeight(doc.criteria?.bodyKg ?? 50, units)}, ${doc.criteria?.bodyOhms ?? 1000} Ω`);
   gap();
   line('Findings', 12, true);
   if (!report) line('Not checked.');
@@ -207,7 +211,7 @@ export async function buildPdf(doc: PlanDocument, report: CheckReport | null, me
     }
     gap();
     line('Fault', 12, true);
-    line(`Duration ${f(report.fault.durationS, 3)} s, asymmetrical ${f(report.fault.asymmetricalKa)} kA, peak ${f(report.fault.peakKa)} kA, peak force ${f(report.fault.peakForceNPerM, 1)} N/m, tolerable body current ${report.tolerableBodyAmps === null ? '-' : Math.round(report.tolerableBodyAmps * 1000)} mA`);
+    line(`Duration ${f(report.fault.durationS, 3)} s, asymmetrical ${f(report.fault.asymmetricalKa)} kA, peak ${f(report.fault.peakKa)} kA, peak force ${report.fault.peakForceNPerM === null ? '- (no phase spacing)' : formatForcePerLength(report.fault.peakForceNPerM, units)}, tolerable body current ${report.tolerableBodyAmps === null ? '-' : Math.round(report.tolerableBodyAmps * 1000)} mA`);
   }
   gap(4);
   line('Crew sign-on', 12, true);

@@ -1,12 +1,13 @@
 /** The result of an attempt: score, found / missed / wrong, and each planted gap in the checker's words. */
 import type { Finding } from '@/lib/domain/report';
 import type { PlanDocument } from '@/lib/schemas/plan';
+import { RuleId } from '@/components/ui/RuleId';
 import { SeverityMark } from '@/components/ui/SeverityMark';
 import { elementName, type AttemptResult } from './types';
 
 function Item({ value, doc }: { value: string | Finding; doc: PlanDocument }) {
   if (typeof value === 'string') return <li>{elementName(doc, value)}</li>;
-  return <li>{value.message} <span className="text-sm text-note">({value.rule})</span></li>;
+  return <li>{value.message} <RuleId rule={value.rule} /></li>;
 }
 
 function Group({ title, items, doc, testId }: { title: string; items: (string | Finding)[]; doc: PlanDocument; testId: string }) {
@@ -43,7 +44,8 @@ export function AttemptResultView({ result, doc, onRetry }: { result: AttemptRes
         <ul className="space-y-2">
           {explanation.gaps.map((g, i) => (
             <li key={i} className="border-l-4 border-blocker pl-3">
-              <p><SeverityMark severity="blocker" /> {g.message}</p>
+              <p><SeverityMark severity="blocker" /> <RuleId rule={g.rule} /></p>
+              <p>{g.message}</p>
               <p className="text-sm text-note">Basis: {g.basis} · Elements: {g.elements.map((e) => elementName(doc, e)).join(', ')}</p>
             </li>
           ))}

@@ -127,8 +127,11 @@ export const formatMilliohms = (valueOhms: number) => (Number.isFinite(valueOhms
 /** Force per length given in N/m: whole newtons per metre ("463 N/m"), or pounds-force per foot to one decimal ("31.7 lbf/ft"). */
 export const formatForcePerLength = (valueNPerM: number, units: UnitSystem = 'metric') =>
   units === 'imperial' ? `${fixed((valueNPerM * METRES_PER_FOOT) / NEWTONS_PER_POUND_FORCE, 1)} lbf/ft` : `${fixed(valueNPerM, 0)} N/m`;
-/** A length that may be short: millimetres below 1 m ("20 mm"), else metres to one decimal. */
-export const formatShortLength = (valueM: number) => (Number.isFinite(valueM) && Math.abs(valueM) < 1 ? `${Number((valueM * 1000).toPrecision(3))} mm` : formatMetres(valueM));
+/** A length that may be short: millimetres below 1 m ("20 mm"), else metres to one decimal; in feet, inches below a foot ("0.787 in"), else feet and inches. */
+export const formatShortLength = (valueM: number, units: UnitSystem = 'metric') => {
+  if (units === 'imperial' && Number.isFinite(valueM)) return Math.abs(valueM) < METRES_PER_FOOT ? `${Number((valueM / 0.0254).toPrecision(3))} in` : formatLength(valueM, 'imperial');
+  return Number.isFinite(valueM) && Math.abs(valueM) < 1 ? `${Number((valueM * 1000).toPrecision(3))} mm` : formatMetres(valueM);
+};
 /** A dimensionless factor to three decimals: "1.052". */
 export const formatFactor = (value: number) => (Number.isFinite(value) ? value.toFixed(3) : 'an unknown factor');
 /** A diameter in millimetres as entered: "15.875 mm". */

@@ -106,10 +106,16 @@ export const reviewBody = z
     if (v.decision === 'return' && !v.comment) ctx.addIssue({ code: 'custom', path: ['comment'], message: 'is required when returning a plan: say what to fix' });
   });
 
-export const commentBody = z.object({
-  body: text(4000).pipe(z.string().min(1, 'must not be empty')),
-  elementId: z.string({ invalid_type_error: 'must be a string' }).trim().min(1, 'must not be empty').max(64, 'is too long').nullable().optional(),
-});
+export const commentBody = z
+  .object({
+    body: text(4000).pipe(z.string().min(1, 'must not be empty')),
+    elementId: z.string({ invalid_type_error: 'must be a string' }).trim().min(1, 'must not be empty').max(64, 'is too long').nullable().optional(),
+    /** The id of the comment this one answers (a reply); absent or null for a new comment. */
+    replyTo: z.union([z.null(), idParam]).optional(),
+  })
+  .superRefine((v, ctx) => {
+    if (v.replyTo && v.elementId) ctx.addIssue({ code: 'custom', path: ['elementId'], message: 'must be left out of a reply: a reply sits under the comment it answers' });
+  });
 
 export const resolveCommentBody = z.object({ resolved: z.boolean({ required_error: 'is required', invalid_type_error: 'must be true or false' }) });
 

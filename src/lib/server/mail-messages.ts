@@ -98,3 +98,15 @@ export function addressInUseMessage(to: string, organizationName: string, signIn
     link: { href: signInLink, label: 'Sign in to your account' },
   });
 }
+
+/** To the writer of a comment when someone else (usually the plan's author) answers it. */
+export function replyMessage(to: string, plan: PlanRef, byName: string, answered: string, reply: string, baseUrl: string): OutgoingMail {
+  return compose({
+    to,
+    subject: `Reply to your comment: ${plan.title}`,
+    kind: 'comment.replied',
+    organizationId: plan.organizationId,
+    lines: [`${byName} replied to your comment on "${plan.title}" (revision ${plan.revision}).`, `Your comment: ${clip(answered, MAIL_COMMENT_CHARS)}`, `The reply: ${clip(reply, MAIL_COMMENT_CHARS)}`],
+    link: { href: `${baseUrl}/plans/${plan.id}`, label: 'Open the plan' },
+  });
+}

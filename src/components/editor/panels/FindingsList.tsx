@@ -1,5 +1,6 @@
 /** Findings grouped by severity, each told apart by word and glyph, with its basis and a "Show" action. */
 import type { Finding, Severity } from '@/lib/domain/report';
+import { RuleId } from '@/components/ui/RuleId';
 import { SeverityMark } from '@/components/ui/SeverityMark';
 
 const GROUPS: { severity: Severity; title: string }[] = [
@@ -49,7 +50,7 @@ export function FindingsList({ findings, onShow }: { findings: readonly Finding[
               {groupFindings(list).map(({ finding: f, elements, count }, i) => (
                 <li key={`${f.rule}-${f.elements.join('-')}-${i}`} className={`flex items-start gap-3 border-l-4 bg-white py-1 pl-3 ${severity === 'warning' ? 'border-dashed' : ''} ${BORDER[severity]}`} data-rule={f.rule} data-severity={severity}>
                   <div className="flex-1">
-                    <p><SeverityMark severity={severity} /> <span className="text-sm text-note">{f.rule}</span></p>
+                    <p><SeverityMark severity={severity} /> <RuleId rule={f.rule} /></p>
                     <p>{f.message}</p>
                     {count > 1 && <p className="text-sm font-semibold" data-testid="finding-group">The same for {count} places: {elements.join(', ')}</p>}
                     <p className="text-sm text-note">Basis: {f.basis} · Elements: {elements.join(', ')}</p>

@@ -5,7 +5,7 @@
  */
 import { forwardRef } from 'react';
 import { CAUTION, type CheckReport } from '@/lib/domain/report';
-import { formatLength, type UnitSystem } from '@/lib/domain/units';
+import { formatLength, formatWeight, type UnitSystem } from '@/lib/domain/units';
 import type { PlanDocument } from '@/lib/schemas/plan';
 import { drawingScene } from '@/components/editor/drawing-scene';
 import type { SheetMeta } from '@/components/editor/export';
@@ -36,7 +36,7 @@ export const PrintSheet = forwardRef<HTMLDivElement, PrintSheetProps>(function P
         <h2 className="text-lg font-semibold">System data</h2>
         <p className="num">
           Fault current {fmt(s.faultKa)} kA · clearing time {fmt(s.clearingCycles)} cycles at {s.frequencyHz} Hz · X/R {fmt(s.xOverR)} · nominal {fmt(s.nominalKv)} kV ·
-          phase spacing {s.phaseSpacingM === undefined ? '—' : formatLength(s.phaseSpacingM, units)} · body criteria {doc.criteria?.bodyKg ?? 50} kg, {doc.criteria?.bodyOhms ?? 1000} Ω
+          phase spacing {s.phaseSpacingM === undefined ? '—' : formatLength(s.phaseSpacingM, units)} · body criteria {formatWeight(doc.criteria?.bodyKg ?? 50, units)}, {doc.criteria?.bodyOhms ?? 1000} Ω
         </p>
       </section>
       <section>

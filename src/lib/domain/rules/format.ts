@@ -14,8 +14,9 @@ export {
   formatFactor as factor,
   formatMillimetres as millimetres,
   formatKiloamps,
+  formatDiameter as diameter,
+  formatForcePerLength as forcePerLength,
 } from '@/lib/domain/units';
-import { formatForcePerLength } from '@/lib/domain/units';
 
 /** Cable size as the trade writes it: "#2", "4/0", "250 kcmil". */
 export function cableName(cable: string): string {
@@ -28,6 +29,3 @@ export function listOf(names: string[]): string {
   if (names.length <= 1) return names.join('');
   return `${names.slice(0, -1).join(', ')} and ${names[names.length - 1]}`;
 }
-
-/** Force per length in N/m, whole newtons: "463 N/m". */
-export const newtonsPerMetre = (value: number) => formatForcePerLength(value, 'metric');

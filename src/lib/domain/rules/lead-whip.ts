@@ -1,5 +1,5 @@
 import { capitalise } from '@/lib/domain/plan-model';
-import { listOf, metres, newtonsPerMetre } from './format';
+import { forcePerLength, listOf, metres } from './format';
 import type { Finding, RuleContext } from './types';
 
 export const LEAD_WHIP = 'lead-whip';
@@ -42,7 +42,7 @@ export function checkLeadWhip(ctx: RuleContext): Finding[] {
       severity: 'warning',
       elements: [jumper.id],
       message:
-        `${capitalise(model.nameOf(jumper.id))} has ${metres(jumper.lengthM - jumper.spanM)} of slack and the phase leads pull at ${newtonsPerMetre(force)} at the first fault peak, so it will whip; ` +
+        `${capitalise(model.nameOf(jumper.id))} has ${metres(jumper.lengthM - jumper.spanM, ctx.units)} of slack and the phase leads pull at ${forcePerLength(force, ctx.units)} at the first fault peak, so it will whip; ` +
         'shorten it and tie it off, or jumper phase to phase with one short lead down.',
       basis,
     });
@@ -54,7 +54,7 @@ export function checkLeadWhip(ctx: RuleContext): Finding[] {
       severity: 'note',
       elements: [point, ...leads],
       message:
-        `${capitalise(listOf(leads.map(model.nameOf)))} run separately from each phase to ${model.nameOf(point)}; at ${newtonsPerMetre(force)} separate leads whip farthest, ` +
+        `${capitalise(listOf(leads.map(model.nameOf)))} run separately from each phase to ${model.nameOf(point)}; at ${forcePerLength(force, ctx.units)} separate leads whip farthest, ` +
         'so consider jumpering phase to phase with shortened leads and one lead down.',
       basis,
     });

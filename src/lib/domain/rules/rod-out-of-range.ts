@@ -1,6 +1,6 @@
 import { ROD_MIN_LENGTH_TO_RADIUS, rodInRange } from '@/lib/domain/calc/rods';
 import { capitalise } from '@/lib/domain/plan-model';
-import { millimetres, shortLength } from './format';
+import { diameter, shortLength } from './format';
 import type { Finding, RuleContext } from './types';
 
 export const ROD_OUT_OF_RANGE = 'rod-out-of-range';
@@ -21,7 +21,7 @@ export function checkRodOutOfRange(ctx: RuleContext): Finding[] {
         severity: 'blocker' as const,
         elements: [rod.id],
         message:
-          `${capitalise(ctx.model.nameOf(rod.id))} is ${shortLength(rod.lengthM)} long and ${millimetres(rod.diameterMm)} across; the rod formula needs a driven length of at least ${ROD_MIN_LENGTH_TO_RADIUS} radii (${shortLength(minimumM)} here), ` +
+          `${capitalise(ctx.model.nameOf(rod.id))} is ${shortLength(rod.lengthM, ctx.units)} long and ${diameter(rod.diameterMm, ctx.units)} across; the rod formula needs a driven length of at least ${ROD_MIN_LENGTH_TO_RADIUS} radii (${shortLength(minimumM, ctx.units)} here), ` +
           'so it was not counted as a ground; check the length and diameter.',
         basis: `Dwight's rod formula (IEEE Std 142) holds for a long thin rod; Bondmap refuses L < ${ROD_MIN_LENGTH_TO_RADIUS}·a`,
       },

@@ -1,6 +1,7 @@
 import type { LinkOf } from '@/lib/schemas/plan';
 import { cableName, formatKiloamps, listOf, metres } from './format';
 import type { Finding, RuleContext } from './types';
+import type { UnitSystem } from '@/lib/domain/units';
 
 export const SET_DIFFERS = 'set-differs';
 
@@ -8,10 +9,10 @@ type Jumper = LinkOf<'jumper'>;
 const LENGTH_TOLERANCE_M = 0.05;
 
 /** What the plan says that the set's record does not: only fields the plan gives are compared. */
-function differences(drawn: Jumper, used: Jumper): string[] {
+function differences(drawn: Jumper, used: Jumper, units: UnitSystem): string[] {
   const out: string[] = [];
   if (drawn.cable !== used.cable) out.push(`cable ${cableName(drawn.cable)} (set: ${cableName(used.cable)})`);
-  if (Math.abs(drawn.lengthM - used.lengthM) > LENGTH_TOLERANCE_M) out.push(`length ${metres(drawn.lengthM)} (set: ${metres(used.lengthM)})`);
+  if (Math.abs(drawn.lengthM - used.lengthM) > LENGTH_TOLERANCE_M) out.push(`length ${metres(drawn.lengthM, units)} (set: ${metres(used.lengthM, units)})`);
   if (drawn.clampKa !== undefined && drawn.clampKa !== used.clampKa) out.push(`clamp rating ${formatKiloamps(drawn.clampKa)} (set: ${formatKiloamps(used.clampKa ?? NaN)})`);
   if (drawn.clampCycles !== undefined && drawn.clampCycles !== used.clampCycles) out.push(`clamp rating time ${drawn.clampCycles} cycles (set: ${used.clampCycles} cycles)`);
   if (drawn.clampKind !== undefined && drawn.clampKind !== used.clampKind) out.push(`clamp kind ${drawn.clampKind} (set: ${used.clampKind})`);
@@ -32,7 +33,7 @@ export function checkSetDiffers(ctx: RuleContext): Finding[] {
     return use.jumpers.flatMap((id) => {
       const before = drawn.get(id);
       const after = ctx.plan.links.find((l): l is Jumper => l.id === id && l.kind === 'jumper');
-      const diff = before && after ? differences(before, after) : [];
+      const diff = before && after ? differences(before, after, ctx.units) : [];
       if (diff.length === 0) return [];
       return [
         {

@@ -60,7 +60,7 @@ export async function decide(person: Person, planId: number, input: DecisionRequ
     // The author's mail is queued inside the decision's transaction: all of it or none.
     const author = await db.models.User.findByPk(plan.authorId, { attributes: ['email', 'disabled'], transaction });
     if (!author || author.disabled) return;
-    const open = await db.models.PlanComment.findAll({ where: { planId, resolvedAt: null }, order: [['id', 'ASC']], transaction });
+    const open = await db.models.PlanComment.findAll({ where: { planId, resolvedAt: null, replyTo: null }, order: [['id', 'ASC']], transaction });
     const ref = { id: plan.id, title: plan.title, revision, organizationId: person.organizationId };
     await queueMail([decidedMessage(author.email, ref, input.decision, person.name, open.map((c) => (c.elementId ? `${c.elementId}: ${c.body}` : c.body)), publicUrl(requestUrl))], transaction);
   });

@@ -1,14 +1,14 @@
 import { readForm } from '@/lib/server/forms';
 import type { APIRoute } from 'astro';
 import type { Person } from '@/lib/domain/people';
-import { idParam } from '@/lib/schemas/api';
+import { commentBody, idParam } from '@/lib/schemas/api';
 import { AppError } from '@/lib/server/errors';
-import { resolveComment } from '@/lib/server/services/comments';
+import { commentOnPlan, resolveComment } from '@/lib/server/services/comments';
 import { reopen, submitForReview, withdraw } from '@/lib/server/services/review';
 
 /**
  * The plan page's workflow buttons post here as plain forms (no JavaScript needed): submit,
- * withdraw a submitted one, reopen an approved plan, resolve or reopen a comment. Each calls the
+ * withdraw a submitted one, reopen an approved plan, resolve or reopen a comment, reply to one. Each calls the
  * same service as the JSON API (src/lib/server/services) and answers with a redirect back to the
  * plan carrying what happened.
  */
@@ -18,6 +18,11 @@ const ACTIONS: Record<string, (person: Person, planId: number, form: FormData, u
   withdraw: async (person, planId) => (await withdraw(person, planId), 'withdrawn'),
   resolve: async (person, planId, form) => (await resolveComment(person, planId, commentId(form), true), 'resolved'),
   unresolve: async (person, planId, form) => (await resolveComment(person, planId, commentId(form), false), 'reopened-comment'),
+  reply: async (person, planId, form, url) => {
+    const parsed = commentBody.safeParse({ body: String(form.get('body') ?? ''), replyTo: String(form.get('replyTo') ?? '') });
+    if (!parsed.success || !parsed.data.replyTo) throw new AppError('VALIDATION');
+    return `replied#comment-${(await commentOnPlan(person, planId, parsed.data, url)).id}`;
+  },
 };
 
 function commentId(form: FormData): number {

@@ -13,10 +13,13 @@ export const GET = endpoint(async (ctx) => {
   return json({ comments });
 });
 
-/** Adds a comment on the current revision, pinned to one of its nodes or links when `elementId` is given. */
+/**
+ * Adds a comment on the current revision, pinned to one of its nodes or links when `elementId` is
+ * given, or a reply under comment `replyTo` of this plan (one level deep; its writer gets a mail).
+ */
 export const POST = endpoint(async (ctx) => {
   const person = requireCan(ctx, 'plan.comment');
   const id = pathId(ctx, 'id');
   const body = await readJson(ctx, commentBody, 64 * 1024);
-  return json({ comment: await commentOnPlan(person, id, body) }, 201);
+  return json({ comment: await commentOnPlan(person, id, body, ctx.url) }, 201);
 });
