@@ -7,9 +7,11 @@
 import { DataTypes, type QueryInterface } from 'sequelize';
 import type { MigrationFn } from 'umzug';
 
+// Plain DDL: Sequelize's removeColumn first reads foreign keys on its raw-query path, which breaks
+// on the mariadb connector's result arrays (DEVELOPERS.md, "Raw SQL goes through typed queries").
 export const up: MigrationFn<QueryInterface> = async ({ context: qi }) => {
-  await qi.dropTable('login_attempts');
-  await qi.removeColumn('plans', 'lock_version');
+  await qi.sequelize.query('DROP TABLE IF EXISTS login_attempts');
+  await qi.sequelize.query('ALTER TABLE plans DROP COLUMN lock_version');
 };
 
 export const down: MigrationFn<QueryInterface> = async ({ context: qi }) => {
