@@ -20,9 +20,11 @@ export interface FieldRecordProps {
   people: CrewPerson[];
   me: CrewPerson;
   canWrite: boolean;
+  /** The organisation's time zone: the log shows each entry's time in it. */
+  timeZone: string;
 }
 
-export default function FieldRecord({ initial, people, me, canWrite }: FieldRecordProps) {
+export default function FieldRecord({ initial, people, me, canWrite, timeZone }: FieldRecordProps) {
   const sync = useFieldSync(initial, me);
   const record = withPending(sync.record, sync.pending, me);
   useEffect(() => void registerWorker(), []);
@@ -113,7 +115,7 @@ export default function FieldRecord({ initial, people, me, canWrite }: FieldReco
 
       <a className={`${SECONDARY} flex items-center justify-center`} href={`/api/records/${record.id}/pdf`} download data-testid="pdf-link">Download PDF</a>
 
-      <RecordLog record={record} people={people} onDismiss={sync.dismiss} />
+      <RecordLog record={record} people={people} timeZone={timeZone} onDismiss={sync.dismiss} />
     </div>
   );
 }
