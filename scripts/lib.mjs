@@ -159,12 +159,13 @@ export async function testPorts(env, pick) {
   // Every given port is named before any is drawn, so a drawn one never lands on a given one.
   const taken = new Set(Object.values(names).filter(Boolean).map(Number));
   const picked = [];
-  const ports = {};
-  for (const [key, given] of Object.entries(names)) {
-    if (given) ports[key] = Number(given);
-    else picked.push((ports[key] = await pick(taken)));
-  }
-  return { ...ports, picked, taken };
+  const choose = async (given) => {
+    if (given) return Number(given);
+    const port = await pick(taken);
+    picked.push(port);
+    return port;
+  };
+  return { port: await choose(names.port), smtpPort: await choose(names.smtpPort), s3Port: await choose(names.s3Port), dbPort: await choose(names.dbPort), picked, taken };
 }
 
 const helperPidFile = (profile, name) => join(ROOT, '.data', profile, `${name}.pid`);
