@@ -2,6 +2,7 @@
 import { render, screen } from '@testing-library/react';
 import { expect, it } from 'vitest';
 import { RecordLog } from '@/components/records/RecordLog';
+import { SyncBar } from '@/components/records/offline/SyncBar';
 import type { EntryView, RecordView } from '@/components/records/types';
 
 const me = { id: 'u1', name: 'Invented Lead' };
@@ -15,4 +16,9 @@ it.each([
 ])('shows the entry at %s as %s', (timeZone, shown) => {
   render(<RecordLog record={record} people={[me]} timeZone={timeZone} />);
   expect(screen.getByTestId('record-log').textContent).toContain(shown);
+});
+
+it('says when the device was last in step in the organisation zone too', () => {
+  render(<SyncBar pending={[]} inStepAt="2026-07-01T03:30:00.000Z" sending="done" timeZone="America/Chicago" />);
+  expect(screen.getByTestId('in-step').textContent).toBe('In step with the server at 22:30');
 });

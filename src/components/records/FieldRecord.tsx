@@ -66,7 +66,7 @@ export default function FieldRecord({ initial, people, me, canWrite, timeZone }:
         <p className="rounded-lg bg-white p-2 text-center"><span className="block text-3xl font-bold num" data-testid="count-off">{record.counts.removed}</span> off of {record.counts.installed}</p>
       </div>
 
-      <SyncBar pending={sync.pending} inStepAt={sync.inStepAt} sending={sync.sending} />
+      <SyncBar pending={sync.pending} inStepAt={sync.inStepAt} sending={sync.sending} timeZone={timeZone} />
 
       {problem && (
         <div className="rounded-lg border-2 border-blocker bg-white p-3 text-lg" role="alert" data-testid="problem">
