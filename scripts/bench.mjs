@@ -6,11 +6,14 @@
 // could not be measured, with the reason on stderr).
 import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
-import { ensureBuild, ensureDebianPackages, ensureDependencies, pidFileAlive, ROOT, run, say, startObjectStore, startServer, stopObjectStore } from './lib.mjs';
+import { ensureBuild, ensureDebianPackages, ensureDependencies, freePort, pidFileAlive, ROOT, run, say, startObjectStore, startServer, stopObjectStore, testPorts } from './lib.mjs';
 
 const KEYS = ['apiPlansRps', 'baselinePlansRps', 'apiPlansRatio', 'apiPlansP99Ms', 'planPageP99Ms', 'check1kMs', 'check10kMs', 'checkGrowth', 'dragP95Ms', 'tabletFirstInteractiveMs', 'tabletCheckRoundTripMs', 'tabletDragP95Ms', 'pngExportMs', 'pdfExportMs', 'editorJsKb'];
 const wantJson = process.argv.includes('--json');
-const port = Number(process.env.BONDMAP_BENCH_PORT ?? 4393);
+// Ports given in the environment win; the rest are free ones (the database's stays while it runs).
+const { s3Port, dbPort, taken } = await testPorts(process.env, freePort);
+const port = process.env.BONDMAP_BENCH_PORT ? Number(process.env.BONDMAP_BENCH_PORT) : await freePort(taken);
+Object.assign(process.env, { BONDMAP_TEST_DB_PORT: String(dbPort), BONDMAP_TEST_S3_PORT: String(s3Port) });
 const outDir = join(ROOT, '.data', 'bench');
 rmSync(outDir, { recursive: true, force: true });
 mkdirSync(outDir, { recursive: true });
@@ -43,7 +46,7 @@ try {
   ensureDebianPackages([['/usr/sbin/mariadbd', 'mariadb-server'], ['/usr/bin/chromium', 'chromium']]);
   const envFile = join(ROOT, '.data', 'test-app-env.json');
   // The app refuses to start without its object store (photos); the test profile's local one serves.
-  const s3Env = await startObjectStore({ profile: 'test', port: Number(process.env.BONDMAP_TEST_S3_PORT ?? 4569) });
+  const s3Env = await startObjectStore({ profile: 'test', port: s3Port });
   startedStore = true;
   run('npx', ['tsx', 'db/cli.ts', 'up', '--profile', 'test', '--env-out', envFile], { env: s3Env });
   const dbEnv = JSON.parse(readFileSync(envFile, 'utf8'));

@@ -122,6 +122,52 @@ export function portOpen(port) {
   });
 }
 
+/**
+ * A port nothing listens on now, for a part started without a port given in the environment. It is
+ * drawn at random from 20000–31999, below the range Linux hands out to outgoing connections
+ * (32768+), so a connection made meanwhile cannot take it; it must bind on 127.0.0.1 and refuse a
+ * connection. `taken` holds the ports this run has drawn already.
+ */
+export async function freePort(taken = new Set()) {
+  const { createServer } = await import('node:net');
+  const binds = (port) =>
+    new Promise((done) => {
+      const probe = createServer();
+      probe.once('error', () => done(false));
+      probe.listen({ port, host: '127.0.0.1', exclusive: true }, () => probe.close(() => done(true)));
+    });
+  for (let tries = 0; tries < 200; tries += 1) {
+    const port = 20000 + Math.floor(Math.random() * 12000);
+    if (taken.has(port)) continue;
+    if ((await binds(port)) && !(await portOpen(port))) {
+      taken.add(port);
+      return port;
+    }
+  }
+  throw new Error('found no free port in 20000–31999');
+}
+
+/**
+ * The test run's ports: each from its environment variable when given, else a free one — except
+ * the database's while this checkout's test MariaDB still runs (it keeps the port it was started
+ * on, recorded with its credentials). `picked` lists the ports drawn here, `taken` every port named.
+ */
+export async function testPorts(env, pick) {
+  const credentials = join(ROOT, '.data', 'test', 'credentials.json');
+  const runningDb = pidFileAlive(join(ROOT, '.data', 'test', 'mariadbd.pid')) && existsSync(credentials) ? String(JSON.parse(readFileSync(credentials, 'utf8')).port) : undefined;
+  const names = { port: env.BONDMAP_TEST_PORT, smtpPort: env.BONDMAP_TEST_SMTP_PORT, s3Port: env.BONDMAP_TEST_S3_PORT, dbPort: env.BONDMAP_TEST_DB_PORT || runningDb };
+  // Every given port is named before any is drawn, so a drawn one never lands on a given one.
+  const taken = new Set(Object.values(names).filter(Boolean).map(Number));
+  const picked = [];
+  const choose = async (given) => {
+    if (given) return Number(given);
+    const port = await pick(taken);
+    picked.push(port);
+    return port;
+  };
+  return { port: await choose(names.port), smtpPort: await choose(names.smtpPort), s3Port: await choose(names.s3Port), dbPort: await choose(names.dbPort), picked, taken };
+}
+
 const helperPidFile = (profile, name) => join(ROOT, '.data', profile, `${name}.pid`);
 
 /** Starts a detached helper process with a pid file and a log under .data/<profile>/. */

@@ -5,11 +5,11 @@
 import { spawn } from 'node:child_process';
 import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
-import { ensureBuild, ensureDebianPackages, ensureDependencies, pidFileAlive, ROOT, run, say, startMailCatcher, startObjectStore, startServer, stopMailCatcher, stopObjectStore } from './lib.mjs';
+import { ensureBuild, ensureDebianPackages, ensureDependencies, freePort, pidFileAlive, ROOT, run, say, startMailCatcher, startObjectStore, startServer, stopMailCatcher, stopObjectStore, testPorts } from './lib.mjs';
 
-const port = Number(process.env.BONDMAP_TEST_PORT ?? 4391);
-const smtpPort = Number(process.env.BONDMAP_TEST_SMTP_PORT ?? 2526);
-const s3Port = Number(process.env.BONDMAP_TEST_S3_PORT ?? 4569);
+// Ports given in the environment win (parallel runs give each its own); the rest are free ones.
+const { port, smtpPort, s3Port, dbPort, picked } = await testPorts(process.env, freePort);
+if (picked.length) say(`free ports for this run: ${picked.join(', ')}`);
 const results = join(ROOT, 'artifacts', 'test-results');
 let server = null;
 let startedDb = false;
@@ -52,6 +52,10 @@ async function main() {
   mkdirSync(results, { recursive: true });
 
   startedDb = !pidFileAlive(join(ROOT, '.data', 'test', 'mariadbd.pid'));
+  // Every child (the database script, the catcher, the tests) reads the same ports.
+  Object.assign(process.env, { BONDMAP_TEST_DB_PORT: String(dbPort), BONDMAP_TEST_SMTP_PORT: String(smtpPort), BONDMAP_TEST_S3_PORT: String(s3Port), BONDMAP_TEST_PORT: String(port) });
+  // A catcher left from an earlier run may sit on another port; ours, by its pid file.
+  if (picked.includes(smtpPort)) await stopMailCatcher('test');
   const envFile = join(ROOT, '.data', 'test-app-env.json');
   // The project's own object store, emptied, before the seed (the demo stores drawn photos in it).
   const s3Env = await startObjectStore({ profile: 'test', port: s3Port, fresh: true });

@@ -3,7 +3,6 @@ import type { Sequelize } from 'sequelize';
 import { initAuditEvent } from './audit-event';
 import { initEquipment } from './equipment';
 import { initFieldRecords } from './field-record';
-import { initLoginAttempt } from './login-attempt';
 import { initMail } from './mail';
 import { initOrganization } from './organization';
 import { initPasswordToken } from './password-token';
@@ -23,7 +22,6 @@ export function defineModels(sequelize: Sequelize) {
     Plan: initPlan(sequelize),
     PlanRevision: initPlanRevision(sequelize),
     AuditEvent: initAuditEvent(sequelize),
-    LoginAttempt: initLoginAttempt(sequelize),
     PasswordToken: initPasswordToken(sequelize),
     PlanDecision: initPlanDecision(sequelize),
     PlanComment: initPlanComment(sequelize),

@@ -9,7 +9,6 @@ export class Plan extends Model<InferAttributes<Plan>, InferCreationAttributes<P
   declare status: CreationOptional<PlanStatus>;
   declare authorId: string;
   declare currentRevision: CreationOptional<number>;
-  // plans.lock_version (migration 0001) is left to its default: it was written and never read.
   /** Counts from the current revision's check report, kept here so lists can sort and filter. */
   declare blockers: number | null;
   declare warnings: number | null;

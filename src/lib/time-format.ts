@@ -29,8 +29,23 @@ export function formatDate(at: Date, zone: string): string {
   return `${p.year}-${p.month}-${p.day}`;
 }
 
+/** The 24-hour time of day in the zone: "01:30". */
+export function formatTime(at: Date, zone: string): string {
+  const p = parts(at, zone);
+  return `${p.hour}:${p.minute}`;
+}
+
 /** Day, 24-hour time and the zone's short name: "2026-03-08 01:30 CST". */
 export function formatDateTime(at: Date, zone: string): string {
   const p = parts(at, zone);
   return `${p.year}-${p.month}-${p.day} ${p.hour}:${p.minute} ${p.timeZoneName}`;
+}
+
+/** How long something has waited, in the largest fitting unit: "35 min", "5 h", "3 days" ("—" with no start). */
+export function formatWaiting(since: Date | null, now: Date): string {
+  if (!since) return '—';
+  const minutes = Math.max(0, Math.round((now.getTime() - since.getTime()) / 60000));
+  if (minutes < 60) return `${minutes} min`;
+  const hours = Math.round(minutes / 60);
+  return hours < 48 ? `${hours} h` : `${Math.round(hours / 24)} days`;
 }

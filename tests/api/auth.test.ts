@@ -1,8 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { BASE_URL, Client, signedIn } from '../helpers/api';
+import { Client, signedIn } from '../helpers/api';
 import { closeTestDb, makeOrganization, makePerson, PASSWORD } from '../helpers/factories';
 import type { ChildProcess } from 'node:child_process';
-import { startServer } from '../../scripts/lib.mjs';
+import { freePort, startServer } from '../../scripts/lib.mjs';
 import { ADDRESS_FREE } from '@/lib/server/throttle';
 
 let organizationId: number;
@@ -67,7 +67,7 @@ describe('throttling', () => {
   it('holds across server instances, because the failures are in the database', async () => {
     const person = await makePerson(organizationId, 'crew_lead');
     const env = Object.fromEntries(Object.entries(process.env).filter(([k]) => k.startsWith('BONDMAP_DB_'))) as Record<string, string>;
-    const port = Number(new URL(BASE_URL).port) + 1;
+    const port = await freePort();
     const second = (await startServer({ port, env: { ...env, BONDMAP_TRUST_PROXY: '1' }, stdio: 'ignore' })) as { child: ChildProcess; url: string };
     try {
       // An address that failed ADDRESS_FREE times on this instance is blocked on the other one too.

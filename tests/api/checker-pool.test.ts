@@ -6,8 +6,8 @@
 import type { ChildProcess } from 'node:child_process';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { generatePlan } from '../../bench/generate-plan';
-import { startServer } from '../../scripts/lib.mjs';
-import { BASE_URL, Client, signedIn } from '../helpers/api';
+import { freePort, startServer } from '../../scripts/lib.mjs';
+import { Client, signedIn } from '../helpers/api';
 import { closeTestDb, makeTeam, PASSWORD, planDocument } from '../helpers/factories';
 
 let team: Awaited<ReturnType<typeof makeTeam>>;
@@ -50,7 +50,7 @@ describe('the checker off the main thread', () => {
 
   it('stops a check past its time budget with 422 CHECK_TIMEOUT, and keeps serving', async () => {
     const env = Object.fromEntries(Object.entries(process.env).filter(([k]) => k.startsWith('BONDMAP_DB_'))) as Record<string, string>;
-    const port = Number(new URL(BASE_URL).port) + 3;
+    const port = await freePort();
     const second = (await startServer({ port, env: { ...env, BONDMAP_CHECK_BUDGET_MS: '300', BONDMAP_LOG_LEVEL: 'error' }, stdio: 'ignore' })) as { child: ChildProcess; url: string };
     try {
       const client = await new Client(second.url).signIn(team.lead.email, PASSWORD);

@@ -12,6 +12,7 @@ import { closeTestDb, makePerson, makeTeam, PASSWORD, planDocument, testDb } fro
 import { setBody, uniqueTag } from '../helpers/equipment';
 import { documents, formBodies, jsonBodies, type FuzzBody } from '../helpers/fuzz-bodies';
 import { approvedPlan } from '../helpers/practice';
+import { waitForSteady } from '../helpers/wait';
 
 const RUNS = Number(process.env.FUZZ_RUNS ?? 1000);
 const BATCH = 50;
@@ -164,7 +165,7 @@ describe(`generated bodies over HTTP (${RUNS} a route, seed ${SEED})`, () => {
         if (changing === 0) {
           expect(await snapshot(), `${name}: the database changed in a batch with no 2xx answer or redirect onward`).toBe(before);
         } else if (route.afterAnswer) {
-          await new Promise((r) => setTimeout(r, 200)); // work done after the answer (reset links) settles
+          await waitForSteady(snapshot, { quiet: 200, what: 'work done after the answer (reset links)' });
         }
       }
       console.info(`${name}: ${[...statuses].sort((a, b) => a[0] - b[0]).map(([s, n]) => `${n}×${s}`).join(' ')}`);

@@ -1,8 +1,8 @@
 /** Security headers on every answer; the CSP of pages allows no inline script it has not hashed. */
 import type { ChildProcess } from 'node:child_process';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startServer } from '../../scripts/lib.mjs';
-import { BASE_URL, Client, signedIn } from '../helpers/api';
+import { freePort, startServer } from '../../scripts/lib.mjs';
+import { Client, signedIn } from '../helpers/api';
 import { closeTestDb, makeTeam, PASSWORD } from '../helpers/factories';
 
 let lead: Client;
@@ -55,7 +55,7 @@ describe('security headers', () => {
 
   it('sends HSTS when the public address is https', async () => {
     const env = Object.fromEntries(Object.entries(process.env).filter(([k]) => k.startsWith('BONDMAP_DB_'))) as Record<string, string>;
-    const port = Number(new URL(BASE_URL).port) + 2;
+    const port = await freePort();
     const second = (await startServer({ port, env: { ...env, BONDMAP_PUBLIC_URL: 'https://bondmap.example.test', BONDMAP_LOG_LEVEL: 'error' }, stdio: 'ignore' })) as { child: ChildProcess; url: string };
     try {
       const r = await new Client(second.url).get('/login');

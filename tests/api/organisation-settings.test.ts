@@ -2,12 +2,14 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Client, signedIn } from '../helpers/api';
 import { closeTestDb, makeTeam, PASSWORD, planDocument } from '../helpers/factories';
+import { mailTo } from '../helpers/wait';
 
 let admin: Client;
 let lead: Client;
 let reviewer: Client;
+let team: Awaited<ReturnType<typeof makeTeam>>;
 beforeAll(async () => {
-  const team = await makeTeam();
+  team = await makeTeam();
   admin = await signedIn(team.admin.email, PASSWORD);
   lead = await signedIn(team.lead.email, PASSWORD);
   reviewer = await signedIn(team.reviewer.email, PASSWORD);
@@ -40,6 +42,18 @@ describe('organisation settings', () => {
     const created = await lead.post('/api/plans', { title: 'Zone check pole', document: planDocument() });
     expect(created.status).toBe(201);
     const page = await lead.get('/plans');
+    expect(page.body).toContain('GMT+14');
+    expect(page.body).not.toMatch(/\d{2}:\d{2} UTC/);
+  });
+
+  it('shows caught mail on the admin mail page in the organisation zone, not UTC', async () => {
+    await admin.put('/api/organisation/settings', { timeZone: 'Pacific/Kiritimati', paperSize: 'letter', units: 'imperial' });
+    const plan = (await lead.post('/api/plans', { title: `Mail zone pole ${Date.now()}`, document: planDocument() })).body.plan;
+    expect((await lead.post(`/api/plans/${plan.id}/submit`)).status).toBe(200);
+    await mailTo(admin, team.reviewer.email, plan.title);
+    const page = await admin.get('/admin/mail');
+    expect(page.status).toBe(200);
+    expect(page.body).toContain(plan.title);
     expect(page.body).toContain('GMT+14');
     expect(page.body).not.toMatch(/\d{2}:\d{2} UTC/);
   });

@@ -7,6 +7,7 @@ import type { Page } from 'playwright-core';
 import { expect, it } from 'vitest';
 import { BASE_URL } from '../helpers/api';
 import { useBrowser } from '../helpers/e2e';
+import { waitForSteady } from '../helpers/wait';
 
 const browser = useBrowser();
 const TABLET = { viewport: { width: 1024, height: 768 }, hasTouch: true, isMobile: false };
@@ -35,7 +36,7 @@ it('draws a three-phase plan with taps alone and gets exactly the links it drew'
   // On a tablet the findings drawer starts folded to a strip so the drawing gets the room.
   expect(await page.getByTestId('drawer').getByRole('button', { name: 'Show' }).count()).toBe(1);
   await page.getByRole('button', { name: 'Fit', exact: true }).tap();
-  await page.waitForTimeout(400);
+  await waitForSteady(() => page.locator('.react-flow__viewport').getAttribute('style'), { what: 'the drawing to be fitted' });
 
   await page.getByRole('button', { name: 'Jumper', exact: true }).tap();
   for (const [from, to] of [['A', 'CB'], ['B', 'CB'], ['C', 'CB'], ['CB', 'N1']]) {
@@ -43,8 +44,8 @@ it('draws a three-phase plan with taps alone and gets exactly the links it drew'
     await tapNode(page, to, 0.9);
   }
   await expect.poll(() => linkIds(page)).toEqual(['j1', 'j2', 'j3', 'j4']);
-  await page.waitForTimeout(500);
-  expect(await linkIds(page)).toEqual(['j1', 'j2', 'j3', 'j4']);
+  // No late second link from one tap: the list stays as it is.
+  expect(await waitForSteady(() => linkIds(page), { quiet: 500, what: 'the links to stop changing' })).toEqual(['j1', 'j2', 'j3', 'j4']);
 
   // A second identical jumper is refused unless a parallel lead is asked for.
   await tapNode(page, 'A');

@@ -8,7 +8,7 @@ import sharp from 'sharp';
 import { extractText, getDocumentProxy } from 'unpdf';
 import { describe, expect, it } from 'vitest';
 import { BASE_URL } from '../helpers/api';
-import { useBrowser } from '../helpers/e2e';
+import { nextStepHeading, startRecordOnDemoPlan, useBrowser } from '../helpers/e2e';
 
 const PHONE = { viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true };
 const browser = useBrowser();
@@ -16,18 +16,9 @@ const browser = useBrowser();
 describe('the field record on a phone', () => {
   it('goes from an approved plan to a closed record and its PDF', async () => {
     const { page } = await browser.signIn('lead@demo.test', PHONE);
-    await page.goto(`${BASE_URL}/plans?status=approved`);
-    await page.getByRole('link', { name: 'Pole 14 on Wren Hollow Road, bucket work' }).first().click();
-    // The plan page's editor island lays itself out after load and shifts what is below it, so
-    // the button is pressed from the keyboard rather than at a point that may move.
-    await page.getByTestId('editor').waitFor();
-    await page.getByRole('button', { name: 'Start field record' }).focus();
-    await page.keyboard.press('Enter');
-    await page.waitForURL(/\/records\/\d+$/);
+    await startRecordOnDemoPlan(page);
     const next = page.getByTestId('next-step');
-    const heading = () => next.getByRole('heading').textContent();
-
-    await expect.poll(heading).toBe('Sign on the crew');
+    const heading = () => nextStepHeading(page);
     const signOn = page.getByRole('button', { name: 'Sign on' });
     expect((await signOn.boundingBox())!.height).toBeGreaterThanOrEqual(44);
     await signOn.click();

@@ -6,13 +6,14 @@ import type { Page } from 'playwright-core';
 import { expect, it } from 'vitest';
 import { BASE_URL } from '../helpers/api';
 import { useBrowser } from '../helpers/e2e';
+import { waitForSteady } from '../helpers/wait';
 
 const browser = useBrowser();
 const PHONE = { viewport: { width: 390, height: 844 }, hasTouch: true, isMobile: true };
 
 async function expectDrawingFits(page: Page, name: string) {
   await page.locator('.react-flow__node').first().waitFor({ state: 'attached' });
-  await page.waitForTimeout(300);
+  await waitForSteady(() => page.locator('.react-flow__viewport').getAttribute('style'), { what: 'the drawing to be fitted' });
   await page.screenshot({ path: `artifacts/phone-${name}.png` });
   const widths = await page.evaluate(() => ({ scroll: document.documentElement.scrollWidth, client: document.documentElement.clientWidth }));
   expect(widths.scroll, `${name}: the page scrolls sideways`).toBeLessThanOrEqual(widths.client);

@@ -7,6 +7,7 @@ import type { Page } from 'playwright-core';
 import { expect, it } from 'vitest';
 import { BASE_URL } from '../helpers/api';
 import { useBrowser } from '../helpers/e2e';
+import { waitForSteady } from '../helpers/wait';
 
 const browser = useBrowser();
 const TABLET = { viewport: { width: 1024, height: 768 }, hasTouch: true };
@@ -18,7 +19,7 @@ const zoomOf = (page: Page) => page.locator('.react-flow__viewport').evaluate((e
 async function zoomOut(page: Page) {
   await page.getByRole('button', { name: 'Fit', exact: true }).click();
   for (let i = 0; i < 4; i++) await page.locator('.react-flow__controls-zoomout').click();
-  await page.waitForTimeout(300);
+  await waitForSteady(() => zoomOf(page), { what: 'the zoom to settle' });
 }
 
 it('keeps labels legible and markers tappable on a tablet, and a tap fills "Pin to"', async () => {

@@ -3,7 +3,7 @@
  * after), and a fresh context per signed-in person so their cookies never mix.
  */
 import type { Browser, BrowserContext, BrowserContextOptions, Page } from 'playwright-core';
-import { afterAll, beforeAll } from 'vitest';
+import { afterAll, beforeAll, expect } from 'vitest';
 import { BASE_URL } from './api';
 import { launchBrowser } from './browser';
 
@@ -40,4 +40,22 @@ export async function fillFaultData(page: Page, values = { faultKa: '10', cleari
   await page.getByLabel('Available fault current (kA)').fill(values.faultKa);
   await page.getByLabel('Clearing time (cycles)').fill(values.clearingCycles);
   await page.getByLabel('X/R ratio').fill(values.xOverR);
+}
+
+/** The heading of the field record's next step (null until the island has drawn it). */
+export const nextStepHeading = (page: Page) => page.getByTestId('next-step').getByRole('heading').textContent();
+
+/**
+ * Opens a new field record on the approved demo plan from the plans list and waits for its first
+ * step. The plan page's editor island lays itself out after load and shifts what is below it, so
+ * the button is pressed from the keyboard rather than at a point that may move.
+ */
+export async function startRecordOnDemoPlan(page: Page): Promise<void> {
+  await page.goto(`${BASE_URL}/plans?status=approved`);
+  await page.getByRole('link', { name: 'Pole 14 on Wren Hollow Road, bucket work' }).first().click();
+  await page.getByTestId('editor').waitFor();
+  await page.getByRole('button', { name: 'Start field record' }).focus();
+  await page.keyboard.press('Enter');
+  await page.waitForURL(/\/records\/\d+$/);
+  await expect.poll(() => nextStepHeading(page)).toBe('Sign on the crew');
 }

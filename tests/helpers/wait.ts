@@ -24,6 +24,34 @@ export async function waitFor<T>(condition: () => T | Promise<T>, { deadline = 1
   }
 }
 
+/**
+ * Resolves with `read()`'s value once it has stayed the same (as JSON) for `quiet` ms: an animation
+ * has settled, or work that follows an answer has stopped changing what it changes. Throws when
+ * it is still changing at the deadline.
+ */
+export async function waitForSteady<T>(read: () => T | Promise<T>, { quiet = 300, deadline = 10_000, every = 50, what = 'the value to settle' }: WaitOptions & { quiet?: number } = {}): Promise<T> {
+  const end = Date.now() + deadline;
+  let last = JSON.stringify(await read());
+  let since = Date.now();
+  for (;;) {
+    await new Promise((r) => setTimeout(r, every));
+    const value = await read();
+    const now = JSON.stringify(value);
+    if (now !== last) {
+      last = now;
+      since = Date.now();
+    } else if (Date.now() - since >= quiet) {
+      return value;
+    }
+    if (Date.now() >= end) throw new Error(`waited ${deadline} ms for ${what}; it kept changing`);
+  }
+}
+
+/** Waits out the `Retry-After` seconds an answer named (the server's own time, not a guess), plus a margin. */
+export function waitRetryAfter(seconds: number, marginMs = 100): Promise<void> {
+  return new Promise((r) => setTimeout(r, seconds * 1000 + marginMs));
+}
+
 /** A caught message as `/api/dev/mail` lists it; loose, as the HTTP tests read it. */
 export type CaughtMail = { subject: string; text: string; to: string[] } & Record<string, any>;
 

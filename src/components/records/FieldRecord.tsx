@@ -20,9 +20,11 @@ export interface FieldRecordProps {
   people: CrewPerson[];
   me: CrewPerson;
   canWrite: boolean;
+  /** The organisation's time zone: the log shows each entry's time in it. */
+  timeZone: string;
 }
 
-export default function FieldRecord({ initial, people, me, canWrite }: FieldRecordProps) {
+export default function FieldRecord({ initial, people, me, canWrite, timeZone }: FieldRecordProps) {
   const sync = useFieldSync(initial, me);
   const record = withPending(sync.record, sync.pending, me);
   useEffect(() => void registerWorker(), []);
@@ -64,7 +66,7 @@ export default function FieldRecord({ initial, people, me, canWrite }: FieldReco
         <p className="rounded-lg bg-white p-2 text-center"><span className="block text-3xl font-bold num" data-testid="count-off">{record.counts.removed}</span> off of {record.counts.installed}</p>
       </div>
 
-      <SyncBar pending={sync.pending} inStepAt={sync.inStepAt} sending={sync.sending} />
+      <SyncBar pending={sync.pending} inStepAt={sync.inStepAt} sending={sync.sending} timeZone={timeZone} />
 
       {problem && (
         <div className="rounded-lg border-2 border-blocker bg-white p-3 text-lg" role="alert" data-testid="problem">
@@ -113,7 +115,7 @@ export default function FieldRecord({ initial, people, me, canWrite }: FieldReco
 
       <a className={`${SECONDARY} flex items-center justify-center`} href={`/api/records/${record.id}/pdf`} download data-testid="pdf-link">Download PDF</a>
 
-      <RecordLog record={record} people={people} onDismiss={sync.dismiss} />
+      <RecordLog record={record} people={people} timeZone={timeZone} onDismiss={sync.dismiss} />
     </div>
   );
 }

@@ -3,9 +3,8 @@
  * device that was offline merge in among the others'), each flag beside its entry, and the photos.
  */
 import { BRIEFING_LABELS } from '@/lib/domain/field-record';
+import { formatTime } from '@/lib/time-format';
 import type { CrewPerson, EntryView, RecordView } from './types';
-
-const time = (iso: string) => iso.slice(11, 16);
 
 function describe(e: EntryView, name: (id: string) => string): string {
   switch (e.type) {
@@ -26,7 +25,8 @@ function describe(e: EntryView, name: (id: string) => string): string {
   }
 }
 
-export function RecordLog({ record, people, onDismiss }: { record: RecordView; people: CrewPerson[]; onDismiss?: (clientId: string) => void }) {
+export function RecordLog({ record, people, timeZone, onDismiss }: { record: RecordView; people: CrewPerson[]; timeZone: string; onDismiss?: (clientId: string) => void }) {
+  const time = (iso: string) => formatTime(new Date(iso), timeZone);
   const names = new Map(people.map((p) => [p.id, p.name]));
   const name = (id: string) => names.get(id) ?? id;
   return (

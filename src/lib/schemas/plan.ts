@@ -87,6 +87,16 @@ export type PlanCriteria = z.infer<typeof criteriaSchema>;
 
 const position = z.object({ x: finite(), y: finite() }).passthrough();
 
+/** The messages of a node or link union: an unknown kind names the known ones; a non-object says so. */
+const kindErrors =
+  (kinds: readonly string[]): z.ZodErrorMap =>
+  (issue, ctx) =>
+    issue.code === 'invalid_union_discriminator'
+      ? { message: `must be one of ${kinds.join(', ')}` }
+      : issue.code === 'invalid_type'
+        ? { message: 'must be an object' }
+        : { message: ctx.defaultError };
+
 const nodeBase = {
   id: id(),
   label: label().optional(),
@@ -144,14 +154,7 @@ export const nodeSchema = z.discriminatedUnion(
       })
       .passthrough(),
   ],
-  {
-    errorMap: (issue, ctx) =>
-      issue.code === 'invalid_union_discriminator'
-        ? { message: `must be one of ${NODE_KINDS.join(', ')}` }
-        : issue.code === 'invalid_type'
-          ? { message: 'must be an object' }
-          : { message: ctx.defaultError },
-  },
+  { errorMap: kindErrors(NODE_KINDS) },
 );
 export type PlanNode = z.infer<typeof nodeSchema>;
 export type NodeOf<K extends NodeKind> = Extract<PlanNode, { kind: K }>;
@@ -184,14 +187,7 @@ export const linkSchema = z.discriminatedUnion(
       .passthrough(),
     z.object({ ...linkBase, kind: z.literal('reach') }).passthrough(),
   ],
-  {
-    errorMap: (issue, ctx) =>
-      issue.code === 'invalid_union_discriminator'
-        ? { message: `must be one of ${LINK_KINDS.join(', ')}` }
-        : issue.code === 'invalid_type'
-          ? { message: 'must be an object' }
-          : { message: ctx.defaultError },
-  },
+  { errorMap: kindErrors(LINK_KINDS) },
 );
 export type PlanLink = z.infer<typeof linkSchema>;
 export type LinkOf<K extends LinkKind> = Extract<PlanLink, { kind: K }>;

@@ -5,6 +5,7 @@
 import { getDb } from '@db/connection';
 import { addEntry, approvingReviewer, closeRecord, getRecord, type Judge, type RecordDetail, type StoredEntry } from '@db/repositories/field-records';
 import { allSets } from '@db/repositories/equipment';
+import { getOrganisationSettings } from '@db/repositories/organisation-settings';
 import { inventorySetStatus, judgeAppend, judgeCloseOut, nextStep, recordPlanFrom, replay, type FieldEntry, type InventorySet, type Refusal, type SetStatusLookup } from '@/lib/domain/field-record';
 import type { Person } from '@/lib/domain/people';
 import { can } from '@/lib/domain/permissions';
@@ -96,7 +97,8 @@ export async function closeOut(person: Person, recordId: number, requestUrl?: UR
   const reviewer = await approvingReviewer(db, record.planId, record.revision);
   const lead = await db.models.User.findByPk(record.leadId, { attributes: ['email', 'disabled'] });
   const to = [...new Set([...(reviewer && !reviewer.disabled ? [reviewer.email] : []), ...(lead && !lead.disabled ? [lead.email] : [])])];
-  await queueMail(closedMessages(to, record, person.organizationId, person.name, publicUrl(requestUrl)));
+  const { timeZone } = await getOrganisationSettings(db, person.organizationId);
+  await queueMail(closedMessages(to, record, person.organizationId, person.name, publicUrl(requestUrl), timeZone));
   return record;
 }
 

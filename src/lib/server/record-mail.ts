@@ -2,6 +2,7 @@
 import type { RecordDetail } from '@db/repositories/field-records';
 import { BRIEFING_ITEMS, replay, recordPlanFrom } from '@/lib/domain/field-record';
 import type { OutgoingMail } from './mail';
+import { formatTime } from '@/lib/time-format';
 import { compose } from './mail-messages';
 
 const recordLink = (baseUrl: string, id: number) => ({ href: `${baseUrl}/records/${id}`, label: 'Open the field record' });
@@ -21,10 +22,10 @@ export function deviationMessage(to: string, record: RecordDetail, organizationI
   });
 }
 
-/** The close-out summary: who closed, counts, flags and deviations. */
-export function closedMessages(to: string[], record: RecordDetail, organizationId: number, byName: string, baseUrl: string): OutgoingMail[] {
+/** The close-out summary: who closed, counts, flags and deviations (times in the organisation's zone). */
+export function closedMessages(to: string[], record: RecordDetail, organizationId: number, byName: string, baseUrl: string, timeZone: string): OutgoingMail[] {
   const state = replay(recordPlanFrom(record.document), record.entries.map((e) => e.entry), true);
-  const flags = record.entries.flatMap((e) => e.flags.map((f) => `${e.entry.at.slice(11, 16)} ${f.message}`));
+  const flags = record.entries.flatMap((e) => e.flags.map((f) => `${formatTime(new Date(e.entry.at), timeZone)} ${f.message}`));
   const deviations = record.entries.filter((e) => e.entry.type === 'deviation').map((e) => ('text' in e.entry ? e.entry.text : ''));
   const briefed = BRIEFING_ITEMS.filter((i) => state.briefing[i]).length;
   const lines = [

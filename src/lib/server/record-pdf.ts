@@ -9,10 +9,10 @@ import type { RecordDetail } from '@db/repositories/field-records';
 import { BRIEFING_LABELS, recordPlanFrom, replay, type FieldEntry } from '@/lib/domain/field-record';
 import { CAUTION } from '@/lib/domain/report';
 import type { PlanDocument } from '@/lib/schemas/plan';
+import { formatDateTime } from '@/lib/time-format';
 
 export type Paper = 'letter' | 'a4';
 const M = 48;
-const stamp = (iso: string) => `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC`;
 
 class Sheet {
   readonly pdf: jsPDF;
@@ -91,9 +91,12 @@ export interface PdfInput {
   names: Map<string, string>;
   thumbs: { caption: string; jpeg: Uint8Array; width: number; height: number }[];
   paper: Paper;
+  /** The organisation's time zone: every time on the sheet is read in it. */
+  timeZone: string;
 }
 
-export function recordPdf({ record, names, thumbs, paper }: PdfInput): ArrayBuffer {
+export function recordPdf({ record, names, thumbs, paper, timeZone }: PdfInput): ArrayBuffer {
+  const stamp = (iso: string) => formatDateTime(new Date(iso), timeZone);
   const sheet = new Sheet(paper);
   const plan = recordPlanFrom(record.document);
   const entries = record.entries.map((e) => e.entry);
@@ -160,7 +163,7 @@ export function recordPdf({ record, names, thumbs, paper }: PdfInput): ArrayBuff
 
   sheet.heading('Close-out');
   sheet.line(record.status === 'closed' && record.closedAt
-    ? `Closed by ${record.closedByName} at ${stamp(record.closedAt.toISOString())}. Every set that went on came off; the clearance can be released.`
+    ? `Closed by ${record.closedByName} at ${formatDateTime(record.closedAt, timeZone)}. Every set that went on came off; the clearance can be released.`
     : `Not closed: ${state.on.length} set(s) still on (${state.on.map((s) => s.link).join(', ') || 'none'}).`);
 
   sheet.heading('Caution');

@@ -11,22 +11,16 @@ import sharp from 'sharp';
 import { describe, expect, it } from 'vitest';
 import { BASE_URL } from '../../helpers/api';
 import { CHROMIUM_PATH } from '../../helpers/browser';
-import { DEMO_PASSWORD, useBrowser } from '../../helpers/e2e';
+import { DEMO_PASSWORD, nextStepHeading, startRecordOnDemoPlan, useBrowser } from '../../helpers/e2e';
 
 const PHONE = { viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true };
 const browser = useBrowser();
-const heading = (page: Page) => page.getByTestId('next-step').getByRole('heading').textContent();
+const heading = nextStepHeading;
 const waiting = async (page: Page) => [await page.getByTestId('waiting-entries').textContent(), await page.getByTestId('waiting-photos').textContent()].join('/');
 
 /** Opens a new record on the approved demo plan and waits until the worker holds the page. */
 async function openRecordOnline(page: Page): Promise<string> {
-  await page.goto(`${BASE_URL}/plans?status=approved`);
-  await page.getByRole('link', { name: 'Pole 14 on Wren Hollow Road, bucket work' }).first().click();
-  await page.getByTestId('editor').waitFor();
-  await page.getByRole('button', { name: 'Start field record' }).focus();
-  await page.keyboard.press('Enter');
-  await page.waitForURL(/\/records\/\d+$/);
-  await expect.poll(() => heading(page)).toBe('Sign on the crew');
+  await startRecordOnDemoPlan(page);
   await expect.poll(() => page.evaluate(async () => Boolean(navigator.serviceWorker.controller) && Boolean(await caches.match(location.href))), { timeout: 20_000 }).toBe(true);
   return page.url();
 }

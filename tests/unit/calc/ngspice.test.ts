@@ -12,8 +12,9 @@ import { join } from 'node:path';
 import { promisify } from 'node:util';
 import { afterAll, describe, expect, it } from 'vitest';
 import { parsePlan, type PlanDocument } from '@/lib/schemas/plan';
-import { buildNetwork, factorNetwork, REFERENCE, solveSymmetric, type Network } from '@/lib/domain/calc';
+import { buildNetwork, factorNetwork, REFERENCE, type Network } from '@/lib/domain/calc';
 import { generatePlan, seededRandom } from '../../../bench/generate-plan';
+import { solveOne } from '../../helpers/solve';
 
 const NGSPICE = '/usr/bin/ngspice';
 const GENERATED = 60;
@@ -124,7 +125,7 @@ describe('network solve against ngspice AC analysis', () => {
         if (!factor) throw new Error('circuit without unknowns');
         const bRe = new Float64Array(network.size);
         bRe[circuit.inject] = circuit.amps;
-        const ours = solveSymmetric(factor, bRe, new Float64Array(network.size));
+        const ours = solveOne(factor, bRe, new Float64Array(network.size));
         const spice = Array.from({ length: network.size }, (_, i) => results[k].get(`v(c${c}n${i})`) as [number, number] | undefined);
         const vMax = Math.max(...spice.map((v) => (v ? Math.hypot(v[0], v[1]) : 0)));
         for (let i = 0; i < network.size; i++) {

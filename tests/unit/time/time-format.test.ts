@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatDate, formatDateTime, isTimeZone } from '@/lib/time-format';
+import { formatDate, formatDateTime, formatWaiting, isTimeZone } from '@/lib/time-format';
 
 // One fixed instant read in several zones; offsets from the IANA tz database (public).
 const instant = new Date('2026-07-01T03:30:00Z');
@@ -29,5 +29,20 @@ describe('isTimeZone', () => {
     expect(isTimeZone('Europe/Berlin')).toBe(true);
     expect(isTimeZone('Mars/Olympus')).toBe(false);
     expect(isTimeZone('')).toBe(false);
+  });
+});
+
+describe('formatWaiting', () => {
+  const now = new Date('2026-07-01T12:00:00Z');
+  const ago = (minutes: number) => new Date(now.getTime() - minutes * 60_000);
+  it('says minutes under an hour, hours under two days, then days', () => {
+    expect(formatWaiting(null, now)).toBe('—');
+    expect(formatWaiting(ago(0), now)).toBe('0 min');
+    expect(formatWaiting(ago(59), now)).toBe('59 min');
+    expect(formatWaiting(ago(60), now)).toBe('1 h');
+    expect(formatWaiting(ago(47 * 60), now)).toBe('47 h');
+    expect(formatWaiting(ago(48 * 60), now)).toBe('2 days');
+    // A start a little in the future (clock skew) is no wait, not a negative one.
+    expect(formatWaiting(new Date(now.getTime() + 30_000), now)).toBe('0 min');
   });
 });

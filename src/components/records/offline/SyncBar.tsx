@@ -1,9 +1,10 @@
 /** Always in view on the field screen: what waits on this device, and when it was last in step. */
+import { formatTime } from '@/lib/time-format';
 import type { FlushOutcome, Pending } from './outbox';
 
-const clock = (iso: string) => new Date(iso).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' });
-
-export function SyncBar({ pending, inStepAt, sending }: { pending: Pending[]; inStepAt: string | null; sending: FlushOutcome }) {
+/** Times in the organisation's zone, as in the log beside it. */
+export function SyncBar({ pending, inStepAt, sending, timeZone }: { pending: Pending[]; inStepAt: string | null; sending: FlushOutcome; timeZone: string }) {
+  const clock = (iso: string) => formatTime(new Date(iso), timeZone);
   const waiting = pending.filter((p) => !p.refused);
   const entries = waiting.filter((p) => p.kind === 'entry').length;
   const photos = waiting.length - entries;

@@ -3,7 +3,8 @@
  * frequency. Resistance per NEC Chapter 9 Table 8; inductance of a straight round wire.
  */
 import type { CableSize } from '@/lib/schemas/plan';
-import { FEET_TO_M, MU0_H_PER_M, omega, radiusFromDiameterIn, type RadiusM } from './units';
+import { METRES_PER_FOOT } from '@/lib/domain/units';
+import { MU0_H_PER_M, omega, radiusFromDiameterIn, type RadiusM } from './units';
 
 export interface CableData {
   /** Conductor area, circular mils. */
@@ -35,7 +36,7 @@ export const R20_PER_R75 = 0.82235;
 
 /** DC resistance at 20 °C, Ω/m — NEC Chapter 9 Table 8 scaled by R20_PER_R75. */
 export function r20OhmPerM(cable: CableSize): number {
-  return (CABLES[cable].r75OhmPerKft * R20_PER_R75) / (1000 * FEET_TO_M);
+  return (CABLES[cable].r75OhmPerKft * R20_PER_R75) / (1000 * METRES_PER_FOOT);
 }
 
 /**

@@ -17,7 +17,7 @@ export { barricadeRadius, BARRICADE_METHOD, hemisphereVolts, rodGroupOhms, rodSu
 export { analyseNetwork, DEFAULT_BODY_OHMS, factorNetwork } from './analyse';
 export { assembleAdmittance, BOND_DEFAULT_OHMS, buildNetwork, DEFAULT_GROUND_OHMS, isConductive, linkImpedance, REFERENCE, ZERO_OHMS_FLOOR } from './network';
 export type { Network } from './network';
-export { factorSymmetric, solveBlockInPlace, solveSymmetric } from './sparse';
+export { factorSymmetric, solveBlockInPlace } from './sparse';
 export { minimumDegreeOrder } from './ordering';
 export { BLOCK_SIZE, solveInjections } from './batch';
 export type { Injection, SolvedColumn } from './batch';

@@ -145,54 +145,6 @@ export function factorSymmetric(matrix: SymmetricEntries): LdlFactor {
   return { size: n, perm, colPtr, rowPos, parent, lRe, lIm, dRe, dIm, workRe: wRe, workIm: wIm };
 }
 
-/** Solves A·x = b with a factor from factorSymmetric; b and x are indexed by original unknown. */
-export function solveSymmetric(
-  factor: LdlFactor,
-  bRe: Float64Array,
-  bIm: Float64Array,
-  xRe: Float64Array = new Float64Array(factor.size),
-  xIm: Float64Array = new Float64Array(factor.size),
-): { re: Float64Array; im: Float64Array } {
-  const { size: n, perm, colPtr, rowPos, lRe, lIm, dRe, dIm, workRe: yRe, workIm: yIm } = factor;
-  for (let i = 0; i < n; i++) {
-    yRe[perm[i]] = bRe[i];
-    yIm[perm[i]] = bIm[i];
-  }
-  for (let j = 0; j < n; j++) {
-    const vr = yRe[j];
-    const vi = yIm[j];
-    if (vr === 0 && vi === 0) continue;
-    for (let p = colPtr[j]; p < colPtr[j + 1]; p++) {
-      const i = rowPos[p];
-      yRe[i] -= lRe[p] * vr - lIm[p] * vi;
-      yIm[i] -= lRe[p] * vi + lIm[p] * vr;
-    }
-  }
-  for (let j = 0; j < n; j++) {
-    const mag2 = dRe[j] * dRe[j] + dIm[j] * dIm[j];
-    const vr = yRe[j];
-    const vi = yIm[j];
-    yRe[j] = (vr * dRe[j] + vi * dIm[j]) / mag2;
-    yIm[j] = (vi * dRe[j] - vr * dIm[j]) / mag2;
-  }
-  for (let j = n - 1; j >= 0; j--) {
-    let sr = yRe[j];
-    let si = yIm[j];
-    for (let p = colPtr[j]; p < colPtr[j + 1]; p++) {
-      const i = rowPos[p];
-      sr -= lRe[p] * yRe[i] - lIm[p] * yIm[i];
-      si -= lRe[p] * yIm[i] + lIm[p] * yRe[i];
-    }
-    yRe[j] = sr;
-    yIm[j] = si;
-  }
-  for (let i = 0; i < n; i++) {
-    xRe[i] = yRe[perm[i]];
-    xIm[i] = yIm[perm[i]];
-  }
-  return { re: xRe, im: xIm };
-}
-
 /**
  * Solves A·X = B for `count` right-hand sides at once, in place, in elimination positions:
  * `block[(position·count + r)·2]` holds the real part of right-hand side r at that position, the

@@ -22,7 +22,6 @@ export const radiusFromDiameterIn = (diameterIn: number): RadiusM => ((diameterI
 
 /** Permeability of free space, H/m (the pre-2019 exact value; the present SI value differs by 1e-10). */
 export const MU0_H_PER_M = 4e-7 * Math.PI;
-export const FEET_TO_M = 0.3048;
 
 /** Angular frequency, rad/s. */
 export const omega = (frequencyHz: number): number => 2 * Math.PI * frequencyHz;

@@ -1,4 +1,5 @@
 import { getDb } from '@db/connection';
+import { getOrganisationSettings } from '@db/repositories/organisation-settings';
 import { nameMap } from '@db/repositories/review';
 import { z } from 'zod';
 import { idParam } from '@/lib/schemas/api';
@@ -23,7 +24,8 @@ export const GET = endpoint(async (ctx) => {
     const object = await getObject(photoKey(p.objectKey, 'thumb')).catch(() => null);
     if (object) thumbs.push({ caption: p.caption, jpeg: new Uint8Array(await new Response(object.body).arrayBuffer()), width: p.width, height: p.height });
   }
-  const bytes = recordPdf({ record, names, thumbs, paper });
+  const { timeZone } = await getOrganisationSettings(getDb(), person.organizationId);
+  const bytes = recordPdf({ record, names, thumbs, paper, timeZone });
   return new Response(bytes, {
     headers: { 'content-type': 'application/pdf', 'content-disposition': `attachment; filename="field-record-${record.id}.pdf"`, 'cache-control': 'no-store' },
   });
