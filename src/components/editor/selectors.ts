@@ -44,21 +44,29 @@ export function severityByElement(report: CheckReport | null): Map<string, Sever
   return map;
 }
 
-/** The contact with the highest share of its limit for a worker, or null when none was solved. */
-export function worstContact(report: CheckReport | null, workerId: string): ReportContact | null {
-  if (!report) return null;
-  let worst: ReportContact | null = null;
-  let worstRatio = -1;
-  for (const c of report.contacts) {
-    if (c.worker !== workerId || c.bodyAmps === null || !c.limitAmps) continue;
-    const ratio = c.bodyAmps / c.limitAmps;
-    if (ratio > worstRatio) {
-      worstRatio = ratio;
-      worst = c;
+const worstCache = new WeakMap<CheckReport, Map<string, ReportContact>>();
+/**
+ * The contact with the highest share of its limit for each worker (only contacts that were
+ * solved), worked out once per report: every worker's badge reads it on every store change.
+ */
+export function worstContactByWorker(report: CheckReport | null): ReadonlyMap<string, ReportContact> {
+  if (!report) return NO_CONTACTS;
+  let map = worstCache.get(report);
+  if (!map) {
+    map = new Map();
+    for (const c of report.contacts) {
+      if (c.bodyAmps === null || !c.limitAmps) continue;
+      const was = map.get(c.worker);
+      if (!was || c.bodyAmps / c.limitAmps > was.bodyAmps! / was.limitAmps!) map.set(c.worker, c);
     }
+    worstCache.set(report, map);
   }
-  return worst;
+  return map;
 }
+const NO_CONTACTS: ReadonlyMap<string, ReportContact> = new Map();
+
+/** The contact with the highest share of its limit for a worker, or null when none was solved. */
+export const worstContact = (report: CheckReport | null, workerId: string): ReportContact | null => worstContactByWorker(report).get(workerId) ?? null;
 
 export const selectSeverityOf = (id: string) => (s: EditorState) => severityByElement(s.report).get(id) ?? null;
 export const selectSelection = (s: EditorState) => s.selection;
@@ -88,6 +96,18 @@ export function toFlowNodes(doc: PlanDocument, selection: readonly string[], dra
     const rf: Node<PlanNode> = { id: n.id, type: n.kind, position: n.position ?? { x: 0, y: 0 }, data: n, selected: isSelected, draggable, ...(size ? { width: size.width, height: size.height } : {}) };
     nodeCache.set(n, [...(entries ?? []).slice(-1), { selected: isSelected, draggable, size, rf }]);
     return rf;
+  });
+}
+
+/**
+ * The nodes with the positions of a drag in progress laid over them: only the dragged nodes get
+ * new objects, so React Flow re-renders those alone. The document is not touched until the drop.
+ */
+export function withDragPositions(nodes: Node<PlanNode>[], positions: ReadonlyMap<string, { x: number; y: number }> | null): Node<PlanNode>[] {
+  if (!positions?.size) return nodes;
+  return nodes.map((n) => {
+    const p = positions.get(n.id);
+    return p ? { ...n, position: p } : n;
   });
 }
 
