@@ -7,6 +7,7 @@ import { createEditorStore, type EditorStore } from '@/components/editor/store';
 import { startSync } from '@/components/editor/sync';
 import type { EditorApi } from '@/components/editor/api-client';
 import { findStarter } from '@/lib/domain/starters';
+import type { PlanDocument } from '@/lib/schemas/plan';
 
 // jsdom has no ResizeObserver (React Flow only needs one to exist) and lays nothing out: the canvas
 // gets a box of its own, or React Flow would see the pointer at its edge and pan while dragging.
@@ -36,7 +37,7 @@ function drawCanvas() {
 }
 
 /** A mouse event as a browser makes it: `view` is the window (jsdom refuses vitest's window in the init). */
-function mouse(type: string, target: EventTarget, at: { clientX: number; clientY: number }) {
+function mouse(type: string, target: Element | Window, at: { clientX: number; clientY: number }) {
   const e = new MouseEvent(type, { bubbles: true, cancelable: true, button: 0, ...at });
   Object.defineProperty(e, 'view', { value: window });
   act(() => { fireEvent(target, e); });
@@ -88,10 +89,10 @@ describe('dragging a node on the canvas', () => {
       const start = positionOf(store, 'CB')!;
       const checked: { x: number; y: number }[] = [];
       const saved: { x: number; y: number }[] = [];
-      const at = (doc: typeof store extends { getState(): { doc: infer D } } ? D : never) => doc.nodes.find((n) => n.id === 'CB')!.position!;
+      const at = (doc: PlanDocument) => doc.nodes.find((n) => n.id === 'CB')!.position!;
       const api = {
-        check: async (doc) => { checked.push(at(doc)); return { kind: 'ok', report: { findings: [], contacts: [], summary: { blockers: 0, warnings: 0, notes: 0 } } }; },
-        save: async (_id, body) => { saved.push(at(body.document)); return { kind: 'saved', plan: { currentRevision: 4 } }; },
+        check: async (doc: PlanDocument) => { checked.push(at(doc)); return { kind: 'ok', report: { findings: [], contacts: [], summary: { blockers: 0, warnings: 0, notes: 0 } } }; },
+        save: async (_id: number, body: { document: PlanDocument }) => { saved.push(at(body.document)); return { kind: 'saved', plan: { currentRevision: 4 } }; },
       } as unknown as EditorApi;
       const sync = startSync(store, { planId: 1, api, checkDelayMs: 150, saveDelayMs: 1500 });
       // Moves slower than the check's wait: each would have started a check before the drop.
