@@ -111,15 +111,25 @@ export function withDragPositions(nodes: Node<PlanNode>[], positions: ReadonlyMa
   });
 }
 
-const edgeCache = new WeakMap<PlanLink, { selected: boolean; rf: Edge<PlanLink> }[]>();
+/**
+ * The links of selected elements are drawn in a layer of their own (React Flow puts each z-index in
+ * its own SVG), both below the nodes: dragging a node then redraws that small layer, and the
+ * browser keeps the big one of all other links as it was painted.
+ */
+const LINK_LAYER = -1;
+const LIFTED_LINK_LAYER = 0;
+
+const edgeCache = new WeakMap<PlanLink, { selected: boolean; lifted: boolean; rf: Edge<PlanLink> }[]>();
 export function toFlowEdges(doc: Pick<PlanDocument, 'links'>, selection: readonly string[]): Edge<PlanLink>[] {
   const selected = new Set(selection);
   return doc.links.map((l) => {
     const isSelected = selected.has(l.id);
-    const cached = edgeCache.get(l)?.find((c) => c.selected === isSelected);
+    const lifted = isSelected || selected.has(l.from) || selected.has(l.to);
+    const entries = edgeCache.get(l);
+    const cached = entries?.find((c) => c.selected === isSelected && c.lifted === lifted);
     if (cached) return cached.rf;
-    const rf: Edge<PlanLink> = { id: l.id, type: l.kind, source: l.from, target: l.to, data: l, selected: isSelected };
-    edgeCache.set(l, [...(edgeCache.get(l) ?? []).slice(-1), { selected: isSelected, rf }]);
+    const rf: Edge<PlanLink> = { id: l.id, type: l.kind, source: l.from, target: l.to, data: l, selected: isSelected, zIndex: lifted ? LIFTED_LINK_LAYER : LINK_LAYER };
+    edgeCache.set(l, [...(entries ?? []).slice(-1), { selected: isSelected, lifted, rf }]);
     return rf;
   });
 }
