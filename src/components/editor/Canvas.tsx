@@ -4,7 +4,7 @@
  * call store verbs.
  */
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
-import ReactFlow, { Background, ConnectionMode, Controls, type NodeChange, type EdgeChange, type Connection, type ReactFlowInstance } from 'reactflow';
+import ReactFlow, { Background, ConnectionMode, Controls, useStoreApi, type NodeChange, type EdgeChange, type Connection, type ReactFlowInstance } from 'reactflow';
 import type { NodeKind } from '@/lib/schemas/plan';
 import { edgeTypes } from './edges/LinkEdge';
 import { nodeTypes } from './nodes/PlanNodeView';
@@ -19,6 +19,8 @@ export interface CanvasProps {
   onInit: (rf: ReactFlowInstance) => void;
   /** When given, a tap on a node (no link tool armed) calls this instead of selecting it: once per gesture. */
   onTapNode?: (id: string) => void;
+  /** Called once, after the frame in which every element was first drawn (measured by React Flow). */
+  onDrawn?: () => void;
 }
 
 interface MenuState { x: number; y: number; id: string | null }
@@ -35,7 +37,7 @@ const MULTI_SELECT_KEYS = ['Meta', 'Control', 'Shift'];
 const FIT_VIEW_OPTIONS = { padding: 0.2, maxZoom: 1.2 };
 const PRO_OPTIONS = { hideAttribution: true };
 
-export function Canvas({ onInit, onTapNode }: CanvasProps) {
+export function Canvas({ onInit, onTapNode, onDrawn }: CanvasProps) {
   const store = useEditorStore();
   const doc = useEditor((s) => s.doc);
   const selection = useEditor((s) => s.selection);
@@ -193,6 +195,29 @@ export function Canvas({ onInit, onTapNode }: CanvasProps) {
     else if (!e.shiftKey && !e.ctrlKey && !e.metaKey) s.select([t.node]);
   };
   useEffect(() => cancelPress, []);
+
+  // Watches React Flow's store only until every node has its size (drawn), then lets go.
+  const flow = useStoreApi();
+  const onDrawnRef = useRef(onDrawn);
+  onDrawnRef.current = onDrawn;
+  useEffect(() => {
+    let frame = 0;
+    const drawn = () => flow.getState().getNodes().every((n) => n.width && n.height);
+    const report = () => { frame = requestAnimationFrame(() => onDrawnRef.current?.()); };
+    if (drawn()) {
+      report();
+      return () => cancelAnimationFrame(frame);
+    }
+    const stop = flow.subscribe(() => {
+      if (!drawn()) return;
+      stop();
+      report();
+    });
+    return () => {
+      stop();
+      cancelAnimationFrame(frame);
+    };
+  }, [flow]);
 
   const menuItems = (id: string | null): MenuItem[] => {
     const s = store.getState();
