@@ -4,13 +4,14 @@
  * call store verbs.
  */
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
-import ReactFlow, { Background, ConnectionMode, Controls, useStoreApi, type NodeChange, type EdgeChange, type Connection, type ReactFlowInstance } from 'reactflow';
+import ReactFlow, { Background, ConnectionMode, Controls, type NodeChange, type EdgeChange, type Connection, type ReactFlowInstance } from 'reactflow';
 import type { NodeKind } from '@/lib/schemas/plan';
 import { edgeTypes } from './edges/LinkEdge';
 import { nodeTypes } from './nodes/PlanNodeView';
 import { ContextMenu, type MenuItem } from './panels/ContextMenu';
 import { DRAG_TYPE } from './panels/Palette';
 import { ZoomBand } from './ZoomBand';
+import { useWhenDrawn } from './when-drawn';
 import { GRID } from './store';
 import { toFlowEdges, toFlowNodes, useEditor, useEditorStore, withDragPositions, type NodeSize, type NodeSizes } from './selectors';
 import type { Point } from './plan-ops';
@@ -196,28 +197,7 @@ export function Canvas({ onInit, onTapNode, onDrawn }: CanvasProps) {
   };
   useEffect(() => cancelPress, []);
 
-  // Watches React Flow's store only until every node has its size (drawn), then lets go.
-  const flow = useStoreApi();
-  const onDrawnRef = useRef(onDrawn);
-  onDrawnRef.current = onDrawn;
-  useEffect(() => {
-    let frame = 0;
-    const drawn = () => flow.getState().getNodes().every((n) => n.width && n.height);
-    const report = () => { frame = requestAnimationFrame(() => onDrawnRef.current?.()); };
-    if (drawn()) {
-      report();
-      return () => cancelAnimationFrame(frame);
-    }
-    const stop = flow.subscribe(() => {
-      if (!drawn()) return;
-      stop();
-      report();
-    });
-    return () => {
-      stop();
-      cancelAnimationFrame(frame);
-    };
-  }, [flow]);
+  useWhenDrawn(onDrawn);
 
   const menuItems = (id: string | null): MenuItem[] => {
     const s = store.getState();
