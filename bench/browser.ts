@@ -20,7 +20,7 @@ let failed = false;
 try {
   const r = await runEditorBench(base);
   printEditorBench(r);
-  Object.assign(figures, { dragP95Ms: r.p95FrameMs, editorJsKb: Math.round((r.editorJsGzipBytes / 1024) * 10) / 10 });
+  Object.assign(figures, { dragP95Ms: r.p95FrameMs, dragP95CpuMs: r.p95FrameCpuMs, editorJsKb: Math.round((r.editorJsGzipBytes / 1024) * 10) / 10 });
 } catch (err) {
   console.error(err);
   failed = true;

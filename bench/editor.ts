@@ -27,6 +27,8 @@ export interface EditorBenchResult {
   pointerMoves: number;
   /** p95 of the main thread's work per drag frame, in ms. */
   p95FrameMs: number;
+  /** The same in the main thread's CPU time (leaves out time the OS gave to other processes). */
+  p95FrameCpuMs: number;
   /** p95 of the time between drag frames, in ms (vsync-bound: never below ~16.7). */
   p95FrameIntervalMs: number;
   /** Main-thread ms by kind of work over the whole drag (trace event names). */
@@ -48,7 +50,7 @@ async function collectScripts(page: Page, url: string): Promise<{ files: string[
   return { files: all.map((b) => new URL(b.url).pathname), gzipBytes: all.reduce((s, b) => s + b.size, 0) };
 }
 
-interface TraceEvent { name: string; ph: string; ts: number; dur?: number; pid: number; tid: number; args?: { name?: string; data?: { type?: string } } }
+interface TraceEvent { name: string; ph: string; ts: number; dur?: number; tdur?: number; pid: number; tid: number; args?: { name?: string; data?: { type?: string } } }
 
 export async function traceWhile(cdp: CDPSession, run: () => Promise<void>): Promise<TraceEvent[]> {
   const events: TraceEvent[] = [];
@@ -69,9 +71,11 @@ export async function traceWhile(cdp: CDPSession, run: () => Promise<void>): Pro
 /**
  * Main-thread work per frame on the page's renderer: frames start at each BeginMainThreadFrame,
  * a frame's work is the time top-level tasks ran within it (a task spanning two frames is split
- * between them), and only frames in which a mouse move was dispatched count.
+ * between them), and only frames in which a mouse move was dispatched count. `cpu` is the same
+ * per frame in thread time (the task's CPU time, shared out like its wall time): on a machine
+ * shared with other work, wall time also holds the time the OS gave to other processes.
  */
-export function frameWork(events: TraceEvent[]): { work: number[]; intervals: number[]; breakdown: Record<string, number> } {
+export function frameWork(events: TraceEvent[]): { work: number[]; cpu: number[]; intervals: number[]; breakdown: Record<string, number> } {
   const mains = events.filter((e) => e.ph === 'M' && e.name === 'thread_name' && e.args?.name === 'CrRendererMain');
   const key = (e: { pid: number; tid: number }) => `${e.pid}:${e.tid}`;
   const moveThreads = new Map<string, number>();
@@ -82,14 +86,20 @@ export function frameWork(events: TraceEvent[]): { work: number[]; intervals: nu
   const tasks = on.filter((e) => e.ph === 'X' && e.name === 'RunTask' && e.dur).sort((a, b) => a.ts - b.ts);
   const moves = on.filter((e) => e.name === 'EventDispatch' && e.args?.data?.type === 'mousemove').map((e) => e.ts).sort((a, b) => a - b);
   const work: number[] = [];
+  const cpu: number[] = [];
   const intervals: number[] = [];
   let t = 0;
   let m = 0;
   for (let i = 0; i + 1 < frames.length; i++) {
     const [from, to] = [frames[i], frames[i + 1]];
     let busy = 0;
+    let thread = 0;
     while (t < tasks.length && tasks[t].ts + tasks[t].dur! <= from) t++;
-    for (let k = t; k < tasks.length && tasks[k].ts < to; k++) busy += Math.min(to, tasks[k].ts + tasks[k].dur!) - Math.max(from, tasks[k].ts);
+    for (let k = t; k < tasks.length && tasks[k].ts < to; k++) {
+      const share = Math.min(to, tasks[k].ts + tasks[k].dur!) - Math.max(from, tasks[k].ts);
+      busy += share;
+      thread += (share / tasks[k].dur!) * (tasks[k].tdur ?? tasks[k].dur!);
+    }
     let moved = false;
     while (m < moves.length && moves[m] < to) {
       if (moves[m] >= from) moved = true;
@@ -97,6 +107,7 @@ export function frameWork(events: TraceEvent[]): { work: number[]; intervals: nu
     }
     if (moved) {
       work.push(busy / 1000);
+      cpu.push(thread / 1000);
       intervals.push((to - from) / 1000);
     }
   }
@@ -104,7 +115,7 @@ export function frameWork(events: TraceEvent[]): { work: number[]; intervals: nu
   // event dispatch, so the two overlap; style, layout and paint do not nest in script).
   const breakdown: Record<string, number> = {};
   for (const e of on) if (e.ph === 'X' && e.dur && BREAKDOWN.includes(e.name)) breakdown[e.name] = (breakdown[e.name] ?? 0) + e.dur / 1000;
-  return { work, intervals, breakdown };
+  return { work, cpu, intervals, breakdown };
 }
 
 const BREAKDOWN = ['RunTask', 'EventDispatch', 'FunctionCall', 'TimerFire', 'FireAnimationFrame', 'UpdateLayoutTree', 'Layout', 'PrePaint', 'Paint', 'Layerize', 'Commit', 'HitTest', 'MajorGC', 'MinorGC'];
@@ -209,6 +220,7 @@ export async function runEditorBench(baseUrl: string, elements = 1000): Promise<
       dragFrames: frames.work.length,
       pointerMoves: frames.moves,
       p95FrameMs: Math.round(p95(frames.work) * 10) / 10,
+      p95FrameCpuMs: Math.round(p95(frames.cpu) * 10) / 10,
       p95FrameIntervalMs: Math.round(p95(frames.intervals) * 10) / 10,
       dragBreakdown: frames.breakdown,
       editorJsGzipBytes: editorJs.gzipBytes,
@@ -224,7 +236,8 @@ export function printEditorBench(r: EditorBenchResult): void {
   const kb = (b: number) => `${(b / 1024).toFixed(1)} KB`;
   console.log(`editor bench — ${r.elements} elements`);
   console.log(`  first interactive canvas   ${r.interactiveMs} ms   (target < 1500 ms)`);
-  console.log(`  p95 frame while dragging   ${r.p95FrameMs} ms main-thread work over ${r.dragFrames} frames with a pointer move   (target < 16.7 ms)`);
+  console.log(`  p95 frame while dragging   ${r.p95FrameMs} ms main-thread work over ${r.dragFrames} frames with a pointer move   (target ≤ 16.7 ms)`);
+  console.log(`                             ${r.p95FrameCpuMs} ms of it CPU time (thread time: without the time other processes had the core)`);
   console.log(`  drag cadence               ${r.pointerMoves} pointer moves in 2 s, p95 ${r.p95FrameIntervalMs} ms between those frames`);
   console.log(`  where the drag's time went ${formatBreakdown(r.dragBreakdown)} (ms, trace event names)`);
   console.log(`  editor page JavaScript     ${kb(r.editorJsGzipBytes)} gzip   (target < 250 KB)`);

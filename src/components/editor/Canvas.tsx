@@ -11,14 +11,17 @@ import { nodeTypes } from './nodes/PlanNodeView';
 import { ContextMenu, type MenuItem } from './panels/ContextMenu';
 import { DRAG_TYPE } from './panels/Palette';
 import { ZoomBand } from './ZoomBand';
+import { useWhenDrawn } from './when-drawn';
 import { GRID } from './store';
-import { toFlowEdges, toFlowNodes, useEditor, useEditorStore, type NodeSize, type NodeSizes } from './selectors';
+import { toFlowEdges, toFlowNodes, useEditor, useEditorStore, withDragPositions, type NodeSize, type NodeSizes } from './selectors';
 import type { Point } from './plan-ops';
 
 export interface CanvasProps {
   onInit: (rf: ReactFlowInstance) => void;
   /** When given, a tap on a node (no link tool armed) calls this instead of selecting it: once per gesture. */
   onTapNode?: (id: string) => void;
+  /** Called once, after the frame in which every element was first drawn (measured by React Flow). */
+  onDrawn?: () => void;
 }
 
 interface MenuState { x: number; y: number; id: string | null }
@@ -35,7 +38,7 @@ const MULTI_SELECT_KEYS = ['Meta', 'Control', 'Shift'];
 const FIT_VIEW_OPTIONS = { padding: 0.2, maxZoom: 1.2 };
 const PRO_OPTIONS = { hideAttribution: true };
 
-export function Canvas({ onInit, onTapNode }: CanvasProps) {
+export function Canvas({ onInit, onTapNode, onDrawn }: CanvasProps) {
   const store = useEditorStore();
   const doc = useEditor((s) => s.doc);
   const selection = useEditor((s) => s.selection);
@@ -56,7 +59,21 @@ export function Canvas({ onInit, onTapNode }: CanvasProps) {
   // Sizes React Flow measured, handed back on the nodes (see toFlowNodes); a new map only when one changes.
   const [sizes, setSizes] = useState<NodeSizes>(() => new Map());
 
-  const nodes = useMemo(() => toFlowNodes(doc, selection, !readOnly, sizes), [doc, selection, readOnly, sizes]);
+  // A drag lives here and in React Flow until the drop: each pointer move re-renders the canvas
+  // alone (the store, its subscribers, the check and autosave do not hear of it), and the drop
+  // writes the final positions into the document as one undo step.
+  const drag = useRef<Map<string, Point> | null>(null);
+  const [dragPositions, setDragPositions] = useState<ReadonlyMap<string, Point> | null>(null);
+  const endDrag = useCallback(() => {
+    const moved = drag.current;
+    if (!moved) return;
+    drag.current = null;
+    store.getState().moveNodes(moved);
+    setDragPositions(null);
+  }, [store]);
+
+  const docNodes = useMemo(() => toFlowNodes(doc, selection, !readOnly, sizes), [doc, selection, readOnly, sizes]);
+  const nodes = useMemo(() => withDragPositions(docNodes, dragPositions), [docNodes, dragPositions]);
   // Keyed on the links, not the document: moving a node keeps `doc.links`, so the edges array
   // stays the same object and React Flow is not handed (and does not re-process) a new one.
   const links = doc.links;
@@ -65,10 +82,17 @@ export function Canvas({ onInit, onTapNode }: CanvasProps) {
 
   const onNodesChange = useCallback((changes: NodeChange[]) => {
     const moves = new Map<string, Point>();
+    let dragged: Map<string, Point> | null = null;
+    let dropped = false;
     let selected: Set<string> | null = null;
     let measured: Map<string, NodeSize> | null = null;
     for (const c of changes) {
-      if (c.type === 'position' && c.position) moves.set(c.id, c.position);
+      if (c.type === 'position') {
+        // While dragging React Flow sends positions with `dragging`; at the drop, one without a position.
+        if (c.position && c.dragging) (dragged ??= new Map(drag.current ?? [])).set(c.id, c.position);
+        else if (c.position) moves.set(c.id, c.position);
+        else if (!c.dragging) dropped = true;
+      }
       if (c.type === 'dimensions' && c.dimensions) (measured ??= new Map()).set(c.id, c.dimensions);
       if (c.type === 'select') {
         selected ??= new Set(store.getState().selection);
@@ -88,9 +112,14 @@ export function Canvas({ onInit, onTapNode }: CanvasProps) {
         return changed ?? prev;
       });
     }
+    if (dragged) {
+      drag.current = dragged;
+      setDragPositions(dragged);
+    }
+    if (dropped) endDrag();
     if (moves.size) store.getState().moveNodes(moves);
     if (selected && !store.getState().linkTool) store.getState().select([...selected]);
-  }, [store]);
+  }, [store, endDrag]);
 
   const onEdgesChange = useCallback((changes: EdgeChange[]) => {
     let selected: Set<string> | null = null;
@@ -128,7 +157,6 @@ export function Canvas({ onInit, onTapNode }: CanvasProps) {
     setMenu({ x, y, id });
   }, [store]);
   const onFlowInit = useCallback((inst: ReactFlowInstance) => { rf.current = inst; onInitRef.current(inst); }, []);
-  const onNodeDragStart = useCallback(() => store.getState().beginMove(), [store]);
   const onPaneClick = useCallback(() => { store.getState().clearSelection(); setMenu(null); }, [store]);
   const onElementContextMenu = useCallback((e: React.MouseEvent) => { e.preventDefault(); openMenuAt(e.clientX, e.clientY, e.target); }, [openMenuAt]);
   const onPaneContextMenu = useCallback((e: React.MouseEvent) => { e.preventDefault(); openMenuAt(e.clientX, e.clientY, null); }, [openMenuAt]);
@@ -155,6 +183,8 @@ export function Canvas({ onInit, onTapNode }: CanvasProps) {
    */
   const onPointerUp = (e: React.PointerEvent) => {
     cancelPress();
+    // A drag React Flow gave up (a second finger) sends no drop: the lifted pointer ends it.
+    endDrag();
     const t = tap.current;
     tap.current = null;
     if (!t || t.pointerId !== e.pointerId || !t.node || e.button > 0) return;
@@ -166,6 +196,8 @@ export function Canvas({ onInit, onTapNode }: CanvasProps) {
     else if (!e.shiftKey && !e.ctrlKey && !e.metaKey) s.select([t.node]);
   };
   useEffect(() => cancelPress, []);
+
+  useWhenDrawn(onDrawn);
 
   const menuItems = (id: string | null): MenuItem[] => {
     const s = store.getState();
@@ -202,7 +234,7 @@ export function Canvas({ onInit, onTapNode }: CanvasProps) {
       onPointerDown={onPointerDown}
       onPointerMove={onPointerMove}
       onPointerUp={onPointerUp}
-      onPointerCancel={cancelPress}
+      onPointerCancel={() => { cancelPress(); endDrag(); }}
       onDragOver={(e) => { if (e.dataTransfer.types.includes(DRAG_TYPE)) { e.preventDefault(); e.dataTransfer.dropEffect = 'copy'; } }}
       onDrop={onDrop}
     >
@@ -214,7 +246,6 @@ export function Canvas({ onInit, onTapNode }: CanvasProps) {
         onInit={onFlowInit}
         onNodesChange={onNodesChange}
         onEdgesChange={onEdgesChange}
-        onNodeDragStart={onNodeDragStart}
         onPaneClick={onPaneClick}
         onNodeContextMenu={onElementContextMenu}
         onEdgeContextMenu={onElementContextMenu}

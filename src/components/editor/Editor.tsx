@@ -47,6 +47,8 @@ export interface EditorProps {
   explanations?: Record<string, string[]>;
   /** Where unsaved work is kept on the device (EditorIsland passes IndexedDB's); localStorage when not given. */
   drafts?: DraftStorage | null;
+  /** Called once the canvas has first drawn the plan's elements (EditorIsland registers the service worker then). */
+  onCanvasDrawn?: () => void;
 }
 
 function initStore(plan: EditorProps['plan'], readOnly: boolean, pins: EditorProps['pins'], explanations: EditorProps['explanations'], drafts: DraftStorage | null): { store: EditorStore; restored: boolean } {
@@ -65,7 +67,7 @@ function initStore(plan: EditorProps['plan'], readOnly: boolean, pins: EditorPro
   return { store, restored: true };
 }
 
-export default function Editor({ plan, readOnly, approval = null, pins, canSubmit = false, explanations, drafts: given }: EditorProps) {
+export default function Editor({ plan, readOnly, approval = null, pins, canSubmit = false, explanations, drafts: given, onCanvasDrawn }: EditorProps) {
   const [drafts] = useState(() => (given !== undefined ? given : typeof localStorage === 'undefined' ? null : localStorage));
   const [{ store, restored }] = useState(() => initStore(plan, readOnly, pins, explanations, drafts));
   const rf = useRef<ReactFlowInstance | null>(null);
@@ -289,7 +291,7 @@ export default function Editor({ plan, readOnly, approval = null, pins, canSubmi
                 <button type="button" className="btn bg-white text-sm" aria-pressed={panels.tools} onClick={() => fold('tools')}>{panels.tools ? 'Fold tools' : 'Tools'}</button>
                 <button type="button" className="btn bg-white text-sm" aria-pressed={panels.props} onClick={() => fold('props')}>{panels.props ? 'Fold details' : 'Details'}</button>
               </div>
-              <Canvas onInit={(inst) => (rf.current = inst)} />
+              <Canvas onInit={(inst) => (rf.current = inst)} onDrawn={onCanvasDrawn} />
             </div>
             {panels.props && <div className="no-print absolute inset-y-0 right-0 z-30 w-72 min-h-0 shadow md:static md:w-auto md:shadow-none" data-testid="details-panel"><Inspector /></div>}
           </div>

@@ -44,21 +44,29 @@ export function severityByElement(report: CheckReport | null): Map<string, Sever
   return map;
 }
 
-/** The contact with the highest share of its limit for a worker, or null when none was solved. */
-export function worstContact(report: CheckReport | null, workerId: string): ReportContact | null {
-  if (!report) return null;
-  let worst: ReportContact | null = null;
-  let worstRatio = -1;
-  for (const c of report.contacts) {
-    if (c.worker !== workerId || c.bodyAmps === null || !c.limitAmps) continue;
-    const ratio = c.bodyAmps / c.limitAmps;
-    if (ratio > worstRatio) {
-      worstRatio = ratio;
-      worst = c;
+const worstCache = new WeakMap<CheckReport, Map<string, ReportContact>>();
+/**
+ * The contact with the highest share of its limit for each worker (only contacts that were
+ * solved), worked out once per report: every worker's badge reads it on every store change.
+ */
+export function worstContactByWorker(report: CheckReport | null): ReadonlyMap<string, ReportContact> {
+  if (!report) return NO_CONTACTS;
+  let map = worstCache.get(report);
+  if (!map) {
+    map = new Map();
+    for (const c of report.contacts) {
+      if (c.bodyAmps === null || !c.limitAmps) continue;
+      const was = map.get(c.worker);
+      if (!was || c.bodyAmps / c.limitAmps > was.bodyAmps! / was.limitAmps!) map.set(c.worker, c);
     }
+    worstCache.set(report, map);
   }
-  return worst;
+  return map;
 }
+const NO_CONTACTS: ReadonlyMap<string, ReportContact> = new Map();
+
+/** The contact with the highest share of its limit for a worker, or null when none was solved. */
+export const worstContact = (report: CheckReport | null, workerId: string): ReportContact | null => worstContactByWorker(report).get(workerId) ?? null;
 
 export const selectSeverityOf = (id: string) => (s: EditorState) => severityByElement(s.report).get(id) ?? null;
 export const selectSelection = (s: EditorState) => s.selection;
@@ -91,15 +99,37 @@ export function toFlowNodes(doc: PlanDocument, selection: readonly string[], dra
   });
 }
 
-const edgeCache = new WeakMap<PlanLink, { selected: boolean; rf: Edge<PlanLink> }[]>();
+/**
+ * The nodes with the positions of a drag in progress laid over them: only the dragged nodes get
+ * new objects, so React Flow re-renders those alone. The document is not touched until the drop.
+ */
+export function withDragPositions(nodes: Node<PlanNode>[], positions: ReadonlyMap<string, { x: number; y: number }> | null): Node<PlanNode>[] {
+  if (!positions?.size) return nodes;
+  return nodes.map((n) => {
+    const p = positions.get(n.id);
+    return p ? { ...n, position: p } : n;
+  });
+}
+
+/**
+ * The links of selected elements are drawn in a layer of their own (React Flow puts each z-index in
+ * its own SVG), both below the nodes: dragging a node then redraws that small layer, and the
+ * browser keeps the big one of all other links as it was painted.
+ */
+const LINK_LAYER = -1;
+const LIFTED_LINK_LAYER = 0;
+
+const edgeCache = new WeakMap<PlanLink, { selected: boolean; lifted: boolean; rf: Edge<PlanLink> }[]>();
 export function toFlowEdges(doc: Pick<PlanDocument, 'links'>, selection: readonly string[]): Edge<PlanLink>[] {
   const selected = new Set(selection);
   return doc.links.map((l) => {
     const isSelected = selected.has(l.id);
-    const cached = edgeCache.get(l)?.find((c) => c.selected === isSelected);
+    const lifted = isSelected || selected.has(l.from) || selected.has(l.to);
+    const entries = edgeCache.get(l);
+    const cached = entries?.find((c) => c.selected === isSelected && c.lifted === lifted);
     if (cached) return cached.rf;
-    const rf: Edge<PlanLink> = { id: l.id, type: l.kind, source: l.from, target: l.to, data: l, selected: isSelected };
-    edgeCache.set(l, [...(edgeCache.get(l) ?? []).slice(-1), { selected: isSelected, rf }]);
+    const rf: Edge<PlanLink> = { id: l.id, type: l.kind, source: l.from, target: l.to, data: l, selected: isSelected, zIndex: lifted ? LIFTED_LINK_LAYER : LINK_LAYER };
+    edgeCache.set(l, [...(entries ?? []).slice(-1), { selected: isSelected, lifted, rf }]);
     return rf;
   });
 }

@@ -54,7 +54,7 @@ export interface EditorState {
 
 export interface EditorActions {
   addNode(kind: NodeKind, position: ops.Point): string;
-  beginMove(): void;
+  /** Puts nodes where a drag (or a programmatic move) left them: one undo step; no step when nothing moved. */
   moveNodes(moves: ReadonlyMap<string, ops.Point>): void;
   nudgeSelection(dx: number, dy: number): void;
   deleteSelection(): void;
@@ -155,16 +155,16 @@ export function createEditorStore(init: EditorInit): EditorStore {
         commit(doc, [id]);
         return id;
       },
-      beginMove() {
-        const s = get();
-        if (s.readOnly) return;
-        set({ past: [...s.past, s.doc].slice(-HISTORY_LIMIT), future: [] });
-      },
       moveNodes(moves) {
-        const s = get();
-        if (s.readOnly) return;
-        const snapped = new Map([...moves].map(([id, p]) => [id, place(p)] as const));
-        set({ doc: ops.moveNodes(s.doc, snapped), version: s.version + 1, saveState: s.saveState === 'conflict' ? 'conflict' : 'unsaved' });
+        const { doc } = get();
+        const changed = new Map<string, ops.Point>();
+        for (const n of doc.nodes) {
+          const to = moves.get(n.id);
+          if (!to) continue;
+          const p = place(to);
+          if (!n.position || n.position.x !== p.x || n.position.y !== p.y) changed.set(n.id, p);
+        }
+        if (changed.size) commit(ops.moveNodes(doc, changed));
       },
       nudgeSelection(dx, dy) {
         const { doc, selection } = get();

@@ -1,17 +1,21 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { factorSymmetric, REFERENCE, solveSymmetric, type Injection, type LdlFactor } from '@/lib/domain/calc';
+import { factorSymmetric, REFERENCE, type Injection, type LdlFactor } from '@/lib/domain/calc';
 import { drivingPointImpedances, forwardReach, solveInjectionBlocks, solveInjections } from '@/lib/domain/calc/batch';
 import { seededRandom } from '../../../bench/generate-plan';
 import { randomAdmittance } from './random-network';
+import { solveOne as solveAll } from '../../helpers/solve';
 
-/** One right-hand side solved on its own, the way every injection was solved before blocks: V = A⁻¹·b. */
+/**
+ * One right-hand side solved on its own over the whole factor (no reach limit), the way every
+ * injection was solved before blocks: V = A⁻¹·b.
+ */
 function solveOne(factor: LdlFactor, { into, outOf }: Injection, amps: number) {
   const bRe = new Float64Array(factor.size);
   const bIm = new Float64Array(factor.size);
   if (into !== REFERENCE) bRe[into] += amps;
   if (outOf !== REFERENCE) bRe[outOf] -= amps;
-  return solveSymmetric(factor, bRe, bIm);
+  return solveAll(factor, bRe, bIm);
 }
 
 /** Random injections between unknowns or remote earth, some with both ends equal. */

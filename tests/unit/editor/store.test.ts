@@ -43,17 +43,28 @@ describe('editor store', () => {
     for (const kind of ['phase', 'neutral', 'shield-wire', 'hardware', 'ground-rod', 'pole-ground', 'worker'] as const) expect(STANDABLE.has(kind)).toBe(false);
   });
 
-  it('moves nodes during a drag and undoes the whole drag in one step', () => {
+  it('puts a dropped node where the drag left it (snapped) as one undo step', () => {
     const store = fresh();
     const before = store.getState().doc.nodes.find((n) => n.id === 'CB')!.position;
-    store.getState().beginMove();
-    store.getState().moveNodes(new Map([['CB', { x: 300, y: 210 }]]));
-    store.getState().moveNodes(new Map([['CB', { x: 340, y: 260 }]]));
+    const undoSteps = store.getState().past.length;
+    store.getState().moveNodes(new Map([['CB', { x: 343, y: 258 }]]));
     expect(store.getState().doc.nodes.find((n) => n.id === 'CB')!.position).toEqual({ x: 340, y: 260 });
+    expect(store.getState().past).toHaveLength(undoSteps + 1);
+    expect(store.getState().saveState).toBe('unsaved');
     store.getState().undo();
     expect(store.getState().doc.nodes.find((n) => n.id === 'CB')!.position).toEqual(before);
     store.getState().redo();
     expect(store.getState().doc.nodes.find((n) => n.id === 'CB')!.position).toEqual({ x: 340, y: 260 });
+  });
+
+  it('a drop where the drag began changes nothing and adds no undo step', () => {
+    const store = fresh();
+    const doc = store.getState().doc;
+    const at = doc.nodes.find((n) => n.id === 'CB')!.position!;
+    store.getState().moveNodes(new Map([['CB', { ...at }]]));
+    expect(store.getState().doc).toBe(doc);
+    expect(store.getState().past).toHaveLength(0);
+    expect(store.getState().version).toBe(0);
   });
 
   it('deletes a node with its links; a worker who stood on it stays, standing on nothing; undo restores all', () => {
