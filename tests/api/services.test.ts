@@ -125,9 +125,24 @@ describe('services that answer more than a role', () => {
     expect(error).toMatchObject({ code: 'VALIDATION', issues: [{ path: 'elementId' }] });
   });
 
-  it('opens a record on today (UTC) unless a work date is given, and only on an approved plan', async () => {
+  it('opens a record on today (the organisation zone, UTC here) unless a work date is given, and only on an approved plan', async () => {
     expect((await openRecord(people.crew_lead, ids.approved, {}, new Date('2026-04-30T23:30:00Z'))).workDate).toBe('2026-04-30');
     expect((await openRecord(people.admin, ids.approved, { workDate: '2026-05-04' })).workDate).toBe('2026-05-04');
     expect(await openRecord(people.crew_lead, ids.draft, {}).catch((e: AppError) => e.code)).toBe('RECORD_PLAN_NOT_APPROVED');
+  });
+});
+
+describe('a record opened without a work date', () => {
+  it("takes today in the organisation's time zone, not the server's UTC day", async () => {
+    const team = await makeTeam();
+    const plan = (await startPlan(team.lead, { title: 'Invented service zone plan', document: planDocument() })).id;
+    await submitForReview(team.lead, plan);
+    await decide(team.reviewer, plan, { decision: 'approve' });
+    // UTC−7 in May (IANA zone rules): 03:00 UTC on 1 May is still the evening of 30 April there.
+    await changeOrganisationSettings(team.admin, { timeZone: 'America/Los_Angeles', paperSize: 'letter', units: 'imperial' });
+    expect((await openRecord(team.lead, plan, {}, new Date('2026-05-01T03:00:00Z'))).workDate).toBe('2026-04-30');
+    // UTC+14: 23:30 UTC on 30 April is already 1 May there.
+    await changeOrganisationSettings(team.admin, { timeZone: 'Pacific/Kiritimati', paperSize: 'letter', units: 'imperial' });
+    expect((await openRecord(team.lead, plan, {}, new Date('2026-04-30T23:30:00Z'))).workDate).toBe('2026-05-01');
   });
 });

@@ -121,9 +121,9 @@ export const ROUTES: RouteCase[] = [
   { method: 'GET', path: '/api/equipment/export.csv', action: 'sets.view', ok: 200, call: (c) => c.get('/api/equipment/export.csv') },
   { method: 'GET', path: '/api/equipment/settings', action: 'sets.view', ok: 200, call: (c) => c.get('/api/equipment/settings') },
   { method: 'PUT', path: '/api/equipment/settings', action: 'settings.edit', ok: 200, call: (c) => c.put('/api/equipment/settings', { testIntervalMonths: 12 }) },
-  { method: 'POST', path: '/equipment', action: 'sets.manage', form: true, ok: '303 /equipment/:id', refused: '200', call: (c) => form(c, '/equipment', { action: 'add', ...Object.fromEntries(Object.entries(setBody()).map(([k, v]) => [k, String(v)])) }) },
-  { method: 'POST', path: '/equipment/[id]', variant: 'test', action: 'sets.test', form: true, ok: '200 done', refused: '200', elsewhere: '404', read: said('Test recorded'), call: async (c, w) => form(c, `/equipment/${await w.set()}`, { action: 'test', testedOn: today(), resistanceMilliohms: '0.8', limitMilliohms: '1.5' }) },
-  { method: 'POST', path: '/equipment/[id]', variant: 'status', action: 'sets.manage', form: true, ok: '200 done', refused: '200', elsewhere: '404', read: said('Status changed'), call: async (c, w) => form(c, `/equipment/${await w.set()}`, { action: 'status', status: 'out-of-service', statusReason: 'Invented reason' }) },
+  { method: 'POST', path: '/equipment', action: 'sets.manage', form: true, ok: '303 /equipment/:id', refused: '403', call: (c) => form(c, '/equipment', { action: 'add', ...Object.fromEntries(Object.entries(setBody()).map(([k, v]) => [k, String(v)])) }) },
+  { method: 'POST', path: '/equipment/[id]', variant: 'test', action: 'sets.test', form: true, ok: '200 done', refused: '403', elsewhere: '404', read: said('Test recorded'), call: async (c, w) => form(c, `/equipment/${await w.set()}`, { action: 'test', testedOn: today(), resistanceMilliohms: '0.8', limitMilliohms: '1.5' }) },
+  { method: 'POST', path: '/equipment/[id]', variant: 'status', action: 'sets.manage', form: true, ok: '200 done', refused: '403', elsewhere: '404', read: said('Status changed'), call: async (c, w) => form(c, `/equipment/${await w.set()}`, { action: 'status', status: 'out-of-service', statusReason: 'Invented reason' }) },
   { method: 'POST', path: '/equipment/settings', action: 'settings.edit', form: true, ok: '200 done', refused: '403', read: said('Saved'), call: (c) => form(c, '/equipment/settings', { testIntervalMonths: '12', limits: '' }) },
 
   // Field records.

@@ -30,7 +30,7 @@ import { EditorStoreContext } from './selectors';
 import type { UnitSystem } from '@/lib/domain/units';
 import type { PaperSize } from '@/lib/schemas/organisation';
 import { createEditorStore, GRID, hasUnsavedWork, type EditorStore } from './store';
-import { readLocalDraft, startSync, type SyncHandle } from './sync';
+import { draftToRestore, startSync, type SyncHandle } from './sync';
 import type { DraftStorage } from './draft-store';
 
 export interface EditorProps {
@@ -54,7 +54,7 @@ export interface EditorProps {
 function initStore(plan: EditorProps['plan'], readOnly: boolean, pins: EditorProps['pins'], explanations: EditorProps['explanations'], drafts: DraftStorage | null): { store: EditorStore; restored: boolean } {
   const store = createEditorStore({ doc: plan.document, baseRevision: plan.currentRevision, readOnly, report: plan.report, pins, explanations, units: plan.units });
   if (readOnly || !drafts) return { store, restored: false };
-  const draft = readLocalDraft(drafts, plan.id);
+  const draft = draftToRestore(drafts, plan.id, plan.document);
   if (!draft) return { store, restored: false };
   const s = store.getState();
   // A draft edited from a later revision than the page shows means the page is an older copy (the

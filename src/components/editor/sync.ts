@@ -4,6 +4,7 @@
  * revision) so a reload or a lost connection loses nothing, and a retry when the connection
  * returns. Framework-free: takes the store, the API and the browser objects it needs.
  */
+import { canonicalJson } from '@/lib/domain/canonical-json';
 import type { PlanDocument } from '@/lib/schemas/plan';
 import type { EditorApi } from './api-client';
 import type { EditorStore } from './store';
@@ -41,6 +42,18 @@ export function readLocalDraft(storage: SyncOptions['storage'], planId: number):
     }
   }
   return best;
+}
+
+/**
+ * The unsaved copy to restore when the editor opens, or null: none is kept, or the server already
+ * holds exactly that document (its save went through and only the answer was lost), in which case
+ * the copy is dropped.
+ */
+export function draftToRestore(storage: SyncOptions['storage'], planId: number, serverDoc: PlanDocument): { doc: PlanDocument; baseRevision: number } | null {
+  const draft = readLocalDraft(storage, planId);
+  if (!draft || canonicalJson(draft.doc) !== canonicalJson(serverDoc)) return draft;
+  clearLocalDrafts(storage, planId);
+  return null;
 }
 
 export function clearLocalDrafts(storage: SyncOptions['storage'], planId: number): void {
@@ -121,16 +134,26 @@ export function startSync(store: EditorStore, opts: SyncOptions): SyncHandle {
     saving = false;
     if (stopped) return;
     const now = store.getState();
+    // The server holds `version` at `revision`: later changes, if any, go out next.
+    const settled = (revision: number) => {
+      now.markSaved(version, revision);
+      if (store.getState().version === version) clearLocalDrafts(storage, planId);
+      else {
+        writeLocal();
+        scheduleSave();
+      }
+    };
     switch (r.kind) {
       case 'saved':
-        now.markSaved(version, r.plan.currentRevision);
-        if (store.getState().version === version) clearLocalDrafts(storage, planId);
-        else {
-          writeLocal();
-          scheduleSave();
-        }
+        settled(r.plan.currentRevision);
         break;
       case 'stale':
+        // A save whose answer was lost (the signal dropped after the server stored it) comes back
+        // as stale with the server holding exactly what is being sent: that is saved, not a conflict.
+        if (r.current && canonicalJson(r.current.document) === canonicalJson(s.doc)) {
+          settled(r.currentRevision);
+          break;
+        }
         now.setSaveState('conflict', { conflict: { currentRevision: r.currentRevision, document: r.current?.document ?? null } });
         break;
       case 'not-editable':

@@ -16,6 +16,10 @@ it('draws offline, reloads, and saves the plan when back online', async () => {
   await page.getByRole('button', { name: 'Create plan' }).click();
   await page.waitForURL(/\/plans\/\d+$/);
   const id = new URL(page.url()).pathname.split('/').pop();
+  // What the saves answered, for the failure message: a save that fails here says why.
+  const saves: string[] = [];
+  page.on('requestfailed', (r) => r.method() === 'PUT' && saves.push(`PUT failed: ${r.failure()?.errorText}`));
+  page.on('response', (r) => r.request().method() === 'PUT' && saves.push(`PUT ${r.status()}`));
   const node = (nodeId: string) => page.locator(`.react-flow__node[data-id="${nodeId}"]`);
   const saveState = () => page.getByTestId('save-state').getAttribute('data-state');
   await node('W1').waitFor();
@@ -32,7 +36,9 @@ it('draws offline, reloads, and saves the plan when back online', async () => {
   await node('H1').waitFor();
 
   await context.setOffline(false);
-  await expect.poll(saveState, { timeout: 20_000 }).toBe('saved');
+  await expect.poll(saveState, { timeout: 20_000 }).toBe('saved').catch((e: Error) => {
+    throw new Error(`${e.message}; the saves: ${saves.join(', ') || 'none'}`);
+  });
   const saved = await (await context.request.get(`${BASE_URL}/api/plans/${id}`)).json();
   expect(saved.plan.document.nodes.map((n: { id: string }) => n.id)).toContain('H1');
 });

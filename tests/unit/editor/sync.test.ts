@@ -2,7 +2,7 @@ import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { findStarter } from '@/lib/domain/starters';
 import { createApi, type EditorApi, type SaveResult } from '@/components/editor/api-client';
 import { createEditorStore } from '@/components/editor/store';
-import { draftKey, readLocalDraft, startSync } from '@/components/editor/sync';
+import { draftKey, draftToRestore, readLocalDraft, startSync } from '@/components/editor/sync';
 
 class MemoryStorage {
   map = new Map<string, string>();
@@ -82,6 +82,21 @@ describe('sync', () => {
     sync.stop();
   });
 
+  it('takes a stale answer whose server copy is exactly what was sent as saved (a save whose answer was lost)', async () => {
+    const { store, api, storage, sync } = setup([]);
+    vi.mocked(api.save).mockImplementationOnce(async (_id, body) => ({ kind: 'stale', currentRevision: 3, current: { currentRevision: 3, document: structuredClone(body.document) } as never }));
+    store.getState().addNode('mat', { x: 0, y: 0 });
+    await vi.advanceTimersByTimeAsync(2000);
+    expect(store.getState()).toMatchObject({ saveState: 'saved', baseRevision: 3, conflict: null });
+    expect(readLocalDraft(storage, 7)).toBeNull();
+    // A server copy that differs is still a conflict.
+    vi.mocked(api.save).mockImplementationOnce(async () => ({ kind: 'stale', currentRevision: 4, current: { currentRevision: 4, document: findStarter('tangent-bucket')!.build() } as never }));
+    store.getState().addNode('truck', { x: 200, y: 0 });
+    await vi.advanceTimersByTimeAsync(2000);
+    expect(store.getState()).toMatchObject({ saveState: 'conflict', baseRevision: 3 });
+    sync.stop();
+  });
+
   it('shows a refused document as "invalid" with its issues', async () => {
     const { store, sync } = setup([{ kind: 'invalid', issues: [{ path: 'nodes[0].id', message: 'must not be empty' }] }]);
     store.getState().addNode('mat', { x: 0, y: 0 });
@@ -142,5 +157,17 @@ describe('sync', () => {
     expect((await createApi(answer(413)).save(1, { expectedRevision: 1, document: doc })).kind).toBe('too-large');
     expect(await createApi(answer(401)).check(doc)).toEqual({ kind: 'signed-out' });
     expect((await createApi(answer(413)).check(doc)).kind).toBe('too-large');
+  });
+
+  it('restores a kept copy only when the server does not already hold that very document', () => {
+    const storage = new MemoryStorage();
+    const doc = findStarter('tangent-bucket')!.build();
+    storage.setItem(draftKey(7, 1), JSON.stringify({ doc, savedAt: '2026-05-01T00:00:00Z' }));
+    const changed = { ...doc, title: 'Changed on the device' };
+    expect(draftToRestore(storage, 7, changed)).toMatchObject({ baseRevision: 1 });
+    expect(storage.length).toBe(1);
+    // Same document, keys in another order: the save went through; nothing to restore, copy dropped.
+    expect(draftToRestore(storage, 7, JSON.parse(JSON.stringify(Object.fromEntries(Object.entries(doc).reverse()))))).toBeNull();
+    expect(storage.length).toBe(0);
   });
 });
