@@ -36,9 +36,11 @@ it('draws offline, reloads, and saves the plan when back online', async () => {
   await node('H1').waitFor();
 
   await context.setOffline(false);
-  await expect.poll(saveState, { timeout: 20_000 }).toBe('saved').catch((e: Error) => {
-    throw new Error(`${e.message}; the saves: ${saves.join(', ') || 'none'}`);
-  });
+  try {
+    await expect.poll(saveState, { timeout: 20_000 }).toBe('saved');
+  } catch (e) {
+    throw new Error(`${(e as Error).message}; the saves: ${saves.join(', ') || 'none'}`);
+  }
   const saved = await (await context.request.get(`${BASE_URL}/api/plans/${id}`)).json();
   expect(saved.plan.document.nodes.map((n: { id: string }) => n.id)).toContain('H1');
 });
