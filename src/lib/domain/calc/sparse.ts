@@ -39,9 +39,6 @@ export interface LdlFactor {
   lIm: Float64Array;
   dRe: Float64Array;
   dIm: Float64Array;
-  /** Scratch for solves, so repeated solves allocate nothing. */
-  workRe: Float64Array;
-  workIm: Float64Array;
 }
 
 /** Factorises A = L·D·Lᵀ (complex symmetric, no conjugation) after a minimum-degree ordering. */
@@ -142,7 +139,7 @@ export function factorSymmetric(matrix: SymmetricEntries): LdlFactor {
   }
   const parent = new Int32Array(n).fill(-1);
   for (let k = 0; k < n; k++) if (colPtr[k + 1] > colPtr[k]) parent[k] = rowPos[colPtr[k]];
-  return { size: n, perm, colPtr, rowPos, parent, lRe, lIm, dRe, dIm, workRe: wRe, workIm: wIm };
+  return { size: n, perm, colPtr, rowPos, parent, lRe, lIm, dRe, dIm };
 }
 
 /**
