@@ -10,7 +10,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { BASE_URL, Client, signedIn } from '../helpers/api';
 import { closeTestDb, makePerson, makeTeam, PASSWORD, planDocument, testDb } from '../helpers/factories';
 import { setBody, uniqueTag } from '../helpers/equipment';
-import { documents, formBodies, jsonBodies, type FuzzBody } from '../helpers/fuzz-bodies';
+import { documents, formBodies, jsonBodies, photoBodies, type FuzzBody } from '../helpers/fuzz-bodies';
 import { approvedPlan } from '../helpers/practice';
 import { waitForSteady } from '../helpers/wait';
 
@@ -94,6 +94,7 @@ const routes: Record<string, Route> = {
   'PUT /api/equipment/settings': { method: 'PUT', path: () => '/api/equipment/settings', bodies: () => jsonBodies(['testIntervalMonths', 'limits']) },
   'POST /api/plans/:id/records': { method: 'POST', path: () => `/api/plans/${ids.draft}/records`, bodies: () => jsonBodies(['workDate', 'location', 'clearanceRef', 'detector']) },
   'POST /api/records/:id/entries': { method: 'POST', path: () => `/api/records/${ids.record}/entries`, bodies: () => jsonBodies(['clientId', 'at', 'type', 'people', 'visitors', 'item', 'by', 'detector', 'phases', 'link', 'setTag', 'groundEndFirst', 'text'], { type: fc.constantFrom('sign-on', 'briefing', 'voltage-test', 'install', 'remove', 'deviation', 'note', 'x') }) },
+  'POST /api/records/:id/photos': { method: 'POST', path: () => `/api/records/${ids.record}/photos`, bodies: photoBodies },
   'POST /api/records/:id/close': { method: 'POST', path: () => `/api/records/${ids.record}/close`, bodies: () => jsonBodies([]) },
   'POST /api/exercises': { method: 'POST', path: () => '/api/exercises', bodies: () => jsonBodies(['planId', 'revision', 'kind', 'removeLinks', 'changeLinks', 'prompt', 'teachingNote', 'published']) },
   'POST /api/exercises/propose': { method: 'POST', path: () => '/api/exercises/propose', bodies: () => jsonBodies(['planId', 'revision']) },
@@ -103,7 +104,7 @@ const routes: Record<string, Route> = {
   'POST /api/exercises/:id/attempts': { method: 'POST', path: () => `/api/exercises/${ids.exercise}/attempts`, bodies: () => jsonBodies(['answer']) },
 };
 
-const COUNTED = ['organizations', 'users', 'plans', 'plan_revisions', 'plan_comments', 'plan_decisions', 'password_tokens', 'grounding_sets', 'set_tests', 'set_events', 'organization_settings', 'field_records', 'field_record_entries', 'practice_exercises', 'practice_attempts'];
+const COUNTED = ['organizations', 'users', 'plans', 'plan_revisions', 'plan_comments', 'plan_decisions', 'password_tokens', 'grounding_sets', 'set_tests', 'set_events', 'organization_settings', 'field_records', 'field_record_entries', 'field_record_photos', 'practice_exercises', 'practice_attempts'];
 
 /** Row counts and a checksum of the plans and revisions, as one comparable string. */
 async function snapshot(): Promise<string> {

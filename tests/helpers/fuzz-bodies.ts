@@ -95,3 +95,21 @@ export const documents: fc.Arbitrary<unknown> = fc.oneof(
   planArb,
   fc.tuple(planArb, fc.constantFrom('format', 'version', 'system', 'criteria', 'nodes', 'links', 'title'), anyValue).map(([doc, key, v]) => ({ ...(doc as object), [key]: v })),
 );
+
+/**
+ * Photo upload bodies: multipart with a `photo` part (a file of any declared type whose bytes are
+ * never a real image), `caption` and `clientId`, sometimes as a plain field, truncated, with a
+ * boundary other than the header's, or not multipart at all.
+ */
+export function photoBodies(): fc.Arbitrary<FuzzBody> {
+  const part = fc.oneof(
+    fc.tuple(fc.constantFrom('photo', 'caption', 'clientId', 'x'), hostileString).map(([name, v]) => `Content-Disposition: form-data; name="${name}"\r\n\r\n${v}`),
+    fc.tuple(fc.constantFrom('photo', 'file'), fc.string({ maxLength: 20 }), fc.constantFrom('image/jpeg', 'image/png', 'image/heic', 'text/plain', ''), fc.string({ maxLength: 400 }))
+      .map(([name, file, type, bytes]) => `Content-Disposition: form-data; name="${name}"; filename="${file}"\r\n${type ? `Content-Type: ${type}\r\n` : ''}\r\n${bytes}`),
+  );
+  const multipart = fc.tuple(fc.array(part, { maxLength: 4 }), fc.constantFrom('fz', 'other'), fc.boolean(), fc.nat({ max: 400 })).map(([parts, boundary, cut, at]) => {
+    const body = `${parts.map((p) => `--${boundary}\r\n${p}\r\n`).join('')}--${boundary}--\r\n`;
+    return { contentType: 'multipart/form-data; boundary=fz', body: cut ? body.slice(0, at) : body };
+  });
+  return fc.oneof({ weight: 6, arbitrary: multipart }, { weight: 1, arbitrary: jsonBodies(['photo', 'caption', 'clientId']) });
+}
