@@ -61,3 +61,17 @@ describe('the main menu', () => {
     expect(hrefs).toEqual(MENU.filter((item) => !item.for || canAny(role, item.for)).map((item) => item.href));
   });
 });
+
+describe('/not-for-your-role opened directly', () => {
+  it('is a 403 in the shell that names only real roles from `need`, and a generic line without them', async () => {
+    const lead = await (await World.get()).client('crew_lead');
+    const named = await lead.get('/not-for-your-role?need=admin,<script>,reviewer');
+    expect(named.status).toBe(403);
+    expect(named.text).toContain('<nav aria-label="Main"');
+    expect(named.text).toContain(`This needs the ${ROLE_LABELS.admin} or ${ROLE_LABELS.reviewer} role`);
+    expect(named.text).not.toContain('<script>,');
+    const bare = await lead.get('/not-for-your-role');
+    expect(bare.status).toBe(403);
+    expect(bare.text).toContain('Your role does not allow this page.');
+  });
+});
