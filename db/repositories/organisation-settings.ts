@@ -24,11 +24,15 @@ export async function getOrganisationSettings(db: Db, organizationId: number): P
   };
 }
 
-/** Saves the general settings; the equipment settings in the same row are left as they are. */
+/**
+ * Saves the general settings; the equipment settings in the same row are left as they are. One
+ * INSERT … ON DUPLICATE KEY UPDATE of this save's columns, so saves racing for a new
+ * organisation's first row all land (a read-then-insert lost to the other insert).
+ */
 export async function saveOrganisationSettings(db: Db, organizationId: number, actorId: string, body: OrganisationSettingsBody): Promise<OrganisationSettings> {
-  const values = { organizationId, timeZone: body.timeZone, paperSize: body.paperSize, units: body.units, updatedBy: actorId };
-  const row = await db.models.OrganizationSetting.findByPk(organizationId);
-  if (row) await row.update(values);
-  else await db.models.OrganizationSetting.create({ ...values, testIntervalMonths: null, resistanceLimits: '[]' });
+  await db.models.OrganizationSetting.upsert(
+    { organizationId, timeZone: body.timeZone, paperSize: body.paperSize, units: body.units, updatedBy: actorId, testIntervalMonths: null, resistanceLimits: '[]' },
+    { fields: ['timeZone', 'paperSize', 'units', 'updatedBy'] },
+  );
   return { ...body, timeZoneIsDefault: false };
 }

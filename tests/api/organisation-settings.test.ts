@@ -1,7 +1,9 @@
 /** The organisation's time zone, paper size and units: saved by an admin, by field on error, used for times on pages. */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Client, signedIn } from '../helpers/api';
-import { closeTestDb, makeTeam, PASSWORD, planDocument } from '../helpers/factories';
+import { saveSettings } from '@db/repositories/equipment-settings';
+import { saveOrganisationSettings } from '@db/repositories/organisation-settings';
+import { closeTestDb, makeOrganization, makePerson, makeTeam, PASSWORD, planDocument, testDb } from '../helpers/factories';
 import { mailTo } from '../helpers/wait';
 
 let admin: Client;
@@ -28,6 +30,34 @@ describe('organisation settings', () => {
     // Saving the equipment settings afterwards keeps the general ones.
     await admin.put('/api/equipment/settings', { testIntervalMonths: 6 });
     expect((await admin.get('/api/organisation/settings')).body.settings.timeZone).toBe('Pacific/Kiritimati');
+  });
+
+  it('saves the first settings of a new organisation from many requests at once, general and equipment, without a 5xx', async () => {
+    const fresh = await makeTeam();
+    const other = await signedIn(fresh.admin.email, PASSWORD);
+    // The row does not exist yet: every request finds none and inserts; one insert wins, the rest must update.
+    const answers = await Promise.all([
+      ...Array.from({ length: 8 }, (_, i) => other.put('/api/organisation/settings', { timeZone: i % 2 ? 'UTC' : 'Pacific/Kiritimati', paperSize: 'a4', units: 'metric' })),
+      ...Array.from({ length: 4 }, () => other.put('/api/equipment/settings', { testIntervalMonths: 6 })),
+    ]);
+    expect(answers.map((a) => a.status)).toEqual(Array(12).fill(200));
+    const settings = (await other.get('/api/organisation/settings')).body.settings;
+    expect(settings).toMatchObject({ timeZoneIsDefault: false, paperSize: 'a4', units: 'metric' });
+    expect((await other.get('/api/equipment/settings')).body.settings).toMatchObject({ testIntervalMonths: 6, intervalIsDefault: false });
+  });
+
+  it('stores the first settings row once when many saves of both kinds race for it (repository, over the pool)', async () => {
+    for (let round = 0; round < 5; round += 1) {
+      const organizationId = await makeOrganization();
+      const admin = await makePerson(organizationId, 'admin');
+      const saves = await Promise.allSettled([
+        ...Array.from({ length: 6 }, () => saveOrganisationSettings(testDb(), organizationId, admin.id, { timeZone: 'UTC', paperSize: 'a4', units: 'metric' })),
+        ...Array.from({ length: 3 }, () => saveSettings(testDb(), organizationId, admin.id, { testIntervalMonths: 6 })),
+      ]);
+      expect(saves.filter((s) => s.status === 'rejected').map((s) => String((s as PromiseRejectedResult).reason))).toEqual([]);
+      const row = await testDb().models.OrganizationSetting.findByPk(organizationId);
+      expect(row).toMatchObject({ timeZone: 'UTC', paperSize: 'a4', units: 'metric', testIntervalMonths: 6 });
+    }
   });
 
   it('refuses a bad zone and paper size by field, and a crew lead may not save', async () => {
