@@ -1,6 +1,7 @@
 /** The organisation's general settings: time zone, paper size and default units (migration 0011). */
 import type { UnitSystem } from '@/lib/domain/units';
 import type { OrganisationSettingsBody, PaperSize } from '@/lib/schemas/organisation';
+import { runtimeTimeZone } from '@/lib/time-format';
 import type { Db } from '@db/connection';
 
 export interface OrganisationSettings {
@@ -12,7 +13,7 @@ export interface OrganisationSettings {
 }
 
 /** The zone the server runs in; the default until the organisation picks its own. */
-export const serverTimeZone = (): string => Intl.DateTimeFormat().resolvedOptions().timeZone || 'UTC';
+export const serverTimeZone = runtimeTimeZone;
 
 export async function getOrganisationSettings(db: Db, organizationId: number): Promise<OrganisationSettings> {
   const row = await db.models.OrganizationSetting.findByPk(organizationId);

@@ -1,5 +1,6 @@
 /** Process wrapper for `npm run check -- [--text] [--equipment SETS.csv] FILE`; the logic is in check-command.ts. */
 import { readFile } from 'node:fs/promises';
+import { formatDate, runtimeTimeZone } from '@/lib/time-format';
 import { runCheckCommand } from './check-command';
 
 process.exitCode = await runCheckCommand({
@@ -7,5 +8,6 @@ process.exitCode = await runCheckCommand({
   readFile: (path) => readFile(path, 'utf8'),
   stdout: (text) => process.stdout.write(text),
   stderr: (text) => process.stderr.write(text),
-  today: new Date().toISOString().slice(0, 10),
+  // The calendar day of the machine running the check (its zone); --today overrides it.
+  today: formatDate(new Date(), runtimeTimeZone()),
 });

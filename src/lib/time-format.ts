@@ -35,6 +35,9 @@ export function formatTime(at: Date, zone: string): string {
   return `${p.hour}:${p.minute}`;
 }
 
+/** The zone this runtime is set to (a crew's device, or the server); UTC when it names none. */
+export const runtimeTimeZone = (): string => Intl.DateTimeFormat().resolvedOptions().timeZone || 'UTC';
+
 /** Day, 24-hour time and the zone's short name: "2026-03-08 01:30 CST". */
 export function formatDateTime(at: Date, zone: string): string {
   const p = parts(at, zone);

@@ -1,5 +1,6 @@
 /** The device's view of a record: waiting entries replayed by the shared rules, judged with the server's words. */
 import { describe, expect, it } from 'vitest';
+import { judgingDay } from '@/components/records/SetChoice';
 import { judgeOnDevice, withPending } from '@/components/records/offline/local-view';
 import type { Pending } from '@/components/records/offline/outbox';
 import type { RecordView } from '@/components/records/types';
@@ -44,5 +45,13 @@ describe('the record on the device', () => {
     expect(judgeOnDevice(tested, stamp(install('INV-2')), new Date('2026-05-04T09:00:00Z'))?.message).toContain('INV-2 was due for its test on 2026-01-01');
     expect(judgeOnDevice(tested, stamp(install('VISITING-3')))?.code).toBe('SET_NOT_USABLE');
     expect(judgeOnDevice(tested, stamp(install('INV-1')))).toBeNull();
+  });
+
+  it('judges sets on the date of the device\'s own calendar, not the UTC date, and never before the server\'s day', () => {
+    const at = new Date('2026-05-04T20:00:00Z'); // 2026-05-05 at 10:00 in UTC+14, 2026-05-04 in UTC
+    expect(judgingDay(base, at, 'Pacific/Kiritimati')).toBe('2026-05-05');
+    expect(judgingDay(base, at, 'UTC')).toBe('2026-05-04');
+    // A device whose calendar is behind the server's day (UTC−12: still 2026-05-04 08:00) takes the server's day.
+    expect(judgingDay({ ...base, inventory: { ...base.inventory!, today: '2026-05-05' } }, at, 'Etc/GMT+12')).toBe('2026-05-05');
   });
 });

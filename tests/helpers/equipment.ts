@@ -1,8 +1,10 @@
 /** Grounding sets for the server tests: a set body, dates relative to today, a CSV post. */
 import { addDays, addMonths } from '@/lib/domain/equipment';
+import { formatDate, runtimeTimeZone } from '@/lib/time-format';
 import type { Client } from './api';
 
-export const today = () => new Date().toISOString().slice(0, 10);
+/** Today as the server judges it for an organisation that has not chosen a zone (the server's own). */
+export const today = () => formatDate(new Date(), runtimeTimeZone());
 export const monthsAgo = (months: number, plusDays = 0) => addDays(addMonths(today(), -months), plusDays);
 let counter = 0;
 export const uniqueTag = (prefix = 'T') => `${prefix}-${Date.now().toString(36)}-${(counter += 1)}`;

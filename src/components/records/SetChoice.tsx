@@ -6,11 +6,15 @@
  */
 import { useState } from 'react';
 import { inventoryStatusOf, usableSets } from '@/lib/domain/field-record';
+import { runtimeTimeZone, formatDate } from '@/lib/time-format';
 import type { RecordView } from './types';
 
-/** The day sets are judged on here: the device's date, never earlier than the server's when the copy was made. */
-export function judgingDay(record: RecordView, now = new Date()): string {
-  const device = now.toISOString().slice(0, 10);
+/**
+ * The day sets are judged on here: the date on the device's own calendar (its zone, not UTC),
+ * never earlier than the organisation's day the server gave when the copy was made.
+ */
+export function judgingDay(record: RecordView, now = new Date(), zone = runtimeTimeZone()): string {
+  const device = formatDate(now, zone);
   const server = record.inventory?.today ?? device;
   return device > server ? device : server;
 }

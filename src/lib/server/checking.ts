@@ -17,7 +17,7 @@ import type { UnitSystem } from '@/lib/domain/units';
 import type { PlanDocument } from '@/lib/schemas/plan';
 import { AppError } from './errors';
 import { log } from './log';
-import { today } from './equipment-http';
+import { organisationToday } from './organisation';
 
 /**
  * Time budget of one check, queueing included. A plan drawn for one structure checks in
@@ -71,10 +71,10 @@ export async function checkDocument(document: PlanDocument, options: CheckOption
 
 /**
  * Checks a document against the organisation's grounding sets (only those it names; a plan that
- * names none is checked as before) on today's date, at the given stage.
+ * names none is checked as before) on the organisation's today, at the given stage.
  */
 export async function checkForOrganization(db: Db, organizationId: number, document: PlanDocument, stage: CheckStage = 'draft', units: UnitSystem = 'metric'): Promise<CheckReport> {
   const tags = setTagsOf(document);
   if (tags.length === 0) return checkDocument(document, { units });
-  return checkDocument(document, { inventory: await inventoryFor(db, organizationId, tags), today: today(), stage, units });
+  return checkDocument(document, { inventory: await inventoryFor(db, organizationId, tags), today: await organisationToday(organizationId, new Date(), db), stage, units });
 }

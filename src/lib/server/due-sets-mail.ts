@@ -8,9 +8,9 @@ import { Op, UniqueConstraintError } from 'sequelize';
 import { getDb, type Db } from '@db/connection';
 import { addDays, dueState, DUE_SOON_DAYS, type DueState } from '@/lib/domain/equipment';
 import { rolesFor } from '@/lib/domain/permissions';
-import { today } from './equipment-http';
 import { queueMail, type OutgoingMail } from './mail';
 import { compose } from './mail-messages';
+import { organisationToday } from './organisation';
 import { publicUrl } from './settings';
 
 export const DUE_SETS_KIND = 'equipment.due';
@@ -64,17 +64,17 @@ async function runFor(db: Db, organizationId: number, day: string, baseUrl: stri
 
 /** Runs the day's job for every organisation (or the ones given); returns how many this run claimed. */
 export async function runDueSetsMail(db: Db = getDb(), now = new Date(), organizationIds?: number[]): Promise<number> {
-  const day = today(now);
   const orgs = organizationIds ?? (await db.models.Organization.findAll({ attributes: ['id'] })).map((o) => o.id);
   let claimed = 0;
-  for (const id of orgs) if (await runFor(db, id, day, publicUrl())) claimed += 1;
+  // Each organisation's own day: its message goes out after its midnight, not Greenwich's.
+  for (const id of orgs) if (await runFor(db, id, await organisationToday(id, now, db), publicUrl())) claimed += 1;
   return claimed;
 }
 
 let timer: ReturnType<typeof setInterval> | null = null;
 const HOUR = 60 * 60 * 1000;
 
-/** Starts this process's hourly run (idempotent); the first run after midnight UTC claims the day. */
+/** Starts this process's hourly run (idempotent); the first run after an organisation's midnight claims its day. */
 export function startDueSetsMailJob(): void {
   if (timer) return;
   const run = () => void runDueSetsMail().catch(() => undefined);

@@ -1,11 +1,6 @@
-/** Shared by the equipment endpoints: today's date and repository outcomes turned into errors. */
+/** Shared by the equipment endpoints: repository outcomes turned into errors. */
 import type { WriteOutcome } from '@db/repositories/equipment';
 import { AppError } from './errors';
-
-/** Today as the server's clock sees it, in UTC (due dates are whole days). */
-export function today(now = new Date()): string {
-  return now.toISOString().slice(0, 10);
-}
 
 /** The value of a successful write, or the AppError its outcome means. */
 export function unwrap<T>(outcome: WriteOutcome<T>): T {

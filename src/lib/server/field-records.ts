@@ -10,14 +10,14 @@ import { inventorySetStatus, judgeAppend, judgeCloseOut, nextStep, recordPlanFro
 import type { Person } from '@/lib/domain/people';
 import { can } from '@/lib/domain/permissions';
 import type { EntryInput } from '@/lib/schemas/field-record';
-import { today } from './equipment-http';
 import { AppError } from './errors';
 import { roleRefusal } from './guards';
 import { queueMail } from './mail';
 import { closedMessages, deviationMessage } from './record-mail';
+import { organisationToday } from './organisation';
 import { publicUrl } from './settings';
 
-/** The organisation's sets as the record needs them, with the day they are judged on. */
+/** The organisation's sets as the record needs them, with the day they are judged on (the organisation's own). */
 export interface InventoryCopy {
   today: string;
   sets: (InventorySet & { description: string })[];
@@ -29,7 +29,7 @@ export interface InventoryCopy {
  */
 export async function inventoryCopy(organizationId: number, now = new Date()): Promise<InventoryCopy> {
   const sets = (await allSets(getDb(), organizationId)).map((s) => ({ tag: s.tag, description: s.description, status: s.status, testDueOn: s.testDueOn, statusReason: s.statusReason }));
-  return { today: today(now), sets };
+  return { today: await organisationToday(organizationId, now), sets };
 }
 
 /** Is a set fit to go on: a tag of the organisation's inventory, in service, not past its test date. */

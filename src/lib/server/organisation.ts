@@ -1,6 +1,7 @@
-/** The signed-in person's organisation settings for a page, read once per request. */
+/** The signed-in person's organisation settings for a page, read once per request, and the organisation's day. */
 import type { AstroGlobal } from 'astro';
-import { getDb } from '@db/connection';
+import { getDb, type Db } from '@db/connection';
+import { formatDate } from '@/lib/time-format';
 import { getOrganisationSettings, serverTimeZone, type OrganisationSettings } from '@db/repositories/organisation-settings';
 
 const cache = new WeakMap<Request, Promise<OrganisationSettings>>();
@@ -14,4 +15,18 @@ export function pageOrganisation(Astro: Pick<AstroGlobal, 'locals' | 'request'>)
     cache.set(Astro.request, found);
   }
   return found;
+}
+
+/**
+ * Today's date where the organisation works (its time zone): test due dates, "not in the future"
+ * and the day a record judges sets on. A UTC day would pass a set on the morning after its due
+ * date east of Greenwich.
+ */
+export async function organisationToday(organizationId: number, now = new Date(), db: Db = getDb()): Promise<string> {
+  return formatDate(now, (await getOrganisationSettings(db, organizationId)).timeZone);
+}
+
+/** The same day for a page, from the settings the page has already read. */
+export async function pageToday(Astro: Pick<AstroGlobal, 'locals' | 'request'>, now = new Date()): Promise<string> {
+  return formatDate(now, (await pageOrganisation(Astro)).timeZone);
 }

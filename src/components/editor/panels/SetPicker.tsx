@@ -7,12 +7,14 @@ import { useEffect, useId, useState } from 'react';
 import type { LinkOf, PlanLink } from '@/lib/schemas/plan';
 import { dueState, type SetRecord } from '@/lib/domain/equipment';
 import { useEditor } from '@/components/editor/selectors';
+import { runtimeTimeZone, formatDate } from '@/lib/time-format';
 
 type Jumper = LinkOf<'jumper'>;
 type ListedSet = SetRecord & { id: number; description: string };
 
 const DUE_WORDS = { overdue: 'test overdue', soon: 'test due soon', ok: '' } as const;
-const today = () => new Date().toISOString().slice(0, 10);
+/** The date on the device's own calendar, which the due marks count from. */
+const today = () => formatDate(new Date(), runtimeTimeZone());
 
 /** The jumper with the set's figures on it (what the check will use anyway). */
 export function withSet(jumper: Jumper, set: SetRecord): Jumper {

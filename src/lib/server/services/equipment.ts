@@ -10,19 +10,20 @@ import { saveSettings } from '@db/repositories/equipment-settings';
 import type { Person } from '@/lib/domain/people';
 import type { CreateSetBody, PatchSetBody, SetTestBody, SettingsBody } from '@/lib/schemas/equipment';
 import { parseInventoryCsv } from '@/lib/schemas/equipment-csv';
-import { today, unwrap } from '@/lib/server/equipment-http';
+import { unwrap } from '@/lib/server/equipment-http';
 import { AppError } from '@/lib/server/errors';
 import { assertCan } from '@/lib/server/guards';
+import { organisationToday } from '@/lib/server/organisation';
 
-/** A date a person says something happened on cannot be after today (UTC). */
-function notInFuture(path: string, day: string | null | undefined): void {
-  if (day && day > today()) throw new AppError('VALIDATION', { issues: [{ path, message: 'must not be in the future' }] });
+/** A date a person says something happened on cannot be after today where the organisation works. */
+async function notInFuture(person: Person, path: string, day: string | null | undefined): Promise<void> {
+  if (day && day > (await organisationToday(person.organizationId))) throw new AppError('VALIDATION', { issues: [{ path, message: 'must not be in the future' }] });
 }
 
 /** Adds a set; a tag the organisation already uses is SET_TAG_TAKEN naming it. */
 export async function addSet(person: Person, input: CreateSetBody): Promise<SetJson> {
   assertCan(person, 'sets.manage');
-  notInFuture('lastTestedOn', input.lastTestedOn);
+  await notInFuture(person, 'lastTestedOn', input.lastTestedOn);
   const { created } = unwrap(await saveSets(getDb(), person.organizationId, person.id, [input], 'create'));
   return created[0];
 }
@@ -37,7 +38,7 @@ export async function importSets(person: Person, csv: string): Promise<{ created
     new AppError('VALIDATION', { message: 'Some rows are not valid; nothing was imported. Fix the cells listed and import the whole file again.', issues });
   const parsed = parseInventoryCsv(csv);
   if (!parsed.ok) throw invalid(parsed.issues);
-  const day = today();
+  const day = await organisationToday(person.organizationId);
   const future = parsed.rows.filter((r) => r.body.lastTestedOn && r.body.lastTestedOn > day);
   if (future.length) throw invalid(future.map((r) => ({ path: `line ${r.line}.lastTestedOn`, message: 'must not be in the future' })));
   const outcome = await saveSets(getDb(), person.organizationId, person.id, parsed.rows.map((r) => r.body), 'upsert');
@@ -48,14 +49,14 @@ export async function importSets(person: Person, csv: string): Promise<{ created
 /** Records an in-service test; a pass can put the set back in service. */
 export async function recordSetTest(person: Person, setId: number, input: SetTestBody) {
   assertCan(person, 'sets.test');
-  notInFuture('testedOn', input.testedOn);
+  await notInFuture(person, 'testedOn', input.testedOn);
   return unwrap(await recordTest(getDb(), person.organizationId, setId, person.id, input));
 }
 
 /** Edits a set, changes its status (a reason is required out of service) or records a fault. */
 export async function changeSet(person: Person, setId: number, input: PatchSetBody): Promise<SetJson> {
   assertCan(person, 'sets.manage');
-  notInFuture('faultOn', input.faultOn);
+  await notInFuture(person, 'faultOn', input.faultOn);
   return unwrap(await updateSet(getDb(), person.organizationId, setId, person.id, input));
 }
 
