@@ -2,7 +2,8 @@
  * Every page, signed out and as each role (the editor included), loaded in Chromium with the
  * server's Content-Security-Policy in force: no policy violation, and axe-core finds no serious or
  * critical accessibility problem. axe is evaluated through the DevTools protocol, which the page's
- * CSP does not govern, so the audit itself needs no exception in the policy.
+ * CSP does not govern, so the audit itself needs no exception in the policy. The words a person
+ * reads carry no program names: no camelCase or snake_case field name outside a code label.
  */
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
@@ -16,11 +17,17 @@ const axeSource = readFileSync(createRequire(import.meta.url).resolve('axe-core/
 
 let browser: Browser;
 let planIds: { draft: number; approved: number; submitted: number };
+let otherIds: { set: number; record: number; exercise: number };
 beforeAll(async () => {
   browser = await launchBrowser();
   const admin = await signedIn('admin@demo.test', DEMO_PASSWORD);
   const byStatus = async (status: string) => (await admin.get(`/api/plans?status=${status}`)).body.items[0].id as number;
   planIds = { draft: await byStatus('draft'), approved: await byStatus('approved'), submitted: await byStatus('submitted') };
+  otherIds = {
+    set: (await admin.get('/api/equipment')).body.items[0].id,
+    record: (await admin.get('/api/records?status=closed')).body.items[0].id,
+    exercise: (await admin.get('/api/exercises')).body.items[0].id,
+  };
 });
 afterAll(async () => {
   await browser?.close();
@@ -28,7 +35,7 @@ afterAll(async () => {
 
 interface Finding {
   page: string;
-  kind: 'csp' | 'axe' | 'status';
+  kind: 'csp' | 'axe' | 'status' | 'words';
   detail: string;
 }
 
@@ -40,6 +47,19 @@ async function audit(page: Page, path: string, waitFor?: string): Promise<Findin
   if (waitFor) await page.waitForSelector(waitFor, { timeout: 20_000 });
   const violations = await page.evaluate(() => (window as unknown as { __cspViolations?: string[] }).__cspViolations ?? []);
   for (const v of violations) findings.push({ page: path, kind: 'csp', detail: v });
+  // Program names in the text a person reads (rule ids and tags shown as <code> labels, and what
+  // people typed into fields, are not words of ours).
+  const names = await page.evaluate(() => {
+    const found = new Set<string>();
+    const walker = document.createTreeWalker(document.body, NodeFilter.SHOW_TEXT);
+    for (let node = walker.nextNode(); node; node = walker.nextNode()) {
+      const parent = node.parentElement;
+      if (!parent || parent.closest('code, script, style, textarea, [data-user-text]') || !parent.getClientRects().length) continue;
+      for (const m of node.textContent?.matchAll(/\b(?:[a-z]+(?:[A-Z][a-z0-9]+)+|[a-z]+(?:_[a-z0-9]+)+)\b/g) ?? []) found.add(m[0]);
+    }
+    return [...found];
+  });
+  for (const n of names) findings.push({ page: path, kind: 'words', detail: n });
   await page.evaluate(axeSource);
   const results = await page.evaluate(async () => {
     const axe = (window as unknown as { axe: { run: (ctx: Document, opts: object) => Promise<{ violations: Array<{ id: string; impact: string; nodes: Array<{ target: string[] }> }> }> } }).axe;
@@ -86,6 +106,16 @@ const signedInPages = (): Array<[string, string?]> => [
   [`/library/${planIds.approved}`],
   ['/admin/users'],
   ['/admin/mail'],
+  ['/settings'],
+  ['/equipment'],
+  [`/equipment/${otherIds.set}`],
+  ['/equipment/settings'],
+  ['/records'],
+  [`/records/${otherIds.record}`],
+  ['/practice'],
+  [`/practice/${otherIds.exercise}`],
+  ['/practice/new'],
+  ['/practice/progress'],
 ];
 
 describe('every page under its CSP, with axe', () => {

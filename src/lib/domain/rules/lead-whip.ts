@@ -27,7 +27,7 @@ export function checkLeadWhip(ctx: RuleContext): Finding[] {
   const force = ctx.fault.peakForceNPerM;
   if (force === null || !Number.isFinite(force) || force < WHIP_FORCE_N_PER_M) return [];
   const { model } = ctx;
-  const basis = `common practice: slack leads whip under fault current; force 2×10⁻⁷·i_p²/d at the first peak; threshold ${WHIP_FORCE_N_PER_M} N/m is Bondmap's own`;
+  const basis = `common practice: slack leads whip under fault current; the force between phase leads is 2×10⁻⁷·I²/d (N/m, with I the first-peak current in A and d the phase spacing in m); threshold ${WHIP_FORCE_N_PER_M} N/m is Bondmap's own`;
   const findings: Finding[] = [];
   const leadsTo = new Map<string, string[]>();
   for (const jumper of model.linksOf('jumper')) {
