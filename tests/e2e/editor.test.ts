@@ -3,6 +3,7 @@ import type { Page } from 'playwright-core';
 import { extractText, getDocumentProxy } from 'unpdf';
 import { expect, it } from 'vitest';
 import { pdfText } from '@/components/editor/export';
+import { programNames } from '../helpers/words';
 import { BASE_URL } from '../helpers/api';
 import { fillFaultData, useBrowser } from '../helpers/e2e';
 
@@ -97,6 +98,7 @@ it('a crew lead draws from a starter, sees the check follow each change, reloads
   expect(flat(text)).toContain('rod-barricade');
   expect(flat(text)).toContain(flat(pdfText(message)).slice(0, 40));
   expect(flat(text)).toContain('Not approved yet');
+  expect(programNames(flat(text)), 'program names in the printed words').toEqual([]);
   // The embedded font prints Ω itself, and the header names the structure.
   expect(text).toContain('Ω');
   expect(flat(text)).toContain('Structure: Pole 7 (wood)');

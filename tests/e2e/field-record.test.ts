@@ -7,6 +7,7 @@ import { readFileSync } from 'node:fs';
 import sharp from 'sharp';
 import { extractText, getDocumentProxy } from 'unpdf';
 import { describe, expect, it } from 'vitest';
+import { programNames } from '../helpers/words';
 import { BASE_URL } from '../helpers/api';
 import { nextStepHeading, startRecordOnDemoPlan, useBrowser } from '../helpers/e2e';
 
@@ -85,6 +86,7 @@ describe('the field record on a phone', () => {
     const { text } = await extractText(await getDocumentProxy(bytes), { mergePages: true });
     const flat = text.replace(/\s+/g, ' ');
     for (const part of ['Pole 14 on Wren Hollow Road', 'Invented detector 7', `ON jA with set ${used.jA}`, 'OFF jA', 'Photos', 'Every set on', 'Closed by Casimir Abernethy', 'approved detector']) expect(flat).toContain(part);
+    expect(programNames(flat), 'program names in the record sheet').toEqual([]);
   });
 });
 

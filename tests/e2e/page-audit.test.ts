@@ -12,6 +12,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { BASE_URL, signedIn } from '../helpers/api';
 import { launchBrowser } from '../helpers/browser';
 import { DEMO_PASSWORD } from '../helpers/e2e';
+import { PROGRAM_NAME } from '../helpers/words';
 
 const axeSource = readFileSync(createRequire(import.meta.url).resolve('axe-core/axe.min.js'), 'utf8');
 
@@ -49,16 +50,16 @@ async function audit(page: Page, path: string, waitFor?: string): Promise<Findin
   for (const v of violations) findings.push({ page: path, kind: 'csp', detail: v });
   // Program names in the text a person reads (rule ids and tags shown as <code> labels, and what
   // people typed into fields, are not words of ours).
-  const names = await page.evaluate(() => {
+  const names = await page.evaluate((pattern) => {
     const found = new Set<string>();
     const walker = document.createTreeWalker(document.body, NodeFilter.SHOW_TEXT);
     for (let node = walker.nextNode(); node; node = walker.nextNode()) {
       const parent = node.parentElement;
       if (!parent || parent.closest('code, script, style, textarea, [data-user-text]') || !parent.getClientRects().length) continue;
-      for (const m of node.textContent?.matchAll(/\b(?:[a-z]+(?:[A-Z][a-z0-9]+)+|[a-z]+(?:_[a-z0-9]+)+)\b/g) ?? []) found.add(m[0]);
+      for (const m of node.textContent?.matchAll(new RegExp(pattern, 'g')) ?? []) found.add(m[0]);
     }
     return [...found];
-  });
+  }, PROGRAM_NAME);
   for (const n of names) findings.push({ page: path, kind: 'words', detail: n });
   await page.evaluate(axeSource);
   const results = await page.evaluate(async () => {

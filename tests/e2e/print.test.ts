@@ -8,6 +8,7 @@ import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import type { Page } from 'playwright-core';
 import { extractText, getDocumentProxy } from 'unpdf';
 import { afterAll, expect, it } from 'vitest';
+import { programNames } from '../helpers/words';
 import { BASE_URL, signedIn } from '../helpers/api';
 import { useBrowser } from '../helpers/e2e';
 import { closeTestDb, makeTeam, PASSWORD, planDocument } from '../helpers/factories';
@@ -80,6 +81,7 @@ it('prints the plan page as the sheet: Letter, title above the drawing, no edito
   for (const id of ids) expect(flat, `element ${id} on the printed drawing`).toContain(id);
   for (const words of ['Structure:', 'Prepared by', 'Findings', 'Jumpers', 'Crew sign-on', 'test for absence of voltage']) expect(flat).toContain(words);
   for (const chrome of ['Fold tools', 'Export', 'Undo']) expect(flat).not.toContain(chrome);
+  expect(programNames(flat), 'program names in the printed words').toEqual([]);
 });
 
 it('prints on A4 for an organisation that chose A4, as its PDF does', async () => {
