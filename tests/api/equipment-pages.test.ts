@@ -60,7 +60,7 @@ it('keeps the settings page for admins', async () => {
 
 it('adds a set from the page form, naming each bad field and saving nothing on a bad one', async () => {
   const form = (fields: Record<string, string>) => admin.request('POST', '/equipment', { body: new URLSearchParams({ action: 'add', ...fields }).toString(), headers: { 'content-type': 'application/x-www-form-urlencoded', origin: new URL(admin.baseUrl).origin } });
-  const good = { tag: 'P-FORM', description: 'From the form', cable: '2/0', lengthM: '2.4', clampKind: 'grounding', clampKa: '27', clampCycles: '15', connection: 'ferrule', inServiceOn: '2025-03-01', lastTestedOn: '' };
+  const good = { tag: 'P-FORM', description: 'From the form', cable: '2/0', lengthM: '2.4 m', clampKind: 'grounding', clampKa: '27', clampCycles: '15', connection: 'ferrule', inServiceOn: '2025-03-01', lastTestedOn: '' };
   const bad = await form({ ...good, lengthM: 'long', inServiceOn: '2025-02-30' });
   expect(bad.status).toBe(200);
   expect(bad.text).toContain('Nothing was saved; fix the fields marked below.');
@@ -70,4 +70,39 @@ it('adds a set from the page form, naming each bad field and saving nothing on a
   expect(ok.status).toBe(303);
   expect(ok.headers.get('location')).toMatch(/^\/equipment\/\d+$/);
   expect((await admin.get('/api/equipment?q=P-FORM')).body.items[0]).toMatchObject({ lengthM: 2.4, testDueOn: '2026-03-01' });
+});
+
+it('reads and shows set lengths and limit lengths in feet for an organisation in feet, and names bad limit cells in words', async () => {
+  // A new organisation reads feet (the default units).
+  const team = await makeTeam();
+  const own = await signedIn(team.admin.email, PASSWORD);
+  const headers = { 'content-type': 'application/x-www-form-urlencoded', origin: new URL(own.baseUrl).origin };
+  const post = (path: string, fields: Record<string, string>) => own.request('POST', path, { body: new URLSearchParams(fields).toString(), headers });
+  const form = await own.get('/equipment');
+  expect(form.text).toContain('Length (ft in)');
+  const added = await post('/equipment', { action: 'add', tag: 'F-FEET', cable: '2/0', lengthM: '10 ft 6 in', clampKind: 'grounding', clampKa: '27', clampCycles: '15', connection: 'ferrule', inServiceOn: '2025-03-01' });
+  expect(added.status).toBe(303);
+  const stored = (await own.get('/api/equipment?q=F-FEET')).body.items[0];
+  expect(stored.lengthM).toBeCloseTo(10.5 * 0.3048, 9); // 1 ft = 0.3048 m exactly (international foot)
+  expect(row((await own.get('/equipment')).text, 'F-FEET')).toContain('10 ft 6 in');
+  expect((await own.get(added.headers.get('location')!)).text).toContain('2/0 copper, 10 ft 6 in');
+  const badLength = await post('/equipment', { action: 'add', tag: 'F-BAD', cable: '2/0', lengthM: 'ten feet', clampKind: 'grounding', clampKa: '27', clampCycles: '15', connection: 'ferrule', inServiceOn: '2025-03-01' });
+  expect(badLength.text).toContain('must be a length in feet and inches');
+  expect((await own.get('/api/equipment?q=F-BAD')).body.total).toBe(0);
+
+  const settings = (limits: string) => post('/equipment/settings', { testIntervalMonths: '12', limits });
+  const bad = await settings('2/0, 10 ft, 1.2\n4/0, far, x');
+  expect(bad.text).toContain('Nothing was saved');
+  expect(bad.text).toContain('Limit row 2, length, must be a length in feet and inches');
+  expect(bad.text).toContain('Limit row 2, limit, must be a number');
+  expect(bad.text).not.toMatch(/maxLengthM|limitMilliohms|resistanceLimits/);
+  expect((await settings('2/0, 10 ft, 1.2\n4/0, 3.05 m, 0.9')).text).toContain('Saved');
+  expect((await own.get('/api/equipment/settings')).body.settings.resistanceLimits).toEqual([
+    { cable: '2/0', maxLengthM: 3.048, limitMilliohms: 1.2 },
+    { cable: '4/0', maxLengthM: 3.05, limitMilliohms: 0.9 },
+  ]);
+  // Shown again as typed: feet where they were feet, metres kept exact where they were not whole inches.
+  const page = (await own.get('/equipment/settings')).text;
+  expect(page).toContain('2/0, 10 ft 0 in, 1.2');
+  expect(page).toContain('4/0, 3.05 m, 0.9');
 });

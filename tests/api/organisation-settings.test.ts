@@ -128,6 +128,8 @@ describe('organisation settings', () => {
     const planPage = (await reviewer.get(`/plans/${plan.id}`)).body;
     const summary = /<code [^>]*data-rule-id="rod-barricade"[^>]*>rod-barricade<\/code>\s*<p>([^<]*)<\/p>/.exec(planPage.slice(planPage.indexOf('data-testid="plan-summary"')));
     expect(summary?.[1]).toBe(barricade?.[1]);
+    // Its system data too: 0.9 m of phase spacing reads in feet and inches.
+    expect(planPage.slice(planPage.indexOf('data-testid="plan-summary"'))).toMatch(/phase spacing 2 ft 11 in</);
   });
 
   it('lists a refused submit\'s blockers on the plan page with their rule ids as labels', async () => {

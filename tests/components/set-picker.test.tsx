@@ -42,7 +42,8 @@ it("fills the jumper from the set and shows the figures as the set's", async () 
   expect(jumper(store)).toMatchObject({ equipmentId: 'GS-42', cable: '4/0', lengthM: 4.5, clampKa: 43, clampCycles: 30, clampKind: 'live-line', connection: 'bare-strands' });
   const taken = await within(picker).findByTestId('set-taken');
   expect(taken.textContent).toContain("From the set's record");
-  expect(taken.textContent).toContain('cable 4/0, 4.5 m');
+  // The editor reads feet by default: 4.5 m is 14.76 ft, 14 ft 9 in.
+  expect(taken.textContent).toContain('cable 4/0, 14 ft 9 in');
   await userEvent.click(within(picker).getByRole('button', { name: 'No set' }));
   await waitFor(() => expect(jumper(store).equipmentId).toBeUndefined());
   // Undo brings the set back: taking a set is one ordinary edit.

@@ -5,7 +5,7 @@
  * it can be searched and read back.
  */
 import { CAUTION, type CheckReport } from '@/lib/domain/report';
-import { formatForcePerLength, formatLength, formatWeight, type UnitSystem } from '@/lib/domain/units';
+import { formatFigure, formatForcePerLength, formatLength, formatWeight, type UnitSystem } from '@/lib/domain/units';
 import type { PlanDocument } from '@/lib/schemas/plan';
 import type { Shape } from './drawing-scene';
 
@@ -112,7 +112,7 @@ export const PAPER: Record<PaperSize, { w: number; h: number }> = { letter: { w:
 const shift = (s: Shape, dx: number, dy: number): Shape =>
   s.t === 'poly' ? { ...s, pts: s.pts.map((v, i) => v + (i % 2 ? dy : dx)) } : { ...s, x: s.x + dx, y: s.y + dy };
 
-const f = (v: number | null | undefined, d = 2) => (v === null || v === undefined ? '-' : v.toLocaleString('en', { maximumFractionDigits: d }));
+const f = (v: number | null | undefined, d = 2) => formatFigure(v, d, '-');
 
 /**
  * Builds the PDF sheet. The drawing is drawn as vectors from the document; `widths` are the

@@ -34,6 +34,17 @@ export function lengthInputValue(m: number | undefined, system: UnitSystem): str
   return system === 'metric' ? String(round(m, 3)) : formatLength(m, 'imperial');
 }
 
+/**
+ * A stored length written so that parseLength reads back exactly the same metres: feet and inches
+ * when it is a whole number of inches (what an imperial user typed), else metres with "m" (a
+ * length imported in metres is not rounded to the inch on its way back).
+ */
+export function exactLengthText(m: number, system: UnitSystem): string {
+  if (system === 'metric') return String(m);
+  const inches = feetFromMetres(m) * 12;
+  return Math.abs(inches - Math.round(inches)) < 1e-6 ? formatLength(m, 'imperial') : `${m} m`;
+}
+
 export type ParsedNumber = { ok: true; value: number } | { ok: false; message: string };
 
 /**
@@ -104,6 +115,10 @@ const fixed = (value: number, digits: number) => (Number.isFinite(value) ? value
 export const NEWTONS_PER_POUND_FORCE = 4.4482216152605;
 /** One avoirdupois pound is exactly 0.45359237 kg. */
 export const KILOGRAMS_PER_POUND = 0.45359237;
+
+/** A figure of the tables (plan page, drawer, print sheet, PDF): up to `digits` decimals, grouped; `missing` when there is none. */
+export const formatFigure = (v: number | null | undefined, digits = 2, missing = '—'): string =>
+  v === null || v === undefined ? missing : v.toLocaleString('en', { maximumFractionDigits: digits });
 
 /** Current in kA to one decimal: "10.5 kA". Display only; the branded constructor lives in calc/units.ts. */
 export const formatKiloamps = (valueKa: number) => `${fixed(valueKa, 1)} kA`;

@@ -1,9 +1,9 @@
 /** The drawer's figure tabs: contacts per worker, jumpers, rods and the fault. */
 import type { CheckReport, Figure } from '@/lib/domain/report';
-import { formatForcePerLength, formatLength, milliampsNumber, type UnitSystem } from '@/lib/domain/units';
+import { formatFigure, formatForcePerLength, formatLength, milliampsNumber, type UnitSystem } from '@/lib/domain/units';
 import type { PlanDocument } from '@/lib/schemas/plan';
 
-export const fmt = (v: Figure | undefined, digits = 2): string => (v === null || v === undefined ? '—' : v.toLocaleString('en', { maximumFractionDigits: digits }));
+export const fmt = (v: Figure | undefined, digits = 2): string => formatFigure(v, digits);
 const ma = milliampsNumber;
 
 function Table({ head, rows, empty, onRow }: { head: string[]; rows: (string | number)[][]; empty: string; onRow?: (i: number) => void }) {

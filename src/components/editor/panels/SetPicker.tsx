@@ -6,6 +6,7 @@
 import { useEffect, useId, useState } from 'react';
 import type { LinkOf, PlanLink } from '@/lib/schemas/plan';
 import { dueState, type SetRecord } from '@/lib/domain/equipment';
+import { formatLength } from '@/lib/domain/units';
 import { useEditor } from '@/components/editor/selectors';
 import { runtimeTimeZone, formatDate } from '@/lib/time-format';
 
@@ -51,6 +52,7 @@ export function SetPicker({ jumper }: { jumper: Jumper }) {
   const [query, setQuery] = useState('');
   const [open, setOpen] = useState(false);
   const updateElement = useEditor((s) => s.updateElement);
+  const units = useEditor((s) => s.units);
   const { sets, failed } = useInServiceSets(open, query);
   const day = today();
   const take = (set: ListedSet) => {
@@ -72,7 +74,7 @@ export function SetPicker({ jumper }: { jumper: Jumper }) {
             Set <span className="font-semibold">{jumper.equipmentId}</span>. From the set's record:
           </p>
           <ul className="list-disc pl-5">
-            <li>cable {jumper.cable}, {jumper.lengthM} m</li>
+            <li>cable {jumper.cable}, {formatLength(jumper.lengthM, units)}</li>
             {jumper.clampKa !== undefined && <li>clamps {jumper.clampKa} kA for {jumper.clampCycles ?? '—'} cycles{jumper.clampKind ? `, ${jumper.clampKind}` : ''}</li>}
             {jumper.connection && <li>{jumper.connection} connection</li>}
           </ul>
@@ -97,7 +99,7 @@ export function SetPicker({ jumper }: { jumper: Jumper }) {
               return (
                 <li key={set.id} role="option" aria-selected={set.tag === jumper.equipmentId}>
                   <button type="button" className="min-h-touch w-full px-3 py-1 text-left hover:bg-paper" onClick={() => take(set)} data-tag={set.tag}>
-                    <span className="font-semibold">{set.tag}</span> · {set.cable}, {set.lengthM} m, {set.clampKa} kA
+                    <span className="font-semibold">{set.tag}</span> · {set.cable}, {formatLength(set.lengthM, units)}, {set.clampKa} kA
                     {due !== 'ok' && <span className={`ml-1 font-semibold ${due === 'overdue' ? 'text-blocker' : 'text-warning'}`}>{due === 'overdue' ? '◆' : '⧗'} {DUE_WORDS[due]}</span>}
                   </button>
                 </li>
