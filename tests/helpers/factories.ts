@@ -34,7 +34,7 @@ export async function makeOrganization(name = 'Invented Test Co-operative'): Pro
 export async function makePerson(organizationId: number, role: Role, overrides: { email?: string; name?: string; disabled?: boolean } = {}) {
   passwordHash ??= hash(PASSWORD, { memoryCost: 19456, timeCost: 2, parallelism: 1 });
   const email = overrides.email ?? `${role}-${unique()}@example.test`;
-  const person = await createPerson(testDb(), { organizationId, email, name: overrides.name ?? `Test ${role}`, role, passwordHash: await passwordHash });
+  const person = await createPerson(testDb(), { organizationId, email, name: overrides.name ?? `Test ${role.replace('_', ' ')}`, role, passwordHash: await passwordHash });
   if (overrides.disabled) await testDb().models.User.update({ disabled: true }, { where: { id: person.id } });
   return { ...person, password: PASSWORD };
 }

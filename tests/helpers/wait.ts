@@ -3,6 +3,7 @@
  * fixed time and hoping. The one place a test waits.
  */
 import type { Client } from './api';
+import { programNames } from './words';
 
 export interface WaitOptions {
   /** How long to keep asking, in ms (default 10 s). */
@@ -56,9 +57,13 @@ export function waitRetryAfter(seconds: number, marginMs = 100): Promise<void> {
 export type CaughtMail = { subject: string; text: string; to: string[] } & Record<string, any>;
 
 /** The first caught message to `address` whose subject contains `subjectPart`, as `reader` sees it. */
-export function mailTo(reader: Client, address: string, subjectPart: string, deadline = 10_000): Promise<any> {
-  return waitFor(
+export async function mailTo(reader: Client, address: string, subjectPart: string, deadline = 10_000): Promise<any> {
+  const mail: CaughtMail = await waitFor(
     async () => ((await reader.get(`/api/dev/mail?to=${encodeURIComponent(address)}`)).body.messages as CaughtMail[] | undefined)?.find((m) => m.subject.includes(subjectPart)),
     { deadline, what: `mail to ${address} about "${subjectPart}"` },
   );
+  // Every message a test reads is also read for program names (links and addresses left out: they are not words).
+  const names = programNames(`${mail.subject}\n${mail.text}`.replace(/https?:\/\/\S+|\S+@\S+/g, ''));
+  if (names.length) throw new Error(`mail "${mail.subject}" to ${address} says program names: ${names.join(', ')}`);
+  return mail;
 }
