@@ -75,7 +75,7 @@ describe('grounding sets', () => {
   });
 
   it('store the test interval saved on the page as the API reads it', async () => {
-    const page = await admin.form('/equipment/settings', { testIntervalMonths: '9', limits: '2/0, 4, 1.2' });
+    const page = await admin.form('/equipment/settings', { testIntervalMonths: '9', limits: '2/0, 4 m, 1.2' });
     expect(page.status).toBe(200);
     const api = await admin.get('/api/equipment/settings');
     expect(api.body.settings).toMatchObject({ testIntervalMonths: 9, resistanceLimits: [{ cable: '2/0', maxLengthM: 4, limitMilliohms: 1.2 }] });
