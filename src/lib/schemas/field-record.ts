@@ -1,5 +1,6 @@
 /** Bodies and queries of the field-record API; the field screen sends the same shapes. */
 import { z } from 'zod';
+import { isCalendarDate } from '@/lib/domain/equipment';
 import { BRIEFING_ITEMS } from '@/lib/domain/field-record/types';
 
 const str = (max: number) => z.string({ required_error: 'is required', invalid_type_error: 'must be a string' }).trim().max(max, `must be at most ${max} characters`);
@@ -39,7 +40,8 @@ export const RECORD_STATUSES = ['open', 'closed'] as const;
 export type RecordStatus = (typeof RECORD_STATUSES)[number];
 
 export const createRecordBody = z.object({
-  workDate: z.string({ invalid_type_error: 'must be a string' }).regex(/^\d{4}-\d{2}-\d{2}$/, 'must be a date such as 2026-05-04').optional(),
+  // A real day, not only its shape: 2026-02-30 reached the database as a 500.
+  workDate: z.string({ invalid_type_error: 'must be a string' }).refine(isCalendarDate, 'must be a real date such as 2026-05-04').optional(),
   location: str(200).optional(),
   clearanceRef: str(120).optional(),
   detector: str(200).optional(),

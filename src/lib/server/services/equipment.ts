@@ -41,6 +41,10 @@ export async function importSets(person: Person, csv: string): Promise<{ created
   const future = parsed.rows.filter((r) => r.body.lastTestedOn && r.body.lastTestedOn > day);
   if (future.length) throw invalid(future.map((r) => ({ path: `line ${r.line}.lastTestedOn`, message: 'must not be in the future' })));
   const outcome = await saveSets(getDb(), person.organizationId, person.id, parsed.rows.map((r) => r.body), 'upsert');
+  if (outcome.kind === 'needs-test') {
+    const held = new Set(outcome.tags?.map((tag) => tag.toLowerCase()));
+    throw invalid(parsed.rows.filter((r) => held.has(r.body.tag.toLowerCase())).map((r) => ({ path: `line ${r.line}.status`, message: 'cannot be in-service until the set passes a test (it carried fault current or failed its last test); record a passing test, or import it as out-of-service' })));
+  }
   if (outcome.kind !== 'ok') throw invalid([{ path: 'tag', message: 'another import changed the same tags at the same moment; import again' }]);
   return outcome.value;
 }

@@ -1,0 +1,148 @@
+/**
+ * Attacks on the newest surfaces, each kept as a test: a way around "only a passing test puts a
+ * set back in service", a looser limit than the organisation's, and dates the database would refuse.
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Client } from '../helpers/api';
+import { signedIn } from '../helpers/api';
+import { addDays } from '@/lib/domain/equipment';
+import { CSV_HEADER, monthsAgo, postCsv, setBody, today } from '../helpers/equipment';
+import { saveSettings } from '@db/repositories/equipment-settings';
+import { closeTestDb, makeOrganization, makePerson, makeTeam, PASSWORD, testDb } from '../helpers/factories';
+import { approvedPlan, entry, readyToInstall } from '../helpers/records';
+
+let team: Awaited<ReturnType<typeof makeTeam>>;
+let admin: Client;
+let lead: Client;
+let reviewer: Client;
+beforeAll(async () => {
+  team = await makeTeam();
+  admin = await signedIn(team.admin.email, PASSWORD);
+  lead = await signedIn(team.lead.email, PASSWORD);
+  reviewer = await signedIn(team.reviewer.email, PASSWORD);
+});
+afterAll(closeTestDb);
+
+/** A set that carried fault current: out of service until it passes a test. */
+async function faultedSet(overrides: Record<string, unknown> = {}) {
+  const body = setBody(overrides);
+  const created = await admin.post('/api/equipment', body);
+  expect(created.status).toBe(201);
+  const id = created.body.set.id as number;
+  expect((await admin.patch(`/api/equipment/${id}`, { faultOn: today() })).body.set.status).toBe('out-of-service');
+  return { id, body };
+}
+
+const csvRow = (b: Record<string, unknown>, status: string) =>
+  [b.tag, b.description, b.cable, b.lengthM, b.clampKind, b.clampKa, b.clampCycles, b.connection, b.inServiceOn, status, '', b.lastTestedOn].join(',');
+
+describe('the CSV import and a set that must pass a test', () => {
+  it('refuses to put a faulted set back in service by naming it in-service, and changes nothing', async () => {
+    const { id, body } = await faultedSet();
+    const response = await postCsv(admin, `${CSV_HEADER}\n${csvRow(body, 'in-service')}\n`);
+    expect(response.status, response.text).toBe(400);
+    expect(response.body.error.issues).toEqual([{ path: 'line 2.status', message: expect.stringMatching(/passes a test/) }]);
+    const after = await admin.get(`/api/equipment/${id}`);
+    expect(after.body.set.status).toBe('out-of-service');
+    expect(after.body.events.filter((e: { kind: string }) => e.kind === 'imported')).toEqual([]);
+  });
+
+  it('refuses it too when the file has no status column (which reads as in service)', async () => {
+    const { id, body } = await faultedSet();
+    const header = 'tag,cable,lengthM,clampKind,clampKa,clampCycles,connection,inServiceOn';
+    const row = [body.tag, body.cable, body.lengthM, body.clampKind, body.clampKa, body.clampCycles, body.connection, body.inServiceOn].join(',');
+    const response = await postCsv(admin, `${header}\n${row}\n`);
+    expect(response.status, response.text).toBe(400);
+    expect(response.body.error.issues[0].path).toBe('line 2.status');
+    expect((await admin.get(`/api/equipment/${id}`)).body.set.status).toBe('out-of-service');
+  });
+
+  it('still lets the import keep it out of service, or retire it', async () => {
+    const { id, body } = await faultedSet();
+    const out = await postCsv(admin, `${CSV_HEADER}\n${csvRow({ ...body, description: 'Re-labelled' }, 'out-of-service').replace(',out-of-service,,', ',out-of-service,Carried fault current,')}\n`);
+    expect(out.status, out.text).toBe(200);
+    expect((await admin.get(`/api/equipment/${id}`)).body.set).toMatchObject({ status: 'out-of-service', description: 'Re-labelled' });
+  });
+
+  it('so a faulted set cannot go on a jumper after a round trip through the import', async () => {
+    const { body } = await faultedSet();
+    await postCsv(admin, `${CSV_HEADER}\n${csvRow(body, 'in-service')}\n`);
+    const planId = await approvedPlan(lead, reviewer);
+    const record = (await lead.post(`/api/plans/${planId}/records`, {})).body.id as number;
+    await readyToInstall(lead, record, team.lead.id);
+    const install = await lead.post(`/api/records/${record}/entries`, entry('install', { link: 'jA', setTag: body.tag, groundEndFirst: true }));
+    expect(install.status, install.text).toBe(409);
+    expect(install.body.error.code).toBe('SET_NOT_USABLE');
+  });
+});
+
+describe("a tester's limit against the organisation's", () => {
+  it("refuses a limit looser than the organisation's for the set, and stores no test", async () => {
+    const own = await makeTeam();
+    const ownAdmin = await signedIn(own.admin.email, PASSWORD);
+    const ownLead = await signedIn(own.lead.email, PASSWORD);
+    expect((await ownAdmin.put('/api/equipment/settings', { resistanceLimits: [{ cable: '2/0', maxLengthM: 10, limitMilliohms: 1.5 }] })).status).toBe(200);
+    const id = (await ownAdmin.post('/api/equipment', setBody({ cable: '2/0', lengthM: 3 }))).body.set.id as number;
+    expect((await ownAdmin.patch(`/api/equipment/${id}`, { faultOn: today() })).status).toBe(200);
+    const loose = await ownLead.post(`/api/equipment/${id}/tests`, { testedOn: today(), resistanceMilliohms: 5, limitMilliohms: 10 });
+    expect(loose.status, loose.text).toBe(400);
+    expect(loose.body.error.issues).toEqual([{ path: 'limitMilliohms', message: expect.stringMatching(/1\.5/) }]);
+    const detail = await ownAdmin.get(`/api/equipment/${id}`);
+    expect(detail.body.set.status).toBe('out-of-service');
+    expect(detail.body.tests).toEqual([]);
+    // A stricter limit is the tester's to choose; so is any limit where the organisation set none.
+    const strict = await ownLead.post(`/api/equipment/${id}/tests`, { testedOn: today(), resistanceMilliohms: 0.9, limitMilliohms: 1 });
+    expect(strict.status, strict.text).toBe(201);
+    expect(strict.body.test).toMatchObject({ passed: true, limitMilliohms: 1 });
+    const other = (await ownAdmin.post('/api/equipment', setBody({ cable: '4/0', lengthM: 3 }))).body.set.id as number;
+    expect((await ownLead.post(`/api/equipment/${other}/tests`, { testedOn: today(), resistanceMilliohms: 5, limitMilliohms: 10 })).status).toBe(201);
+  });
+});
+
+describe('a passing test dated before what took the set out', () => {
+  it('is kept in the history but does not put a faulted set back in service', async () => {
+    const { id } = await faultedSet();
+    const old = await lead.post(`/api/equipment/${id}/tests`, { testedOn: monthsAgo(1), resistanceMilliohms: 0.5, limitMilliohms: 1.5 });
+    expect(old.status, old.text).toBe(201);
+    expect(old.body.test.passed).toBe(true);
+    expect(old.body.set.status).toBe('out-of-service');
+    expect((await admin.patch(`/api/equipment/${id}`, { status: 'in-service' })).body.error?.code).toBe('SET_NEEDS_TEST');
+    // A test on the day of the fault or after it does.
+    const fresh = await lead.post(`/api/equipment/${id}/tests`, { testedOn: today(), resistanceMilliohms: 0.5, limitMilliohms: 1.5 });
+    expect(fresh.body.set).toMatchObject({ status: 'in-service', statusReason: null });
+  });
+
+  it('nor a set that failed a later test', async () => {
+    const created = await admin.post('/api/equipment', setBody());
+    const id = created.body.set.id as number;
+    const failed = await lead.post(`/api/equipment/${id}/tests`, { testedOn: today(), resistanceMilliohms: 9, limitMilliohms: 1.5 });
+    expect(failed.body.set.status).toBe('out-of-service');
+    const earlier = await lead.post(`/api/equipment/${id}/tests`, { testedOn: addDays(today(), -1), resistanceMilliohms: 0.5, limitMilliohms: 1.5 });
+    expect(earlier.status, earlier.text).toBe(201);
+    expect(earlier.body.set.status).toBe('out-of-service');
+  });
+});
+
+describe('dates the schema lets through', () => {
+  it.each(['2026-02-30', '2026-13-01', '0000-00-00'])('a record opened for %s is 400 naming workDate, and nothing is stored', async (workDate) => {
+    const planId = await approvedPlan(lead, reviewer);
+    const response = await lead.post(`/api/plans/${planId}/records`, { workDate });
+    expect(response.status, response.text).toBe(400);
+    expect(response.body.error.issues[0].path).toBe('workDate');
+    expect(await testDb().models.FieldRecord.count({ where: { planId } })).toBe(0);
+  });
+});
+
+describe('two equipment-settings saves at once', () => {
+  it('keep both: an interval saved beside a save of the limits is not put back (repository, over the pool)', async () => {
+    const limits = [{ cable: '2/0' as const, maxLengthM: 10, limitMilliohms: 1.5 }];
+    for (let round = 0; round < 6; round += 1) {
+      const organizationId = await makeOrganization();
+      const actor = await makePerson(organizationId, 'admin');
+      await saveSettings(testDb(), organizationId, actor.id, { testIntervalMonths: 12 });
+      await Promise.all([saveSettings(testDb(), organizationId, actor.id, { testIntervalMonths: 6 }), saveSettings(testDb(), organizationId, actor.id, { resistanceLimits: limits })]);
+      const row = await testDb().models.OrganizationSetting.findByPk(organizationId);
+      expect({ round, interval: row?.testIntervalMonths, limits: JSON.parse(row?.resistanceLimits ?? '[]') }).toEqual({ round, interval: 6, limits });
+    }
+  });
+});
