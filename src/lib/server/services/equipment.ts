@@ -22,6 +22,7 @@ function notInFuture(path: string, day: string | null | undefined): void {
 /** Adds a set; a tag the organisation already uses is SET_TAG_TAKEN naming it. */
 export async function addSet(person: Person, input: CreateSetBody): Promise<SetJson> {
   assertCan(person, 'sets.manage');
+  notInFuture('inServiceOn', input.inServiceOn);
   notInFuture('lastTestedOn', input.lastTestedOn);
   const { created } = unwrap(await saveSets(getDb(), person.organizationId, person.id, [input], 'create'));
   return created[0];
@@ -38,8 +39,9 @@ export async function importSets(person: Person, csv: string): Promise<{ created
   const parsed = parseInventoryCsv(csv);
   if (!parsed.ok) throw invalid(parsed.issues);
   const day = today();
-  const future = parsed.rows.filter((r) => r.body.lastTestedOn && r.body.lastTestedOn > day);
-  if (future.length) throw invalid(future.map((r) => ({ path: `line ${r.line}.lastTestedOn`, message: 'must not be in the future' })));
+  // A set never tested is due one interval after it went into service: a day to come would keep it "in date" for that long.
+  const future = parsed.rows.flatMap((r) => (['inServiceOn', 'lastTestedOn'] as const).filter((key) => (r.body[key] ?? '') > day).map((key) => ({ path: `line ${r.line}.${key}`, message: 'must not be in the future' })));
+  if (future.length) throw invalid(future);
   const outcome = await saveSets(getDb(), person.organizationId, person.id, parsed.rows.map((r) => r.body), 'upsert');
   if (outcome.kind === 'needs-test') {
     const held = new Set(outcome.tags?.map((tag) => tag.toLowerCase()));
@@ -59,6 +61,7 @@ export async function recordSetTest(person: Person, setId: number, input: SetTes
 /** Edits a set, changes its status (a reason is required out of service) or records a fault. */
 export async function changeSet(person: Person, setId: number, input: PatchSetBody): Promise<SetJson> {
   assertCan(person, 'sets.manage');
+  notInFuture('inServiceOn', input.inServiceOn);
   notInFuture('faultOn', input.faultOn);
   return unwrap(await updateSet(getDb(), person.organizationId, setId, person.id, input));
 }
