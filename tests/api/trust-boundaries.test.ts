@@ -8,8 +8,9 @@ import { signedIn } from '../helpers/api';
 import { addDays } from '@/lib/domain/equipment';
 import { CSV_HEADER, monthsAgo, postCsv, setBody, today } from '../helpers/equipment';
 import { saveSettings } from '@db/repositories/equipment-settings';
-import { closeTestDb, makeOrganization, makePerson, makeTeam, PASSWORD, testDb } from '../helpers/factories';
+import { closeTestDb, makeOrganization, makePerson, makeTeam, PASSWORD, planDocument, testDb } from '../helpers/factories';
 import { approvedPlan, entry, readyToInstall } from '../helpers/records';
+import { uniqueTag } from '../helpers/equipment';
 
 let team: Awaited<ReturnType<typeof makeTeam>>;
 let admin: Client;
@@ -176,5 +177,33 @@ describe('a set put in service on a day still to come', () => {
     expect(imported.status, imported.text).toBe(400);
     expect(imported.body.error.issues).toEqual([{ path: 'line 2.inServiceOn', message: 'must not be in the future' }]);
     expect(await testDb().models.GroundingSet.count({ where: { tag: body.tag } })).toBe(0);
+  });
+});
+
+describe("a set other than the plan's own on a jumper", () => {
+  it('goes on, flagged for the reviewer, since the plan was approved with the named set', async () => {
+    const [planned, other, spare] = [uniqueTag('PLAN'), uniqueTag('SUB'), uniqueTag('SPARE')];
+    for (const tag of [planned, other, spare]) expect((await admin.post('/api/equipment', setBody({ tag, lengthM: 2 }))).status).toBe(201);
+    const base = planDocument();
+    const document = { ...base, links: base.links.map((l) => (l.id === 'jA' ? { ...l, equipmentId: planned } : l)) };
+    const created = await lead.post('/api/plans', { title: `Named-set pole ${planned}`, document });
+    expect(created.status, created.text).toBe(201);
+    const planId = created.body.plan.id as number;
+    expect((await lead.post(`/api/plans/${planId}/submit`)).status).toBe(200);
+    expect((await reviewer.post(`/api/plans/${planId}/review`, { decision: 'approve' })).status).toBe(200);
+    const record = (await lead.post(`/api/plans/${planId}/records`, {})).body.id as number;
+    await readyToInstall(lead, record, team.lead.id);
+    const swapped = await lead.post(`/api/records/${record}/entries`, entry('install', { link: 'jA', setTag: other, groundEndFirst: true }));
+    expect(swapped.status, swapped.text).toBe(201);
+    expect(swapped.body.entry.flags).toEqual([{ code: 'set-not-as-planned', message: expect.stringContaining(planned) }]);
+    // A jumper the plan names no set for takes any fit set without a flag.
+    const free = await lead.post(`/api/records/${record}/entries`, entry('install', { link: 'jB', setTag: spare, groundEndFirst: true }));
+    expect(free.body.entry.flags).toEqual([]);
+    // The plan's own set, in any case, raises none; the close-out mail carries the flag.
+    expect((await lead.post(`/api/records/${record}/entries`, entry('remove', { link: 'jB' }))).status).toBe(201);
+    expect((await lead.post(`/api/records/${record}/entries`, entry('remove', { link: 'jA' }))).status).toBe(201);
+    const own = await lead.post(`/api/records/${record}/entries`, entry('install', { link: 'jA', setTag: planned.toLowerCase(), groundEndFirst: true }));
+    expect(own.status, own.text).toBe(201);
+    expect(own.body.entry.flags).toEqual([]);
   });
 });
