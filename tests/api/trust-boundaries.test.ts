@@ -2,6 +2,7 @@
  * Attacks on the newest surfaces, each kept as a test: a way around "only a passing test puts a
  * set back in service", a looser limit than the organisation's, and dates the database would refuse.
  */
+import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Client } from '../helpers/api';
 import { signedIn } from '../helpers/api';
@@ -11,6 +12,7 @@ import { saveSettings } from '@db/repositories/equipment-settings';
 import { closeTestDb, makeOrganization, makePerson, makeTeam, PASSWORD, planDocument, testDb } from '../helpers/factories';
 import { approvedPlan, entry, readyToInstall } from '../helpers/records';
 import { uniqueTag } from '../helpers/equipment';
+import { upload } from '../helpers/photos';
 
 let team: Awaited<ReturnType<typeof makeTeam>>;
 let admin: Client;
@@ -205,5 +207,25 @@ describe("a set other than the plan's own on a jumper", () => {
     const own = await lead.post(`/api/records/${record}/entries`, entry('install', { link: 'jA', setTag: planned.toLowerCase(), groundEndFirst: true }));
     expect(own.status, own.text).toBe(201);
     expect(own.body.entry.flags).toEqual([]);
+  });
+});
+
+describe("a PNG photo's original", () => {
+  it('keeps every colour: the metadata is dropped without turning it into a 256-colour palette', async () => {
+    const width = 96;
+    const height = 64;
+    const pixels = Buffer.alloc(width * height * 3);
+    for (let i = 0; i < pixels.length; i += 1) pixels[i] = (i * 7919 + (i >> 5) * 31) % 256;
+    const png = await sharp(pixels, { raw: { width, height, channels: 3 } }).png().toBuffer();
+    const planId = await approvedPlan(lead, reviewer);
+    const record = (await lead.post(`/api/plans/${planId}/records`, {})).body.id as number;
+    const stored = await upload(lead, record, png, 'switch.png', 'image/png', 'Invented switch');
+    expect(stored.status, stored.text).toBe(201);
+    const original = await lead.getRaw(`${stored.body.url}?size=original`);
+    expect(original.headers.get('content-type')).toBe('image/png');
+    const back = Buffer.from(await original.arrayBuffer());
+    const raw = await sharp(back).removeAlpha().raw().toBuffer({ resolveWithObject: true });
+    expect(raw.info).toMatchObject({ width, height, channels: 3 });
+    expect(Buffer.compare(raw.data, pixels)).toBe(0);
   });
 });
