@@ -13,6 +13,7 @@ import { closeTestDb, makeOrganization, makePerson, makeTeam, PASSWORD, planDocu
 import { approvedPlan, entry, readyToInstall } from '../helpers/records';
 import { uniqueTag } from '../helpers/equipment';
 import { upload } from '../helpers/photos';
+import { approvedPlan as approvedPracticePlan } from '../helpers/practice';
 
 let team: Awaited<ReturnType<typeof makeTeam>>;
 let admin: Client;
@@ -227,5 +228,21 @@ describe("a PNG photo's original", () => {
     const raw = await sharp(back).removeAlpha().raw().toBuffer({ resolveWithObject: true });
     expect(raw.info).toMatchObject({ width, height, channels: 3 });
     expect(Buffer.compare(raw.data, pixels)).toBe(0);
+  });
+});
+
+describe('a practice attempt', () => {
+  it('keeps the answer as graded, not whatever else the body carried beside it', async () => {
+    const apprentice = await signedIn(team.apprentice.email, PASSWORD);
+    const plan = await approvedPracticePlan(lead, reviewer);
+    const made = await reviewer.post('/api/exercises', { planId: plan.id, revision: plan.revision, kind: 'find', removeLinks: ['jB'], prompt: 'Mark what is outside the zone.' });
+    expect(made.status, made.text).toBe(201);
+    const elements: string[] = made.body.exercise.answerElements;
+    const padding = 'x'.repeat(1_500_000);
+    const answered = await apprentice.post(`/api/exercises/${made.body.exercise.id}/attempts`, { answer: { elements, padding, more: Array.from({ length: 20_000 }, (_, i) => i) } });
+    expect(answered.status, answered.text.slice(0, 300)).toBe(201);
+    expect(answered.body.score).toBe(100);
+    const row = await testDb().models.PracticeAttempt.findByPk(answered.body.attempt.id);
+    expect(JSON.parse(row!.answer)).toEqual({ elements });
   });
 });
