@@ -9,6 +9,7 @@ import type { CreateSetBody, ListSetsQuery, PatchSetBody, SetSort, SetTestBody }
 import type { Db } from '@db/connection';
 import type { GroundingSet, SetEvent, SetTest } from '@db/models';
 import { getSettings } from './equipment-settings';
+import { lockOrganization } from './people';
 
 /** A set on the wire (the field names). */
 export interface SetJson extends SetRecord {
@@ -133,6 +134,9 @@ function event(organizationId: number, setId: number, actorId: string | null, fi
 export async function saveSets(db: Db, organizationId: number, actorId: string, bodies: CreateSetBody[], mode: 'create' | 'upsert', transaction?: Transaction): Promise<WriteOutcome<{ created: SetJson[]; updated: SetJson[] }>> {
   try {
     return await db.sequelize.transaction({ transaction }, async (t) => {
+      // One save of sets at a time per organisation: two imports locking the gaps of the same new
+      // tags, then both inserting into them, deadlocked (a 500 for one of them).
+      await lockOrganization(db, organizationId, t);
       const { testIntervalMonths } = await getSettings(db, organizationId, t);
       if (mode === 'upsert') {
         // Only a passing test returns a set that carried fault current or failed a test to service;

@@ -246,3 +246,22 @@ describe('a practice attempt', () => {
     expect(JSON.parse(row!.answer)).toEqual({ elements });
   });
 });
+
+describe('two imports at once', () => {
+  it('never answer 5xx: each lands, or is told to import again, and the tags end up stored once', async () => {
+    const own = await makeTeam();
+    const first = await signedIn(own.admin.email, PASSWORD);
+    const second = await signedIn((await makePerson(own.organizationId, 'admin')).email, PASSWORD);
+    for (let round = 0; round < 4; round += 1) {
+      const tags = Array.from({ length: 12 }, () => uniqueTag(`R${round}`));
+      const file = (list: string[]) => `${CSV_HEADER}\n${list.map((tag) => csvRow(setBody({ tag }), 'in-service')).join('\n')}\n`;
+      const answers = await Promise.all([postCsv(first, file(tags)), postCsv(second, file([...tags].reverse()))]);
+      for (const a of answers) {
+        expect(a.status, a.text.slice(0, 300)).toBeLessThan(500);
+        if (a.status !== 200) expect(a.body.error.issues[0].message).toMatch(/import again/);
+      }
+      expect(answers.some((a) => a.status === 200)).toBe(true);
+      expect(await testDb().models.GroundingSet.count({ where: { organizationId: own.organizationId, tag: tags } })).toBe(tags.length);
+    }
+  });
+});
