@@ -13,6 +13,8 @@ import { closeTestDb, makeOrganization, makePerson, makeTeam, PASSWORD, planDocu
 import { approvedPlan, entry, readyToInstall } from '../helpers/records';
 import { uniqueTag } from '../helpers/equipment';
 import { upload } from '../helpers/photos';
+import { generatePlan } from '../../bench/generate-plan';
+import { Client as AnonymousClient } from '../helpers/api';
 import { approvedPlan as approvedPracticePlan } from '../helpers/practice';
 
 let team: Awaited<ReturnType<typeof makeTeam>>;
@@ -263,5 +265,33 @@ describe('two imports at once', () => {
       expect(answers.some((a) => a.status === 200)).toBe(true);
       expect(await testDb().models.GroundingSet.count({ where: { organizationId: own.organizationId, tag: tags } })).toBe(tags.length);
     }
+  });
+});
+
+describe('grading a fix attempt', () => {
+  it("runs the checker off the main thread: a large handed-in drawing does not stall other requests", async () => {
+    const apprentice = await signedIn(team.apprentice.email, PASSWORD);
+    const plan = await approvedPracticePlan(lead, reviewer);
+    const made = await reviewer.post('/api/exercises', { planId: plan.id, revision: plan.revision, kind: 'fix', removeLinks: ['jB'], prompt: 'Put the zone right.' });
+    expect(made.status, made.text).toBe(201);
+    // About 12,000 elements: a check of a second or two here, under the 2 MiB body limit.
+    const large = generatePlan({ elements: 12_000, seed: 11 });
+    let done = false;
+    const started = performance.now();
+    const attempt = apprentice.post(`/api/exercises/${made.body.exercise.id}/attempts`, { answer: { document: large } }).finally(() => {
+      done = true;
+    });
+    const latencies: number[] = [];
+    while (!done) {
+      const sent = performance.now();
+      expect((await new AnonymousClient().get('/api/health')).status).toBe(200);
+      latencies.push(performance.now() - sent);
+    }
+    const answered = await attempt;
+    const tookMs = performance.now() - started;
+    expect(answered.status, answered.text.slice(0, 300)).toBe(201);
+    expect(answered.body.passed).toBe(false);
+    expect(latencies.length).toBeGreaterThanOrEqual(3);
+    expect(Math.max(...latencies)).toBeLessThan(tookMs / 2);
   });
 });

@@ -5,7 +5,6 @@
 import { getDb } from '@db/connection';
 import * as repo from '@db/repositories/practice';
 import type { ExerciseRecord, ProgressCell } from '@db/repositories/practice';
-import { checkPlan } from '@/lib/domain/checker';
 import type { Person } from '@/lib/domain/people';
 import { can } from '@/lib/domain/permissions';
 import { assertCan } from '@/lib/server/guards';
@@ -13,6 +12,7 @@ import { gradeFind, gradeFix, gradeNumbers, prepareExercise, proposeRemovals } f
 import type { CreateExerciseBody } from '@/lib/schemas/practice';
 import { findAnswer, fixAnswer, numbersAnswer } from '@/lib/schemas/practice';
 import { z } from 'zod';
+import { checkDocument } from './checking';
 import { AppError } from './errors';
 import { parseWith } from './http';
 
@@ -131,7 +131,7 @@ export function explanation(exercise: ExerciseRecord) {
 const parseAnswer = <S extends z.ZodTypeAny>(schema: S, answer: unknown): z.infer<S> => parseWith(z.object({ answer: schema }), { answer }).answer;
 
 /** The grade, and the answer as parsed: what is kept is what was graded, never the rest of the body. */
-function grade(exercise: ExerciseRecord, answer: unknown) {
+async function grade(exercise: ExerciseRecord, answer: unknown) {
   if (exercise.kind === 'find') {
     const parsed = parseAnswer(findAnswer, answer);
     const ids = new Set([...exercise.document.nodes.map((n) => n.id), ...exercise.document.links.map((l) => l.id)]);
@@ -141,8 +141,11 @@ function grade(exercise: ExerciseRecord, answer: unknown) {
   }
   if (exercise.kind === 'fix') {
     const parsed = parseAnswer(fixAnswer, answer);
-    const given = checkPlan(exercise.document).findings.filter((f) => f.severity === 'blocker');
-    return { graded: gradeFix(exercise.key, exercise.document, given, parsed.document), answer: parsed };
+    // Both checks in the worker pool, within its time budget: on the main thread a large drawing
+    // from any apprentice stalled every other request for the length of its check.
+    const [givenReport, fixedReport] = await Promise.all([checkDocument(exercise.document), checkDocument(parsed.document)]);
+    const given = givenReport.findings.filter((f) => f.severity === 'blocker');
+    return { graded: gradeFix(exercise.key, exercise.document, given, parsed.document, fixedReport), answer: parsed };
   }
   const parsed = parseAnswer(numbersAnswer, answer);
   return { graded: gradeNumbers(exercise.key, parsed.choice), answer: parsed };
@@ -151,7 +154,7 @@ function grade(exercise: ExerciseRecord, answer: unknown) {
 /** Grades and keeps one attempt; returns the grade, the explanation and the updated record. */
 export async function attempt(person: Person, id: number, answer: unknown) {
   const exercise = await visibleExercise(person, id);
-  const { graded, answer: kept } = grade(exercise, answer);
+  const { graded, answer: kept } = await grade(exercise, answer);
   const db = getDb();
   const saved = await repo.addAttempt(db, person.organizationId, { exerciseId: exercise.id, apprenticeId: person.id, answer: kept, score: graded.score, details: graded });
   const mine = (await repo.progressCells(db, person.organizationId, person.id)).find((c) => c.exerciseId === exercise.id);
