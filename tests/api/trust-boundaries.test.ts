@@ -295,3 +295,28 @@ describe('grading a fix attempt', () => {
     expect(Math.max(...latencies)).toBeLessThan(tookMs / 2);
   });
 });
+
+describe('proposing practice gaps for a large approved plan', () => {
+  it('runs in the checker pool: other requests are answered while it works', async () => {
+    const plan = await approvedPracticePlan(lead, reviewer);
+    // An approved revision of ~400 generated elements: the proposals check it once or twice per jumper and bond (seconds).
+    await testDb().models.PlanRevision.update({ document: JSON.stringify(generatePlan({ elements: 400, seed: 5 })) }, { where: { planId: plan.id, number: plan.revision } });
+    let done = false;
+    const started = performance.now();
+    const proposing = reviewer.post('/api/exercises/propose', { planId: plan.id }).finally(() => {
+      done = true;
+    });
+    const latencies: number[] = [];
+    while (!done) {
+      const sent = performance.now();
+      expect((await new AnonymousClient().get('/api/health')).status).toBe(200);
+      latencies.push(performance.now() - sent);
+    }
+    const answered = await proposing;
+    const tookMs = performance.now() - started;
+    expect(answered.status, answered.text.slice(0, 300)).toBe(200);
+    expect(answered.body.proposals.length).toBeGreaterThan(0);
+    expect(latencies.length).toBeGreaterThanOrEqual(3);
+    expect(Math.max(...latencies)).toBeLessThan(tookMs / 2);
+  });
+});

@@ -8,11 +8,11 @@ import type { ExerciseRecord, ProgressCell } from '@db/repositories/practice';
 import type { Person } from '@/lib/domain/people';
 import { can } from '@/lib/domain/permissions';
 import { assertCan } from '@/lib/server/guards';
-import { gradeFind, gradeFix, gradeNumbers, prepareExercise, proposeRemovals } from '@/lib/domain/practice';
+import { gradeFind, gradeFix, gradeNumbers, prepareExercise } from '@/lib/domain/practice';
 import type { CreateExerciseBody } from '@/lib/schemas/practice';
 import { findAnswer, fixAnswer, numbersAnswer } from '@/lib/schemas/practice';
 import { z } from 'zod';
-import { checkDocument } from './checking';
+import { checkDocument, proposeInPool } from './checking';
 import { AppError } from './errors';
 import { parseWith } from './http';
 
@@ -52,7 +52,7 @@ export async function makeExercise(person: Person, body: CreateExerciseBody): Pr
 
 export async function propose(person: Person, planId: number, revision?: number) {
   const approved = await approvedOr404(person, planId, revision);
-  return { planId: approved.planId, revision: approved.revision, proposals: proposeRemovals(approved.document) };
+  return { planId: approved.planId, revision: approved.revision, proposals: await proposeInPool(approved.document) };
 }
 
 /** Publishes an exercise to learners or withdraws it; another organisation's is NOT_FOUND. */
