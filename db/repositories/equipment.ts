@@ -9,6 +9,7 @@ import type { CreateSetBody, ListSetsQuery, PatchSetBody, SetSort, SetTestBody }
 import type { Db } from '@db/connection';
 import type { GroundingSet, SetEvent, SetTest } from '@db/models';
 import { getSettings } from './equipment-settings';
+import { lockOrganization } from './people';
 
 /** A set on the wire (the issue's field names). */
 export interface SetJson extends SetRecord {
@@ -117,7 +118,13 @@ export async function getSet(db: Db, organizationId: number, id: number) {
   return { set: setJson(row), tests: tests.map(testJson), events: events.map(eventJson) };
 }
 
-export type WriteOutcome<T> = { kind: 'ok'; value: T } | { kind: 'not-found' } | { kind: 'duplicate-tag'; tag: string } | { kind: 'needs-test' } | { kind: 'invalid'; path: string; message: string };
+export type WriteOutcome<T> =
+  | { kind: 'ok'; value: T }
+  | { kind: 'not-found' }
+  | { kind: 'duplicate-tag'; tag: string }
+  /** A set that must pass a test was to be put in service (by an import: the tags, as the file wrote them). */
+  | { kind: 'needs-test'; tags?: string[] }
+  | { kind: 'invalid'; path: string; message: string };
 
 function event(organizationId: number, setId: number, actorId: string | null, fields: Partial<Pick<SetEvent, 'fromStatus' | 'toStatus' | 'reason' | 'occurredOn'>> & { kind: string }) {
   return { organizationId, setId, actorId, fromStatus: null, toStatus: null, reason: null, occurredOn: null, ...fields };
@@ -127,7 +134,18 @@ function event(organizationId: number, setId: number, actorId: string | null, fi
 export async function saveSets(db: Db, organizationId: number, actorId: string, bodies: CreateSetBody[], mode: 'create' | 'upsert', transaction?: Transaction): Promise<WriteOutcome<{ created: SetJson[]; updated: SetJson[] }>> {
   try {
     return await db.sequelize.transaction({ transaction }, async (t) => {
+      // One save of sets at a time per organisation: two imports locking the gaps of the same new
+      // tags, then both inserting into them, deadlocked (a 500 for one of them).
+      await lockOrganization(db, organizationId, t);
       const { testIntervalMonths } = await getSettings(db, organizationId, t);
+      if (mode === 'upsert') {
+        // Only a passing test returns a set that carried fault current or failed a test to service;
+        // an import naming it in service (or leaving the status out) must not. Checked before any write.
+        const held = await db.models.GroundingSet.findAll({ where: { organizationId, tag: { [Op.in]: bodies.map((b) => b.tag) }, needsPassingTest: true }, attributes: ['tag'], transaction: t, lock: t.LOCK.UPDATE });
+        const waiting = new Set(held.map((r) => r.tag.toLowerCase()));
+        const tags = bodies.filter((b) => b.status === 'in-service' && waiting.has(b.tag.toLowerCase())).map((b) => b.tag);
+        if (tags.length) return { kind: 'needs-test' as const, tags };
+      }
       const created: SetJson[] = [];
       const updated: SetJson[] = [];
       for (const body of bodies) {
@@ -191,27 +209,44 @@ export async function updateSet(db: Db, organizationId: number, id: number, acto
   }
 }
 
+/** The latest day a fault was recorded on or a test failed: a pass must be on or after it to count. */
+async function needsTestSince(db: Db, organizationId: number, setId: number, transaction: Transaction): Promise<string | null> {
+  const fault = await db.models.SetEvent.findOne({ where: { organizationId, setId, kind: 'fault' }, attributes: ['occurredOn'], order: [['occurredOn', 'DESC']], transaction });
+  const failed = await db.models.SetTest.findOne({ where: { organizationId, setId, passed: false }, attributes: ['testedOn'], order: [['testedOn', 'DESC']], transaction });
+  const days = [fault?.occurredOn, failed?.testedOn].filter((d): d is string => typeof d === 'string');
+  return days.length ? days.sort().at(-1)! : null;
+}
+
 /**
  * Records an in-service test. The limit is the one given, else the organisation's for the set's
- * cable and length; with a limit, `passed` follows from it. A passing test moves the due date and
- * puts a set that was out only for want of a passing test back in service; a failing one takes it out.
+ * cable and length (a given limit above the organisation's is refused); with a limit, `passed`
+ * follows from it. A passing test moves the due date and puts a set that was out only for want of
+ * a passing test back in service, when it is dated on or after the fault or failed test that took
+ * the set out (an older pass is kept in the history only); a failing one takes it out.
  */
 export async function recordTest(db: Db, organizationId: number, id: number, actorId: string, body: SetTestBody): Promise<WriteOutcome<{ set: SetJson; test: TestJson }>> {
   return db.sequelize.transaction(async (t) => {
     const row = await db.models.GroundingSet.findOne({ where: { id, organizationId }, transaction: t, lock: t.LOCK.UPDATE });
     if (!row) return { kind: 'not-found' as const };
     const settings = await getSettings(db, organizationId, t);
-    const limit = body.limitMilliohms ?? limitFor(settings.resistanceLimits, row.cable, row.lengthM);
+    const ownLimit = limitFor(settings.resistanceLimits, row.cable, row.lengthM);
+    // The organisation's limit is an admin's setting: a tester may test to a stricter one, never a looser one.
+    if (ownLimit !== null && body.limitMilliohms != null && body.limitMilliohms > ownLimit) {
+      return { kind: 'invalid' as const, path: 'limitMilliohms', message: `must not be above your organisation's limit of ${ownLimit} mΩ for this set's cable and length (leave it empty to use that limit)` };
+    }
+    const limit = body.limitMilliohms ?? ownLimit;
     const computed = limit === null ? undefined : body.resistanceMilliohms <= limit;
     if (computed === undefined && body.passed === undefined) return { kind: 'invalid' as const, path: 'passed', message: 'is required when no resistance limit applies (give limitMilliohms, or enter limits in the equipment settings)' };
     if (computed !== undefined && body.passed !== undefined && computed !== body.passed) return { kind: 'invalid' as const, path: 'passed', message: `does not agree with ${body.resistanceMilliohms} mΩ against the limit of ${limit} mΩ` };
     const passed = computed ?? (body.passed as boolean);
+    // Only a pass on or after the day of what took the set out (a fault, a failed test) puts it back.
+    const since = passed && row.needsPassingTest ? await needsTestSince(db, organizationId, id, t) : null;
     const test = await db.models.SetTest.create({ organizationId, setId: id, testedOn: body.testedOn, testedBy: actorId, resistanceMilliohms: body.resistanceMilliohms, limitMilliohms: limit, passed, notes: body.notes ?? null }, { transaction: t });
     const from = row.status;
     await db.models.SetEvent.create(event(organizationId, id, actorId, { kind: 'test', reason: `${passed ? 'Passed' : 'Failed'}: ${body.resistanceMilliohms} mΩ${limit !== null ? ` (limit ${limit} mΩ)` : ''}`, occurredOn: body.testedOn }), { transaction: t });
     if (passed) {
       const last = row.lastTestedOn && row.lastTestedOn > body.testedOn ? row.lastTestedOn : body.testedOn;
-      const back = row.needsPassingTest && row.status === 'out-of-service';
+      const back = row.needsPassingTest && row.status === 'out-of-service' && (since === null || body.testedOn >= since);
       await row.update({ lastTestedOn: last, testDueOn: testDueOn(last, row.inServiceOn, settings.testIntervalMonths), ...(back ? { status: 'in-service', statusReason: null, needsPassingTest: false } : {}) }, { transaction: t });
       if (back) await db.models.SetEvent.create(event(organizationId, id, actorId, { kind: 'status', fromStatus: from, toStatus: 'in-service', reason: `Passed its test on ${body.testedOn}`, occurredOn: body.testedOn }), { transaction: t });
     } else if (row.status === 'in-service') {

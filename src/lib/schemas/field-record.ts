@@ -1,13 +1,22 @@
 /** Bodies and queries of the field-record API; the field screen sends the same shapes. */
 import { z } from 'zod';
+import { isCalendarDate } from '@/lib/domain/equipment';
 import { BRIEFING_ITEMS } from '@/lib/domain/field-record/types';
 
 const str = (max: number) => z.string({ required_error: 'is required', invalid_type_error: 'must be a string' }).trim().max(max, `must be at most ${max} characters`);
 const nonEmpty = (max: number) => str(max).pipe(z.string().min(1, 'must not be empty'));
 
+const FIRST_YEAR = 2000;
+const LAST_YEAR = 2999;
+const inFieldYears = (date: Date) => date.getUTCFullYear() >= FIRST_YEAR && date.getUTCFullYear() <= LAST_YEAR;
+
 const common = {
   clientId: z.string({ required_error: 'is required', invalid_type_error: 'must be a string' }).uuid('must be a UUID made on the device'),
-  at: z.string({ required_error: 'is required', invalid_type_error: 'must be a string' }).datetime({ offset: true, message: 'must be an ISO time such as 2026-05-04T07:30:00Z' }),
+  at: z
+    .string({ required_error: 'is required', invalid_type_error: 'must be a string' })
+    .datetime({ offset: true, message: 'must be an ISO time such as 2026-05-04T07:30:00Z' })
+    // The shape allows year 0 and, with an offset, year 10000 (a 500 from the database); neither is a day of field work.
+    .refine((v) => inFieldYears(new Date(v)), `must be a time in the years ${FIRST_YEAR} to ${LAST_YEAR} (is the device's clock right?)`),
 };
 
 export const entryBody = z.discriminatedUnion(
@@ -39,7 +48,8 @@ export const RECORD_STATUSES = ['open', 'closed'] as const;
 export type RecordStatus = (typeof RECORD_STATUSES)[number];
 
 export const createRecordBody = z.object({
-  workDate: z.string({ invalid_type_error: 'must be a string' }).regex(/^\d{4}-\d{2}-\d{2}$/, 'must be a date such as 2026-05-04').optional(),
+  // A real day, not only its shape: 2026-02-30 reached the database as a 500.
+  workDate: z.string({ invalid_type_error: 'must be a string' }).refine(isCalendarDate, 'must be a real date such as 2026-05-04').optional(),
   location: str(200).optional(),
   clearanceRef: str(120).optional(),
   detector: str(200).optional(),

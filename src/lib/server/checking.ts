@@ -11,6 +11,7 @@ import { Piscina } from 'piscina';
 import type { Db } from '@db/connection';
 import { inventoryFor } from '@db/repositories/equipment';
 import { checkPlan } from '@/lib/domain/checker';
+import { proposeRemovals, type Proposal } from '@/lib/domain/practice/propose';
 import type { CheckReport } from '@/lib/domain/report';
 import { setTagsOf, type CheckOptions, type CheckStage } from '@/lib/domain/sets-in-plan';
 import type { UnitSystem } from '@/lib/domain/units';
@@ -55,9 +56,23 @@ function getPool(): Piscina | null {
 export async function checkDocument(document: PlanDocument, options: CheckOptions = {}): Promise<CheckReport> {
   const workers = getPool();
   if (!workers) return checkPlan(document, undefined, options);
+  return (await inPool(workers, document, { document, options })) as CheckReport;
+}
+
+/**
+ * The practice proposals for an approved plan, in the pool within the same budget: they run the
+ * checker once or twice per jumper and bond (seconds for a plan of a thousand elements).
+ */
+export async function proposeInPool(document: PlanDocument): Promise<Proposal[]> {
+  const workers = getPool();
+  if (!workers) return proposeRemovals(document);
+  return (await inPool(workers, document, { document, propose: true })) as Proposal[];
+}
+
+async function inPool(workers: Piscina, document: PlanDocument, task: object): Promise<unknown> {
   if (workers.queueSize >= MAX_QUEUE) throw new AppError('CHECK_BUSY', { headers: { 'retry-after': '5' } });
   try {
-    return (await workers.run({ document, options }, { signal: AbortSignal.timeout(CHECK_BUDGET_MS) })) as CheckReport;
+    return await workers.run(task, { signal: AbortSignal.timeout(CHECK_BUDGET_MS) });
   } catch (error) {
     const name = (error as Error)?.name;
     if (name === 'AbortError' || name === 'TimeoutError') {

@@ -91,8 +91,9 @@ export async function putPhotoObjects(recordId: number, bytes: Buffer, keepLocat
   };
   try {
     // The original first: as sent when location may be kept, else re-encoded without metadata.
-    const format = TYPES[found.mime] === 'jpg' ? 'jpeg' : (TYPES[found.mime] as 'png' | 'webp');
-    const original = keepLocation ? bytes : await sharp(bytes).rotate().toFormat(format, { quality: 95 }).toBuffer();
+    // PNG stays lossless: sharp's `quality` on PNG means a 256-colour palette (and ~15 s on a large one).
+    const reencode = (image: sharp.Sharp) => (found.mime === 'image/png' ? image.png() : image.toFormat(found.mime === 'image/webp' ? 'webp' : 'jpeg', { quality: 95 }));
+    const original = keepLocation ? bytes : await reencode(sharp(bytes).rotate()).toBuffer();
     await put('original', original, found.mime);
     for (const size of ['display', 'thumb'] as const) {
       const edge = PHOTO_SIZES[size];

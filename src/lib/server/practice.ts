@@ -5,14 +5,14 @@
 import { getDb } from '@db/connection';
 import * as repo from '@db/repositories/practice';
 import type { ExerciseRecord, ProgressCell } from '@db/repositories/practice';
-import { checkPlan } from '@/lib/domain/checker';
 import type { Person } from '@/lib/domain/people';
 import { can } from '@/lib/domain/permissions';
 import { assertCan } from '@/lib/server/guards';
-import { gradeFind, gradeFix, gradeNumbers, prepareExercise, proposeRemovals } from '@/lib/domain/practice';
+import { gradeFind, gradeFix, gradeNumbers, prepareExercise } from '@/lib/domain/practice';
 import type { CreateExerciseBody } from '@/lib/schemas/practice';
 import { findAnswer, fixAnswer, numbersAnswer } from '@/lib/schemas/practice';
 import { z } from 'zod';
+import { checkDocument, proposeInPool } from './checking';
 import { AppError } from './errors';
 import { parseWith } from './http';
 
@@ -52,7 +52,7 @@ export async function makeExercise(person: Person, body: CreateExerciseBody): Pr
 
 export async function propose(person: Person, planId: number, revision?: number) {
   const approved = await approvedOr404(person, planId, revision);
-  return { planId: approved.planId, revision: approved.revision, proposals: proposeRemovals(approved.document) };
+  return { planId: approved.planId, revision: approved.revision, proposals: await proposeInPool(approved.document) };
 }
 
 /** Publishes an exercise to learners or withdraws it; another organisation's is NOT_FOUND. */
@@ -130,28 +130,33 @@ export function explanation(exercise: ExerciseRecord) {
 /** Parses the answer under the key `answer`, so every issue's path starts with it. */
 const parseAnswer = <S extends z.ZodTypeAny>(schema: S, answer: unknown): z.infer<S> => parseWith(z.object({ answer: schema }), { answer }).answer;
 
-function grade(exercise: ExerciseRecord, answer: unknown) {
+/** The grade, and the answer as parsed: what is kept is what was graded, never the rest of the body. */
+async function grade(exercise: ExerciseRecord, answer: unknown) {
   if (exercise.kind === 'find') {
-    const { elements } = parseAnswer(findAnswer, answer);
+    const parsed = parseAnswer(findAnswer, answer);
     const ids = new Set([...exercise.document.nodes.map((n) => n.id), ...exercise.document.links.map((l) => l.id)]);
-    const unknown = elements.map((e, i) => ({ e, i })).filter(({ e }) => !ids.has(e));
+    const unknown = parsed.elements.map((e, i) => ({ e, i })).filter(({ e }) => !ids.has(e));
     if (unknown.length) throw new AppError('VALIDATION', { issues: unknown.map(({ e, i }) => ({ path: `answer.elements[${i}]`, message: `no element "${e}" on this drawing` })) });
-    return gradeFind(exercise.key, elements);
+    return { graded: gradeFind(exercise.key, parsed.elements), answer: parsed };
   }
   if (exercise.kind === 'fix') {
-    const { document } = parseAnswer(fixAnswer, answer);
-    const given = checkPlan(exercise.document).findings.filter((f) => f.severity === 'blocker');
-    return gradeFix(exercise.key, exercise.document, given, document);
+    const parsed = parseAnswer(fixAnswer, answer);
+    // Both checks in the worker pool, within its time budget: on the main thread a large drawing
+    // from any apprentice stalled every other request for the length of its check.
+    const [givenReport, fixedReport] = await Promise.all([checkDocument(exercise.document), checkDocument(parsed.document)]);
+    const given = givenReport.findings.filter((f) => f.severity === 'blocker');
+    return { graded: gradeFix(exercise.key, exercise.document, given, parsed.document, fixedReport), answer: parsed };
   }
-  return gradeNumbers(exercise.key, parseAnswer(numbersAnswer, answer).choice);
+  const parsed = parseAnswer(numbersAnswer, answer);
+  return { graded: gradeNumbers(exercise.key, parsed.choice), answer: parsed };
 }
 
 /** Grades and keeps one attempt; returns the grade, the explanation and the updated record. */
 export async function attempt(person: Person, id: number, answer: unknown) {
   const exercise = await visibleExercise(person, id);
-  const graded = grade(exercise, answer);
+  const { graded, answer: kept } = await grade(exercise, answer);
   const db = getDb();
-  const saved = await repo.addAttempt(db, person.organizationId, { exerciseId: exercise.id, apprenticeId: person.id, answer, score: graded.score, details: graded });
+  const saved = await repo.addAttempt(db, person.organizationId, { exerciseId: exercise.id, apprenticeId: person.id, answer: kept, score: graded.score, details: graded });
   const mine = (await repo.progressCells(db, person.organizationId, person.id)).find((c) => c.exerciseId === exercise.id);
   return {
     attempt: { id: saved.id, createdAt: saved.createdAt.toISOString() },

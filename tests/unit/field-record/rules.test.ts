@@ -70,6 +70,17 @@ describe('installing', () => {
     expect(judgeEntry(plan, ready(), install('jA', 'NEW'), sets).ok).toBe(true);
   });
 
+  it("flags a set other than the plan's own for the jumper (allowed, noticed), in any case of the tag", () => {
+    const base = planDocument();
+    const named = recordPlanFrom({ ...base, links: base.links.map((l) => (l.id === 'jA' ? { ...l, equipmentId: 'GS-12' } : l)) });
+    expect(named.jumpers[0]).toMatchObject({ id: 'jA', plannedSet: 'GS-12' });
+    let state = replay(named, []);
+    for (const body of [signOn, ...briefing, passing]) state = applyEntry(named, state, entry(body), []);
+    expect(judgeEntry(named, state, install('jA', 'GS-40'), freeTextSetStatus)).toEqual({ ok: true, flags: [expect.objectContaining({ code: 'set-not-as-planned' })] });
+    expect(judgeEntry(named, state, install('jA', 'gs-12'), freeTextSetStatus)).toEqual({ ok: true, flags: [] });
+    expect(judgeEntry(named, state, install('jB', 'GS-40'), freeTextSetStatus)).toEqual({ ok: true, flags: [] });
+  });
+
   it('flags a set put on before the briefing was complete (allowed, noticed)', () => {
     const v = judgeEntry(plan, run([signOn, passing]), install('jA'), freeTextSetStatus);
     expect(v).toEqual({ ok: true, flags: [expect.objectContaining({ code: 'installed-before-briefing' })] });

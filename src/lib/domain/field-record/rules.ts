@@ -12,7 +12,12 @@ import { BRIEFING_ITEMS, type BriefingItem, type EntryBody, type FieldEntry, typ
 export function recordPlanFrom(doc: PlanDocument): RecordPlan {
   const phases = doc.nodes.filter((n) => n.kind === 'phase').map((n) => ('phase' in n && typeof n.phase === 'string' && n.phase ? n.phase : n.id));
   const labels = new Map(doc.nodes.map((n) => [n.id, n.label ?? n.id]));
-  const jumpers = doc.links.filter((l) => l.kind === 'jumper').map((l) => ({ id: l.id, label: `${labels.get(l.from) ?? l.from} – ${labels.get(l.to) ?? l.to}` }));
+  const jumpers = doc.links
+    .filter((l) => l.kind === 'jumper')
+    .map((l) => {
+      const planned = 'equipmentId' in l && typeof l.equipmentId === 'string' && l.equipmentId.trim() ? l.equipmentId.trim() : undefined;
+      return { id: l.id, label: `${labels.get(l.from) ?? l.from} – ${labels.get(l.to) ?? l.to}`, ...(planned ? { plannedSet: planned } : {}) };
+    });
   return { phases: [...new Set(phases)], jumpers };
 }
 
@@ -54,8 +59,15 @@ function testPasses(plan: RecordPlan, body: Extract<EntryBody, { type: 'voltage-
 }
 
 /** The flags an allowed entry raises against the state before it. */
-function flagsFor(state: RecordState, entry: EntryBody): Flag[] {
+function flagsFor(plan: RecordPlan, state: RecordState, entry: EntryBody): Flag[] {
   const flags: Flag[] = [];
+  if (entry.type === 'install') {
+    // The plan was checked and approved with its own set's ratings; another set may be fit to go on, but the reviewer should see it.
+    const planned = plan.jumpers.find((j) => j.id === entry.link)?.plannedSet;
+    if (planned && planned.toLowerCase() !== entry.setTag.trim().toLowerCase()) {
+      flags.push({ code: 'set-not-as-planned', message: `Set ${entry.setTag} went on ${entry.link}, where the approved plan names ${planned}: its ratings were checked for ${planned}, not for this set.` });
+    }
+  }
   if (entry.type === 'remove') {
     const last = state.on[state.on.length - 1];
     if (last && last.link !== entry.link) {
@@ -103,7 +115,7 @@ export function judgeEntry(plan: RecordPlan, state: RecordState, entry: EntryBod
     default:
       break;
   }
-  return { ok: true, flags: flagsFor(state, entry) };
+  return { ok: true, flags: flagsFor(plan, state, entry) };
 }
 
 /** Applies one allowed entry to the state (a new state; the old one is left alone). */
@@ -139,7 +151,7 @@ export function applyEntry(plan: RecordPlan, state: RecordState, entry: FieldEnt
 export function replay(plan: RecordPlan, entries: readonly FieldEntry[], closed = false): RecordState {
   let state = emptyState(false);
   for (const entry of entries) {
-    state = applyEntry(plan, state, entry, flagsFor(state, entry));
+    state = applyEntry(plan, state, entry, flagsFor(plan, state, entry));
   }
   return { ...state, closed };
 }

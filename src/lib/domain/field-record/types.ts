@@ -34,12 +34,12 @@ export type FieldEntry = EntryBody & { clientId: string; at: string; actorId: st
 export interface RecordPlan {
   /** Phase keys the voltage test must cover, e.g. ["A", "B", "C"]. */
   phases: string[];
-  /** Jumpers of the plan, in drawing order: each gets a set on the day. */
-  jumpers: { id: string; label: string }[];
+  /** Jumpers of the plan, in drawing order: each gets a set on the day (the plan's own set by tag, when it names one). */
+  jumpers: { id: string; label: string; plannedSet?: string }[];
 }
 
 /** A flag is recorded with an entry: something a reader of the record should notice. */
-export type FlagCode = 'removed-out-of-order' | 'installed-before-briefing';
+export type FlagCode = 'removed-out-of-order' | 'installed-before-briefing' | 'set-not-as-planned';
 export interface Flag {
   code: FlagCode;
   message: string;

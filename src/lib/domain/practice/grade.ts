@@ -4,7 +4,7 @@
  */
 import { canonicalJson } from '@/lib/domain/canonical-json';
 import { checkPlan } from '@/lib/domain/checker';
-import type { Finding } from '@/lib/domain/report';
+import type { CheckReport, Finding } from '@/lib/domain/report';
 import type { PlanDocument } from '@/lib/schemas/plan';
 import { findingKey, type AnswerKey } from './types';
 
@@ -73,10 +73,10 @@ export function fixIntegrity(given: PlanDocument, fixed: PlanDocument): Finding[
 
 /**
  * Fix: the fixed copy is checked; it passes when none of the planted blockers remain and it has
- * no blocker the given plan did not have (and changes nothing a fix may not change).
+ * no blocker the given plan did not have (and changes nothing a fix may not change). The server
+ * passes the fixed copy's report, checked in its worker pool (a handed-in drawing can be large).
  */
-export function gradeFix(key: AnswerKey, given: PlanDocument, givenBlockers: Finding[], fixed: PlanDocument): FixGrade {
-  const report = checkPlan(fixed);
+export function gradeFix(key: AnswerKey, given: PlanDocument, givenBlockers: Finding[], fixed: PlanDocument, report: CheckReport = checkPlan(fixed)): FixGrade {
   const now = report.findings.filter((f) => f.severity === 'blocker');
   const nowKeys = new Set(now.map(findingKey));
   const plantedKeys = new Set(key.planted.map(findingKey));

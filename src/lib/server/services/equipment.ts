@@ -23,6 +23,7 @@ async function notInFuture(person: Person, path: string, day: string | null | un
 /** Adds a set; a tag the organisation already uses is SET_TAG_TAKEN naming it. */
 export async function addSet(person: Person, input: CreateSetBody): Promise<SetJson> {
   assertCan(person, 'sets.manage');
+  await notInFuture(person, 'inServiceOn', input.inServiceOn);
   await notInFuture(person, 'lastTestedOn', input.lastTestedOn);
   const { created } = unwrap(await saveSets(getDb(), person.organizationId, person.id, [input], 'create'));
   return created[0];
@@ -39,9 +40,14 @@ export async function importSets(person: Person, csv: string): Promise<{ created
   const parsed = parseInventoryCsv(csv);
   if (!parsed.ok) throw invalid(parsed.issues);
   const day = await organisationToday(person.organizationId);
-  const future = parsed.rows.filter((r) => r.body.lastTestedOn && r.body.lastTestedOn > day);
-  if (future.length) throw invalid(future.map((r) => ({ path: `line ${r.line}.lastTestedOn`, message: 'must not be in the future' })));
+  // A set never tested is due one interval after it went into service: a day to come would keep it "in date" for that long.
+  const future = parsed.rows.flatMap((r) => (['inServiceOn', 'lastTestedOn'] as const).filter((key) => (r.body[key] ?? '') > day).map((key) => ({ path: `line ${r.line}.${key}`, message: 'must not be in the future' })));
+  if (future.length) throw invalid(future);
   const outcome = await saveSets(getDb(), person.organizationId, person.id, parsed.rows.map((r) => r.body), 'upsert');
+  if (outcome.kind === 'needs-test') {
+    const held = new Set(outcome.tags?.map((tag) => tag.toLowerCase()));
+    throw invalid(parsed.rows.filter((r) => held.has(r.body.tag.toLowerCase())).map((r) => ({ path: `line ${r.line}.status`, message: 'cannot be in-service until the set passes a test (it carried fault current or failed its last test); record a passing test, or import it as out-of-service' })));
+  }
   if (outcome.kind !== 'ok') throw invalid([{ path: 'tag', message: 'another import changed the same tags at the same moment; import again' }]);
   return outcome.value;
 }
@@ -56,6 +62,7 @@ export async function recordSetTest(person: Person, setId: number, input: SetTes
 /** Edits a set, changes its status (a reason is required out of service) or records a fault. */
 export async function changeSet(person: Person, setId: number, input: PatchSetBody): Promise<SetJson> {
   assertCan(person, 'sets.manage');
+  await notInFuture(person, 'inServiceOn', input.inServiceOn);
   await notInFuture(person, 'faultOn', input.faultOn);
   return unwrap(await updateSet(getDb(), person.organizationId, setId, person.id, input));
 }
