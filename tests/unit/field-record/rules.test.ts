@@ -70,6 +70,19 @@ describe('installing', () => {
     expect(judgeEntry(plan, ready(), install('jA', 'NEW'), sets).ok).toBe(true);
   });
 
+  it('needs a new passing test once every set has come off (no ground left in place)', () => {
+    // Test before installing any ground, unless a previously installed ground is in place
+    // [pub: OSHA 1910.269(n)(5), eTool]. With every set off the line is treated as energized again.
+    const allOff = run([signOn, ...briefing, passing, install('jA'), install('jB'), remove('jB'), remove('jA')]);
+    expect(judgeEntry(plan, allOff, install('jA'), freeTextSetStatus)).toMatchObject({ ok: false, refusal: { code: 'VOLTAGE_TEST_REQUIRED' } });
+    expect(nextStep(plan, allOff)).toEqual({ kind: 'close' });
+    const retested = run([signOn, ...briefing, passing, install('jA'), remove('jA'), passing]);
+    expect(judgeEntry(plan, retested, install('jA'), freeTextSetStatus).ok).toBe(true);
+    // One set still on keeps the zone: another may go on without a new test.
+    const oneLeft = run([signOn, ...briefing, passing, install('jA'), install('jB'), remove('jB')]);
+    expect(judgeEntry(plan, oneLeft, install('jB', 'S-other'), freeTextSetStatus).ok).toBe(true);
+  });
+
   it('flags a set put on before the briefing was complete (allowed, noticed)', () => {
     const v = judgeEntry(plan, run([signOn, passing]), install('jA'), freeTextSetStatus);
     expect(v).toEqual({ ok: true, flags: [expect.objectContaining({ code: 'installed-before-briefing' })] });

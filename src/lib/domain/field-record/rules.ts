@@ -28,7 +28,7 @@ export interface RecordState {
   people: string[];
   visitors: string[];
   briefing: Partial<Record<BriefingItem, { by: string; at: string }>>;
-  /** Whether the latest test passed for every phase, and whether any test ever found voltage. */
+  /** Whether the latest test passed for every phase (and still covers a set going on), and whether any test ever found voltage. */
   testPassed: boolean;
   voltageFound: boolean;
   /** Sets on now, in the order they went on. */
@@ -128,6 +128,9 @@ export function applyEntry(plan: RecordPlan, state: RecordState, entry: FieldEnt
     case 'remove':
       next.on = next.on.filter((s) => s.link !== entry.link);
       next.removed += 1;
+      // A test only covers grounds put on while a ground is in place: with every set off the line
+      // is treated as energized again, and the next set needs a new passing test.
+      if (next.on.length === 0) next.testPassed = false;
       break;
     default:
       break;
