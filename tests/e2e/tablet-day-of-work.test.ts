@@ -1,0 +1,68 @@
+/**
+ * The day-of-work pages on a 1024×768 touch tablet: the grounding sets table opens a set with a
+ * finger-sized tap, and an apprentice works the demo fix exercise with taps alone (a jumper drawn
+ * by tapping two symbols), with Check and Hand in inside the exercise, clear of the caution.
+ */
+import type { Page } from 'playwright-core';
+import { expect, it } from 'vitest';
+import { BASE_URL } from '../helpers/api';
+import { useBrowser } from '../helpers/e2e';
+
+const browser = useBrowser();
+const TABLET = { viewport: { width: 1024, height: 768 }, hasTouch: true, isMobile: false };
+
+/** Taps the middle of a symbol on the practice canvas. */
+async function tapNode(page: Page, id: string) {
+  const box = (await page.getByTestId('practice-canvas').locator(`.react-flow__node[data-id="${id}"] .bm-glyph-box`).boundingBox({ timeout: 5000 }))!;
+  await page.touchscreen.tap(box.x + box.width / 2, box.y + box.height / 2);
+}
+
+const overlaps = (a: { x: number; y: number; width: number; height: number }, b: { x: number; y: number; width: number; height: number }) =>
+  a.x < b.x + b.width && b.x < a.x + a.width && a.y < b.y + b.height && b.y < a.y + a.height;
+
+it('the grounding sets table opens a set from a 44 px tap target', async () => {
+  const { page } = await browser.signIn('lead@demo.test', TABLET);
+  await page.goto(`${BASE_URL}/equipment`);
+  const link = page.getByRole('link', { name: 'LV-114', exact: true });
+  const box = (await link.boundingBox())!;
+  expect(box.height, 'height of the tag link').toBeGreaterThanOrEqual(44);
+  expect(box.width, 'width of the tag link').toBeGreaterThanOrEqual(44);
+  await link.tap();
+  await page.waitForURL(/\/equipment\/\d+$/);
+  expect(await page.getByRole('heading', { level: 1 }).textContent()).toContain('LV-114');
+  const back = (await page.getByRole('link', { name: /Grounding sets/ }).filter({ hasText: '←' }).boundingBox())!;
+  expect(back.height, 'height of the way back to the list').toBeGreaterThanOrEqual(44);
+});
+
+it('an apprentice fixes the demo plan with taps and hands it in; the buttons stay clear of the caution', async () => {
+  const { page } = await browser.signIn('apprentice@demo.test', TABLET);
+  await page.goto(`${BASE_URL}/practice`);
+  await page.getByRole('link', { name: /Fix this plan on your copy so the lineworker in the bucket/ }).first().tap();
+  await page.waitForURL(/\/practice\/\d+$/);
+  await page.getByTestId('practice-canvas').locator('.react-flow__node[data-id="BK"]').waitFor();
+
+  const handIn = page.getByRole('button', { name: 'Hand in' });
+  const check = page.getByRole('button', { name: 'Check my copy' });
+  const caution = page.getByRole('note').filter({ hasText: 'Caution.' });
+  for (const button of [handIn, check]) {
+    const box = (await button.boundingBox())!;
+    expect(box.height).toBeGreaterThanOrEqual(44);
+    expect(overlaps(box, (await caution.boundingBox())!), 'a button drawn over the caution').toBe(false);
+    // Inside the exercise's own box, not spilling out of it.
+    const exercise = (await page.getByTestId('practice-exercise').boundingBox())!;
+    expect(box.y + box.height, 'the button ends inside the exercise').toBeLessThanOrEqual(exercise.y + exercise.height + 1);
+  }
+
+  // A jumper from the bucket to the cluster bar, by tapping the tool and then the two symbols.
+  const links = () => page.getByTestId('practice-canvas').locator('[data-testid^="link-"]').count();
+  const before = await links();
+  await page.getByRole('button', { name: 'Jumper', exact: true }).tap();
+  await tapNode(page, 'BK');
+  await tapNode(page, 'CB');
+  await expect.poll(links).toBe(before + 1);
+
+  await handIn.scrollIntoViewIfNeeded();
+  await handIn.tap();
+  await page.getByTestId('attempt-result').waitFor();
+  expect(await page.getByTestId('score').textContent()).toBe('100');
+});
