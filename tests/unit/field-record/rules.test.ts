@@ -103,6 +103,14 @@ describe('removing', () => {
     expect(v).toEqual({ ok: true, flags: [expect.objectContaining({ code: 'removed-out-of-order' })] });
   });
 
+  it('the out-of-order flag names the jumper the crew should have taken off by its ends and set', () => {
+    const labelled = recordPlanFrom(planDocument({ nodes: planDocument().nodes.map((x) => ({ ...x, label: x.kind === 'phase' ? `Phase ${x.id}` : x.kind === 'cluster-bar' ? 'Cluster bar' : x.id })) }));
+    let state = replay(labelled, []);
+    for (const body of [signOn, ...briefing, passing, install('jA', 'LV-1'), install('jB', 'LV-2')]) state = applyEntry(labelled, state, entry(body), []);
+    const v = judgeEntry(labelled, state, remove('jA'), freeTextSetStatus);
+    expect(v.ok && v.flags[0].message).toBe('Taken off out of order: jB (Phase B – Cluster bar, set LV-2) went on last and was expected off first.');
+  });
+
   it('is allowed after voltage was found, so grounds can always come off', () => {
     const state = run([signOn, ...briefing, passing, install('jA'), { ...passing, phases: { A: 'present', B: 'absent', C: 'absent' } } as EntryBody]);
     expect(nextStep(plan, state)).toEqual({ kind: 'remove', link: 'jA' });

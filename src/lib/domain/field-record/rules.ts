@@ -54,12 +54,15 @@ function testPasses(plan: RecordPlan, body: Extract<EntryBody, { type: 'voltage-
 }
 
 /** The flags an allowed entry raises against the state before it. */
-function flagsFor(state: RecordState, entry: EntryBody): Flag[] {
+function flagsFor(plan: RecordPlan, state: RecordState, entry: EntryBody): Flag[] {
   const flags: Flag[] = [];
   if (entry.type === 'remove') {
     const last = state.on[state.on.length - 1];
     if (last && last.link !== entry.link) {
-      flags.push({ code: 'removed-out-of-order', message: `Taken off out of order: ${last.link} went on last and was expected off first.` });
+      // Named as the drawing names it (its tag), with its ends and the set on it, so the crew can find it.
+      const ends = plan.jumpers.find((j) => j.id === last.link)?.label;
+      const which = `${last.link} (${ends ? `${ends}, ` : ''}set ${last.setTag})`;
+      flags.push({ code: 'removed-out-of-order', message: `Taken off out of order: ${which} went on last and was expected off first.` });
     }
   }
   if (entry.type === 'install' && BRIEFING_ITEMS.some((item) => !state.briefing[item])) {
@@ -103,7 +106,7 @@ export function judgeEntry(plan: RecordPlan, state: RecordState, entry: EntryBod
     default:
       break;
   }
-  return { ok: true, flags: flagsFor(state, entry) };
+  return { ok: true, flags: flagsFor(plan, state, entry) };
 }
 
 /** Applies one allowed entry to the state (a new state; the old one is left alone). */
@@ -142,7 +145,7 @@ export function applyEntry(plan: RecordPlan, state: RecordState, entry: FieldEnt
 export function replay(plan: RecordPlan, entries: readonly FieldEntry[], closed = false): RecordState {
   let state = emptyState(false);
   for (const entry of entries) {
-    state = applyEntry(plan, state, entry, flagsFor(state, entry));
+    state = applyEntry(plan, state, entry, flagsFor(plan, state, entry));
   }
   return { ...state, closed };
 }
