@@ -29,6 +29,16 @@ export function formatDate(at: Date, zone: string): string {
   return `${p.year}-${p.month}-${p.day}`;
 }
 
+/**
+ * The day a whole-day date (a set's test due date) is judged on: the later of UTC's day and the
+ * zone's, so a date past in either is past, and with no zone known, UTC's day.
+ */
+export function judgingDate(at: Date, zone?: string): string {
+  const utc = at.toISOString().slice(0, 10);
+  const local = zone && isTimeZone(zone) ? formatDate(at, zone) : utc;
+  return local > utc ? local : utc;
+}
+
 /** The 24-hour time of day in the zone: "01:30". */
 export function formatTime(at: Date, zone: string): string {
   const p = parts(at, zone);

@@ -1,6 +1,7 @@
 /** The device's view of a record: waiting entries replayed by the shared rules, judged with the server's words. */
 import { describe, expect, it } from 'vitest';
 import { judgeOnDevice, withPending } from '@/components/records/offline/local-view';
+import { judgingDay } from '@/components/records/SetChoice';
 import type { Pending } from '@/components/records/offline/outbox';
 import type { RecordView } from '@/components/records/types';
 import { REFUSALS, recordPlanFrom, type EntryBody } from '@/lib/domain/field-record';
@@ -45,4 +46,16 @@ describe('the record on the device', () => {
     expect(judgeOnDevice(tested, stamp(install('VISITING-3')))?.code).toBe('SET_NOT_USABLE');
     expect(judgeOnDevice(tested, stamp(install('INV-1')))).toBeNull();
   });
+
+  it("judges a set on the organisation's day when it is later than UTC's, as the server does", () => {
+    // 12:00 UTC on 4 May is 02:00 on 5 May on an island fourteen hours ahead: a set due on 4 May is overdue there.
+    const ahead: RecordView = { ...base, inventory: { today: '2026-05-04', timeZone: 'Pacific/Kiritimati', sets: [{ tag: 'DUE-4', description: 'x', status: 'in-service', testDueOn: '2026-05-04' }] } };
+    const tested = withPending(ahead, [waiting({ type: 'sign-on', people: ['u1'], visitors: [] }), waiting(test())], me);
+    const noon = new Date('2026-05-04T12:00:00Z');
+    expect(judgeOnDevice(tested, stamp(install('DUE-4')), noon)).toMatchObject({ code: 'SET_NOT_USABLE' });
+    expect(judgingDay(ahead, noon)).toBe('2026-05-05');
+    // Without the zone (a copy from before it was sent) the day is UTC's, never earlier than the server's.
+    expect(judgingDay({ ...base, inventory: { ...ahead.inventory!, timeZone: undefined } }, noon)).toBe('2026-05-04');
+  });
 });
+

@@ -6,11 +6,15 @@
  */
 import { useState } from 'react';
 import { inventoryStatusOf, usableSets } from '@/lib/domain/field-record';
+import { judgingDate } from '@/lib/time-format';
 import type { RecordView } from './types';
 
-/** The day sets are judged on here: the device's date, never earlier than the server's when the copy was made. */
+/**
+ * The day sets are judged on here: the device's day (UTC's, or the organisation's when that is
+ * later, as on the server), never earlier than the server's when the copy was made.
+ */
 export function judgingDay(record: RecordView, now = new Date()): string {
-  const device = now.toISOString().slice(0, 10);
+  const device = judgingDate(now, record.inventory?.timeZone);
   const server = record.inventory?.today ?? device;
   return device > server ? device : server;
 }

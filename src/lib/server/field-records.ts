@@ -10,16 +10,17 @@ import { inventorySetStatus, judgeAppend, judgeCloseOut, nextStep, recordPlanFro
 import type { Person } from '@/lib/domain/people';
 import { can } from '@/lib/domain/permissions';
 import type { EntryInput } from '@/lib/schemas/field-record';
-import { today } from './equipment-http';
 import { AppError } from './errors';
 import { roleRefusal } from './guards';
 import { queueMail } from './mail';
 import { closedMessages, deviationMessage } from './record-mail';
 import { publicUrl } from './settings';
+import { judgingDate } from '@/lib/time-format';
 
-/** The organisation's sets as the record needs them, with the day they are judged on. */
+/** The organisation's sets as the record needs them, with the day they are judged on and the organisation's zone. */
 export interface InventoryCopy {
   today: string;
+  timeZone: string;
   sets: (InventorySet & { description: string })[];
 }
 
@@ -29,7 +30,9 @@ export interface InventoryCopy {
  */
 export async function inventoryCopy(organizationId: number, now = new Date()): Promise<InventoryCopy> {
   const sets = (await allSets(getDb(), organizationId)).map((s) => ({ tag: s.tag, description: s.description, status: s.status, testDueOn: s.testDueOn, statusReason: s.statusReason }));
-  return { today: today(now), sets };
+  // The organisation's day when it is ahead of UTC's: a set due yesterday where the crew works is overdue there.
+  const { timeZone } = await getOrganisationSettings(getDb(), organizationId);
+  return { today: judgingDate(now, timeZone), timeZone, sets };
 }
 
 /** Is a set fit to go on: a tag of the organisation's inventory, in service, not past its test date. */
