@@ -50,18 +50,29 @@ describe('the set picker', () => {
 });
 
 describe('the next-step panel', () => {
-  it('records a voltage test only when every phase has a result and the detector was proved before and after', async () => {
+  it('records a clear test only when every phase reads absent and the detector was proved before and after', async () => {
     const submit = vi.fn();
     render(<StepPanel record={record({ kind: 'voltage-test' })} people={[me]} me={me} busy={false} submit={submit} onClose={() => undefined} />);
     const button = screen.getByRole('button', { name: 'Record test' });
     await userEvent.click(screen.getByLabelText('Detector proved before'));
     await userEvent.click(screen.getAllByRole('button', { name: 'Absent' })[0]);
-    await userEvent.click(screen.getAllByRole('button', { name: 'Present' })[1]);
+    expect(button).toBeDisabled();
+    await userEvent.click(screen.getAllByRole('button', { name: 'Absent' })[1]);
     expect(button).toBeDisabled();
     await userEvent.click(screen.getByLabelText('Detector proved after'));
     expect(button).toBeEnabled();
     await userEvent.click(button);
-    expect(submit).toHaveBeenCalledWith({ type: 'voltage-test', detector: 'Detector 7', detectorCheckedBefore: true, detectorCheckedAfter: true, phases: { A: 'absent', B: 'present' } });
+    expect(submit).toHaveBeenCalledWith({ type: 'voltage-test', detector: 'Detector 7', detectorCheckedBefore: true, detectorCheckedAfter: true, phases: { A: 'absent', B: 'absent' } });
+  });
+
+  it('records voltage found at once: one phase reading present is enough, nothing else has to be ticked', async () => {
+    const submit = vi.fn();
+    render(<StepPanel record={record({ kind: 'voltage-test' })} people={[me]} me={me} busy={false} submit={submit} onClose={() => undefined} />);
+    const button = screen.getByRole('button', { name: 'Record test' });
+    await userEvent.click(screen.getAllByRole('button', { name: 'Present' })[0]);
+    expect(button).toBeEnabled();
+    await userEvent.click(button);
+    expect(submit).toHaveBeenCalledWith({ type: 'voltage-test', detector: 'Detector 7', detectorCheckedBefore: false, detectorCheckedAfter: false, phases: { A: 'present' } });
   });
 
   it('puts a set on only with a set picked and the ground-end-first confirmation', async () => {

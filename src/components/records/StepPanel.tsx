@@ -65,7 +65,10 @@ function VoltageTest({ record, busy, submit }: StepProps) {
   const [phases, setPhases] = useState<Record<string, 'absent' | 'present'>>({});
   const [before, setBefore] = useState(false);
   const [after, setAfter] = useState(false);
-  const complete = record.plan.phases.every((p) => phases[p]) && detector.trim() && before && after;
+  // A clear test needs every phase absent and the detector proved before and after. Voltage found
+  // is recorded at once, as it stands: the crew stops, and nothing has to be ticked first.
+  const found = Object.values(phases).includes('present');
+  const complete = detector.trim() && (found || (record.plan.phases.every((p) => phases[p]) && before && after));
   return (
     <Card title="Test for voltage">
       <label className="block text-lg">Detector<input className="mt-1 min-h-[56px] w-full rounded-lg border-2 border-line px-3" value={detector} onChange={(e) => setDetector(e.target.value)} /></label>
@@ -81,6 +84,7 @@ function VoltageTest({ record, busy, submit }: StepProps) {
         </div>
       ))}
       <label className={CHECK}><input type="checkbox" className="h-7 w-7" checked={after} onChange={(e) => setAfter(e.target.checked)} /> Detector proved after</label>
+      {found && <p className="rounded-lg bg-blocker p-3 text-lg font-bold text-white" role="alert">Voltage found. Record it now and stop: no set goes on.</p>}
       <button type="button" className={PRIMARY} disabled={busy || !complete} onClick={() => submit({ type: 'voltage-test', detector: detector.trim(), detectorCheckedBefore: before, detectorCheckedAfter: after, phases })}>Record test</button>
     </Card>
   );
