@@ -90,6 +90,11 @@ describe('the next-step panel', () => {
     expect(submit).toHaveBeenCalledWith({ type: 'install', link: 'jA', setTag: 'LV-07', groundEndFirst: true });
   });
 
+  it('says who closed the record out and when, in the organisation\'s time zone', () => {
+    render(<StepPanel record={record({ kind: 'closed' }, { status: 'closed', closedAt: '2026-05-04T19:05:00.000Z', closedBy: me })} people={[me]} me={me} busy={false} submit={vi.fn()} onClose={() => undefined} timeZone="America/Chicago" />);
+    expect(screen.getByTestId('next-step').textContent).toBe('Closed out by Invented Lead at 2026-05-04 14:05 CDT. Nothing more can be recorded.');
+  });
+
   it('after voltage was found offers no way to put a set on, only the stop', () => {
     render(<StepPanel record={record({ kind: 'stop' }, { voltageFound: true })} people={[me]} me={me} busy={false} submit={vi.fn()} onClose={() => undefined} />);
     expect(screen.getByRole('alert').textContent).toMatch(/Call the system operator/);

@@ -66,3 +66,20 @@ it('an apprentice fixes the demo plan with taps and hands it in; the buttons sta
   await page.getByTestId('attempt-result').waitFor();
   expect(await page.getByTestId('score').textContent()).toBe('100');
 });
+
+it('every control of an open field record is a 44 px target on the tablet', async () => {
+  const { page } = await browser.signIn('lead@demo.test', TABLET);
+  await page.goto(`${BASE_URL}/records?status=open`);
+  await page.getByTestId('record-table').getByRole('link').first().tap();
+  await page.waitForURL(/\/records\/\d+$/);
+  await page.getByTestId('next-step').waitFor();
+  // Photos load lazily: bring them in so a link around a thumbnail is measured at its size.
+  await page.evaluate(() => window.scrollTo(0, document.body.scrollHeight));
+  await expect.poll(() => page.locator('main img').evaluateAll((imgs) => imgs.every((i) => (i as HTMLImageElement).complete && (i as HTMLImageElement).naturalWidth > 0))).toBe(true);
+  const small = await page.locator('main').evaluate((main) =>
+    [...main.querySelectorAll<HTMLElement>('a, button, summary, select, textarea, input:not([type=checkbox]):not([type=radio])')]
+      .map((e) => ({ name: (e.textContent || e.getAttribute('aria-label') || e.getAttribute('name') || e.tagName).trim().slice(0, 40), box: e.getBoundingClientRect() }))
+      .filter(({ box }) => box.width > 0 && box.height > 0 && (box.height < 44 || box.width < 44))
+      .map(({ name, box }) => `${name} ${Math.round(box.width)}x${Math.round(box.height)}`));
+  expect(small).toEqual([]);
+});

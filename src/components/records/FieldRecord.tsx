@@ -85,7 +85,7 @@ export default function FieldRecord({ initial, people, me, canWrite, timeZone }:
         </div>
       )}
 
-      {canWrite || record.status === 'closed' ? <StepPanel record={record} people={people} me={me} busy={busy} submit={submit} onClose={onClose} /> : <p className="text-note">Read only: your role may view this record.</p>}
+      {canWrite || record.status === 'closed' ? <StepPanel record={record} people={people} me={me} busy={busy} submit={submit} onClose={onClose} timeZone={timeZone} /> : <p className="text-note">Read only: your role may view this record.</p>}
 
       {/* A crew must always be able to take grounds off, whatever the next expected step is. */}
       {open && record.setsOn.some((s) => !('link' in record.next) || s.link !== record.next.link) && (

@@ -4,6 +4,7 @@
  */
 import { useState, type ReactNode } from 'react';
 import { BRIEFING_LABELS, type EntryBody } from '@/lib/domain/field-record';
+import { formatDateTime } from '@/lib/time-format';
 import { firstChoice, SetChoice } from './SetChoice';
 import type { CrewPerson, RecordView } from './types';
 
@@ -28,6 +29,8 @@ export interface StepProps {
   busy: boolean;
   submit: (body: EntryBody) => void;
   onClose: () => void;
+  /** The organisation's time zone: the close-out time is read in it. */
+  timeZone?: string;
 }
 
 function SignOn({ people, me, busy, submit }: StepProps) {
@@ -135,6 +138,6 @@ export function StepPanel(props: StepProps) {
     case 'stop':
       return <p className="rounded-xl bg-blocker p-4 text-xl font-bold text-white" role="alert" data-testid="next-step">Voltage found. Stop: no set goes on. Call the system operator.</p>;
     case 'closed':
-      return <p className="rounded-xl border-2 border-clear bg-white p-4 text-xl font-bold" data-testid="next-step">Closed out by {record.closedBy?.name}. Nothing more can be recorded.</p>;
+      return <p className="rounded-xl border-2 border-clear bg-white p-4 text-xl font-bold" data-testid="next-step">Closed out by {record.closedBy?.name}{record.closedAt && props.timeZone ? ` at ${formatDateTime(new Date(record.closedAt), props.timeZone)}` : ''}. Nothing more can be recorded.</p>;
   }
 }
