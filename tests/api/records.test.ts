@@ -97,6 +97,10 @@ describe('the whole sequence', () => {
     const flat = text.replace(/\s+/g, ' ');
     for (const part of ['Field record', 'Briefing', 'Invented detector 7', 'ON jA with set SET-jA', 'OFF jB', 'FLAG: Taken off out of order', 'Closed by', 'the clearance can be released', 'approved detector']) expect(flat).toContain(part);
     expect(flat.indexOf('ON jN')).toBeLessThan(flat.indexOf('OFF jA'));
+    // The install confirms "ground end first" (the crew ticks it); a removal records no such thing,
+    // so the sheet must not say which end came off first.
+    expect(flat).toContain('(ground end first)');
+    expect(flat).not.toMatch(/line end first/i);
   });
 });
 
