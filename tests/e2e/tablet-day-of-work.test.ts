@@ -83,3 +83,25 @@ it('every control of an open field record is a 44 px target on the tablet', asyn
       .map(({ name, box }) => `${name} ${Math.round(box.width)}x${Math.round(box.height)}`));
   expect(small).toEqual([]);
 });
+
+it('the field drawing keeps showing the sets that are on when a finger taps it', async () => {
+  const { page } = await browser.signIn('lead@demo.test', TABLET);
+  await page.goto(`${BASE_URL}/records?status=open`);
+  await page.getByTestId('record-table').getByRole('link').first().tap();
+  await page.waitForURL(/\/records\/\d+$/);
+  const drawing = page.getByTestId('field-drawing');
+  await drawing.locator('.react-flow__node').first().waitFor();
+  const on = (await drawing.getAttribute('data-on'))!.split(',').filter(Boolean).sort();
+  expect(on.length).toBeGreaterThan(0);
+  const shownOn = () => drawing.locator('.react-flow__edge.selected [data-testid^="link-"]').evaluateAll((els) => els.map((e) => e.getAttribute('data-testid')!.slice(5)).sort());
+  await expect.poll(shownOn).toEqual(on);
+  // A tap on a symbol, then on a jumper that has no set on: the drawing still shows what is on.
+  await drawing.scrollIntoViewIfNeeded();
+  const symbol = (await drawing.locator('.react-flow__node[data-id="CB"] .bm-glyph-box').boundingBox())!;
+  await page.touchscreen.tap(symbol.x + symbol.width / 2, symbol.y + symbol.height / 2);
+  const off = drawing.locator('.react-flow__edge:not(.selected)').first();
+  const offBox = (await off.locator('text').first().boundingBox()) ?? (await off.boundingBox())!;
+  await page.touchscreen.tap(offBox.x + offBox.width / 2, offBox.y + offBox.height / 2);
+  await page.waitForTimeout(300);
+  expect(await shownOn()).toEqual(on);
+});
