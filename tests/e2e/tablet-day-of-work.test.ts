@@ -105,3 +105,22 @@ it('the field drawing keeps showing the sets that are on when a finger taps it',
   await page.waitForTimeout(300);
   expect(await shownOn()).toEqual(on);
 });
+
+/** Links and controls in `scope` smaller than 44 px either way, as "name WxH". */
+const smallTargets = (page: Page, scope: string) =>
+  page.locator(scope).first().evaluate((root) =>
+    [...root.querySelectorAll<HTMLElement>('a, button, summary, select, textarea, input:not([type=checkbox]):not([type=radio]):not([type=hidden])')]
+      .map((e) => ({ name: (e.textContent || e.getAttribute('aria-label') || e.tagName).trim().slice(0, 40), box: e.getBoundingClientRect() }))
+      .filter(({ box }) => box.width > 0 && box.height > 0 && (box.height < 44 || box.width < 44))
+      .map(({ name, box }) => `${name} ${Math.round(box.width)}x${Math.round(box.height)}`));
+
+it('the sets-due card, the test settings and the practice progress table are worked with 44 px targets', async () => {
+  const { page: admin } = await browser.signIn('admin@demo.test', TABLET);
+  await admin.goto(`${BASE_URL}/`);
+  expect(await smallTargets(admin, '[data-testid="sets-due"]')).toEqual([]);
+  await admin.goto(`${BASE_URL}/equipment/settings`);
+  expect(await smallTargets(admin, 'main')).toEqual([]);
+  const { page: reviewer } = await browser.signIn('reviewer@demo.test', TABLET);
+  await reviewer.goto(`${BASE_URL}/practice/progress`);
+  expect(await smallTargets(reviewer, 'main')).toEqual([]);
+});
