@@ -77,7 +77,7 @@ function VoltageTest({ record, busy, submit }: StepProps) {
       <label className="block text-lg">Detector<input className="mt-1 min-h-[56px] w-full rounded-lg border-2 border-line px-3" value={detector} onChange={(e) => setDetector(e.target.value)} /></label>
       <label className={CHECK}><input type="checkbox" className="h-7 w-7" checked={before} onChange={(e) => setBefore(e.target.checked)} /> Detector proved before</label>
       {record.plan.phases.map((p) => (
-        <div key={p} className="grid grid-cols-[3rem_1fr_1fr] items-center gap-2" role="group" aria-label={`Phase ${p}`}>
+        <div key={p} className="grid grid-cols-[minmax(3rem,auto)_1fr_1fr] items-center gap-2" role="group" aria-label={`Phase ${p}`}>
           <span className="text-xl font-bold">{p}</span>
           {(['absent', 'present'] as const).map((r) => (
             <button key={r} type="button" aria-pressed={phases[p] === r} className={`${BIG} border-2 ${phases[p] === r ? (r === 'present' ? 'border-blocker bg-blocker text-white' : 'border-clear bg-clear text-white') : 'border-line bg-white'}`} onClick={() => setPhases((s) => ({ ...s, [p]: r }))}>

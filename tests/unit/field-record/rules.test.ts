@@ -33,6 +33,28 @@ describe('the plan as the record sees it', () => {
   });
 });
 
+describe('a plan with two conductors of one phase letter (two circuits)', () => {
+  const doc = planDocument({ nodes: [...planDocument().nodes, { id: 'A2', kind: 'phase', phase: 'A' }, { id: 'B2', kind: 'phase', phase: 'B' }] });
+  const two = recordPlanFrom(doc);
+
+  it('asks the voltage test for every conductor, naming the repeated letters by their conductor', () => {
+    expect(two.phases).toEqual(['A (A)', 'B (B)', 'C', 'A (A2)', 'B (B2)']);
+  });
+
+  it('puts no set on after a test that left a conductor of a repeated letter out', () => {
+    let state = replay(two, []);
+    for (const body of [signOn, ...briefing]) state = applyEntry(two, state, entry(body), []);
+    // A, B and C read absent says nothing about the second A and B conductors.
+    const byLetter = passing;
+    expect(judgeEntry(two, state, byLetter, freeTextSetStatus)).toMatchObject({ ok: false, refusal: { code: 'PHASE_NOT_IN_PLAN' } });
+    const tested = applyEntry(two, state, entry(byLetter), []);
+    expect(judgeEntry(two, tested, install('jA'), freeTextSetStatus)).toMatchObject({ ok: false, refusal: { code: 'VOLTAGE_TEST_REQUIRED' } });
+    const all: EntryBody = { ...passing, phases: Object.fromEntries(two.phases.map((p) => [p, 'absent'])) } as EntryBody;
+    state = applyEntry(two, state, entry(all), []);
+    expect(judgeEntry(two, state, install('jA'), freeTextSetStatus).ok).toBe(true);
+  });
+});
+
 describe('installing', () => {
   const ready = () => run([signOn, ...briefing, passing]);
 

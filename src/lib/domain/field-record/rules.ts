@@ -10,7 +10,12 @@ import { BRIEFING_ITEMS, type BriefingItem, type EntryBody, type FieldEntry, typ
 
 /** The phases and jumpers of a plan document, as the record uses them. */
 export function recordPlanFrom(doc: PlanDocument): RecordPlan {
-  const phases = doc.nodes.filter((n) => n.kind === 'phase').map((n) => ('phase' in n && typeof n.phase === 'string' && n.phase ? n.phase : n.id));
+  const conductors = doc.nodes.filter((n) => n.kind === 'phase').map((n) => ({ id: n.id, letter: 'phase' in n && typeof n.phase === 'string' && n.phase ? n.phase : n.id }));
+  // Every phase conductor gets its own result. A letter two conductors share (two circuits on the
+  // structure) is named with each conductor's id, as the drawing shows it: "A (A)", "A (A2)".
+  const count = new Map<string, number>();
+  for (const c of conductors) count.set(c.letter, (count.get(c.letter) ?? 0) + 1);
+  const phases = conductors.map((c) => ((count.get(c.letter) ?? 0) > 1 ? `${c.letter} (${c.id})` : c.letter));
   const labels = new Map(doc.nodes.map((n) => [n.id, n.label ?? n.id]));
   const jumpers = doc.links.filter((l) => l.kind === 'jumper').map((l) => ({ id: l.id, label: `${labels.get(l.from) ?? l.from} – ${labels.get(l.to) ?? l.to}` }));
   return { phases: [...new Set(phases)], jumpers };
