@@ -65,6 +65,7 @@ it('an apprentice fixes the demo plan with taps and hands it in; the buttons sta
   await handIn.tap();
   await page.getByTestId('attempt-result').waitFor();
   expect(await page.getByTestId('score').textContent()).toBe('100');
+  expect(await smallTargets(page, '[data-testid="attempt-result"]')).toEqual([]);
 });
 
 it('every control of an open field record is a 44 px target on the tablet', async () => {
