@@ -19,7 +19,8 @@ const base: RecordView = {
 let seq = 0;
 const waiting = (body: EntryBody, refused?: Pending['refused']): Pending => ({ kind: 'entry', key: `k${(seq += 1)}`, personId: 'u1', recordId: 1, seq, entry: { ...body, clientId: `k${seq}`, at: `2026-05-04T07:${String(seq).padStart(2, '0')}:00.000Z` }, ...(refused ? { refused } : {}) });
 const test = (): EntryBody => ({ type: 'voltage-test', detector: 'D7', detectorCheckedBefore: true, detectorCheckedAfter: true, phases: Object.fromEntries(plan.phases.map((p) => [p, 'absent'])) });
-const link = plan.jumpers[0].id;
+// The set that grounds the cluster bar, so it is the one that may go on first.
+const link = 'jN';
 const install = (setTag: string): EntryBody => ({ type: 'install', link, setTag, groundEndFirst: true });
 const stamp = (body: EntryBody) => ({ ...body, clientId: 'new', at: '2026-05-04T08:00:00.000Z', actorId: 'u1' }) as Parameters<typeof judgeOnDevice>[1];
 

@@ -106,8 +106,44 @@ describe('installing', () => {
   });
 
   it('flags a set put on before the briefing was complete (allowed, noticed)', () => {
-    const v = judgeEntry(plan, run([signOn, passing]), install('jA'), freeTextSetStatus);
+    const v = judgeEntry(plan, run([signOn, passing]), install('jN'), freeTextSetStatus);
     expect(v).toEqual({ ok: true, flags: [expect.objectContaining({ code: 'installed-before-briefing' })] });
+  });
+});
+
+describe('the ground side goes on first', () => {
+  const tested = () => run([signOn, ...briefing, passing]);
+
+  it('offers the set that grounds the cluster bar before the sets on the phases', () => {
+    const steps: string[] = [];
+    let state = tested();
+    for (let i = 0; i < 4; i += 1) {
+      const next = nextStep(plan, state);
+      if (next.kind !== 'install') throw new Error(`expected an install, got ${next.kind}`);
+      steps.push(next.link);
+      state = applyEntry(plan, state, entry(install(next.link)), []);
+    }
+    expect(steps).toEqual(['jN', 'jA', 'jB', 'jC']);
+  });
+
+  it('flags a set on a phase put on while its other end has no path to ground (allowed, noticed)', () => {
+    const v = judgeEntry(plan, tested(), install('jA'), freeTextSetStatus);
+    expect(v.ok && v.flags.map((f) => f.code)).toEqual(['installed-before-ground']);
+    expect(v.ok && v.flags[0].message).toContain('jA (A – CB)');
+    const grounded = run([signOn, ...briefing, passing, install('jN')]);
+    expect(judgeEntry(plan, grounded, install('jA'), freeTextSetStatus)).toEqual({ ok: true, flags: [] });
+  });
+
+  it('counts a permanent bond to ground as a path, and asks nothing of a plan copy without the ground data', () => {
+    const bonded = recordPlanFrom(planDocument({ links: [...planDocument().links, { id: 'bCB', kind: 'bond', from: 'CB', to: 'N' }] }));
+    let state = replay(bonded, []);
+    for (const body of [signOn, ...briefing, passing]) state = applyEntry(bonded, state, entry(body), []);
+    expect(judgeEntry(bonded, state, install('jA'), freeTextSetStatus)).toEqual({ ok: true, flags: [] });
+    expect(nextStep(bonded, state)).toEqual({ kind: 'install', link: 'jA' });
+    const old: RecordPlan = { phases: plan.phases, jumpers: plan.jumpers.map(({ id, label }) => ({ id, label })) };
+    let before = replay(old, []);
+    for (const body of [signOn, ...briefing, passing]) before = applyEntry(old, before, entry(body), []);
+    expect(judgeEntry(old, before, install('jA'), freeTextSetStatus)).toEqual({ ok: true, flags: [] });
   });
 });
 
@@ -115,7 +151,7 @@ describe('removing', () => {
   const allOn = () => run([signOn, ...briefing, passing, install('jA'), install('jB'), install('jC'), install('jN')]);
 
   it('in reverse order raises no flag', () => {
-    const state = run([signOn, ...briefing, passing, install('jA'), install('jB'), remove('jB'), remove('jA')]);
+    const state = run([signOn, ...briefing, passing, install('jN'), install('jA'), remove('jA'), remove('jN')]);
     expect(state.flags.flat()).toEqual([]);
     expect(state.on).toEqual([]);
   });
@@ -170,21 +206,21 @@ describe('close-out and the closed record', () => {
 });
 
 describe('the next expected step', () => {
-  it('walks sign-on, the briefing, the test, sets on in plan order, off in reverse, close', () => {
+  it('walks sign-on, the briefing, the test, sets on in plan order with the ground side first, off in reverse, close', () => {
     const steps: string[] = [];
-    const bodies = [signOn, ...briefing, passing, install('jA'), install('jB'), install('jC'), install('jN'), remove('jN'), remove('jC'), remove('jB'), remove('jA')];
+    const bodies = [signOn, ...briefing, passing, install('jN'), install('jA'), install('jB'), install('jC'), remove('jC'), remove('jB'), remove('jA'), remove('jN')];
     for (let i = 0; i <= bodies.length; i += 1) {
       const s = nextStep(plan, run(bodies.slice(0, i)));
       steps.push('link' in s ? `${s.kind}:${s.link}` : 'item' in s ? `${s.kind}:${s.item}` : s.kind);
     }
     expect(steps).toEqual([
       'sign-on', ...BRIEFING_ITEMS.map((i) => `briefing:${i}`), 'voltage-test',
-      'install:jA', 'install:jB', 'install:jC', 'install:jN', 'remove:jN', 'remove:jC', 'remove:jB', 'remove:jA', 'close', 'close',
+      'install:jN', 'install:jA', 'install:jB', 'install:jC', 'remove:jC', 'remove:jB', 'remove:jA', 'remove:jN', 'close', 'close',
     ].slice(0, bodies.length + 1));
   });
 
   it('replay recomputes the same flags the entries raised when recorded', () => {
-    const bodies = [signOn, passing, install('jA'), install('jB'), remove('jA'), remove('jB')];
+    const bodies = [signOn, passing, install('jN'), install('jA'), remove('jN'), remove('jA')];
     const live = run(bodies);
     const replayed = replay(plan, bodies.map(entry));
     expect(replayed.flags).toEqual(live.flags);

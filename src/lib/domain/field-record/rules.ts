@@ -17,8 +17,52 @@ export function recordPlanFrom(doc: PlanDocument): RecordPlan {
   for (const c of conductors) count.set(c.letter, (count.get(c.letter) ?? 0) + 1);
   const phases = conductors.map((c) => ((count.get(c.letter) ?? 0) > 1 ? `${c.letter} (${c.id})` : c.letter));
   const labels = new Map(doc.nodes.map((n) => [n.id, n.label ?? n.id]));
-  const jumpers = doc.links.filter((l) => l.kind === 'jumper').map((l) => ({ id: l.id, label: `${labels.get(l.from) ?? l.from} – ${labels.get(l.to) ?? l.to}` }));
-  return { phases: [...new Set(phases)], jumpers };
+  const jumpers = doc.links.filter((l) => l.kind === 'jumper').map((l) => ({ id: l.id, label: `${labels.get(l.from) ?? l.from} – ${labels.get(l.to) ?? l.to}`, from: l.from, to: l.to }));
+  const grounds = doc.nodes.filter((n) => GROUND_KINDS.has(n.kind) || ('groundOhms' in n && typeof n.groundOhms === 'number'));
+  const ground = {
+    nodes: grounds.map((n) => n.id),
+    phases: conductors.map((c) => c.id),
+    bonds: doc.links.filter((l) => l.kind === 'bond').map((l): [string, string] => [l.from, l.to]),
+  };
+  return { phases: [...new Set(phases)], jumpers, ground };
+}
+
+/** Nodes that are a ground in themselves. */
+const GROUND_KINDS = new Set(['neutral', 'shield-wire', 'ground-rod', 'earth', 'pole-ground']);
+
+/** The nodes joined to a ground now: through the plan's bonds and the sets on. */
+function groundedNow(plan: RecordPlan, on: readonly SetOn[]): Set<string> | null {
+  if (!plan.ground) return null;
+  const edges: [string, string][] = [...plan.ground.bonds];
+  for (const s of on) {
+    const j = plan.jumpers.find((x) => x.id === s.link);
+    if (j?.from && j.to) edges.push([j.from, j.to]);
+  }
+  const reached = new Set(plan.ground.nodes);
+  for (let grew = true; grew; ) {
+    grew = false;
+    for (const [a, b] of edges) {
+      if (reached.has(a) !== reached.has(b)) {
+        reached.add(a);
+        reached.add(b);
+        grew = true;
+      }
+    }
+  }
+  return reached;
+}
+
+/**
+ * A set for a jumper on a phase goes on only once its other end has a path to ground (the ground
+ * end first, for the zone as for each set): true when it may, or when the plan copy cannot say.
+ */
+function groundReady(plan: RecordPlan, on: readonly SetOn[], link: string): boolean {
+  const grounded = groundedNow(plan, on);
+  const j = plan.jumpers.find((x) => x.id === link);
+  if (!grounded || !plan.ground || !j?.from || !j.to) return true;
+  const phases = new Set(plan.ground.phases);
+  if (!phases.has(j.from) && !phases.has(j.to)) return true;
+  return grounded.has(j.from) || grounded.has(j.to);
 }
 
 export interface SetOn {
@@ -69,6 +113,10 @@ function flagsFor(plan: RecordPlan, state: RecordState, entry: EntryBody): Flag[
       const which = `${last.link} (${ends ? `${ends}, ` : ''}set ${last.setTag})`;
       flags.push({ code: 'removed-out-of-order', message: `Taken off out of order: ${which} went on last and was expected off first.` });
     }
+  }
+  if (entry.type === 'install' && !groundReady(plan, state.on, entry.link)) {
+    const j = plan.jumpers.find((x) => x.id === entry.link);
+    flags.push({ code: 'installed-before-ground', message: `Put on before its other end had a path to ground: ${entry.link}${j ? ` (${j.label})` : ''} went on before the set that grounds it; the ground-side set goes on first.` });
   }
   if (entry.type === 'install' && BRIEFING_ITEMS.some((item) => !state.briefing[item])) {
     flags.push({ code: 'installed-before-briefing', message: 'Put on before every briefing item was ticked.' });
@@ -174,7 +222,7 @@ export type NextStep =
 
 /**
  * The step the crew is expected to take next: sign on, the briefing in order, the test, the sets
- * in plan order, then off in reverse order, then close-out. After voltage is found: stop (or take
+ * in plan order with the ground side first, then off in reverse order, then close-out. After voltage is found: stop (or take
  * off anything already on).
  */
 export function nextStep(plan: RecordPlan, state: RecordState): NextStep {
@@ -186,8 +234,10 @@ export function nextStep(plan: RecordPlan, state: RecordState): NextStep {
   if (item) return { kind: 'briefing', item };
   if (!state.testPassed && state.installed === 0) return { kind: 'voltage-test' };
   if (state.testPassed && state.removed === 0) {
-    const pending = plan.jumpers.find((j) => !state.on.some((s) => s.link === j.id));
-    if (pending) return { kind: 'install', link: pending.id };
+    // In plan order, but a set on a phase waits until its other end has a path to ground.
+    const pending = plan.jumpers.filter((j) => !state.on.some((s) => s.link === j.id));
+    const next = pending.find((j) => groundReady(plan, state.on, j.id)) ?? pending[0];
+    if (next) return { kind: 'install', link: next.id };
   }
   if (last) return { kind: 'remove', link: last.link };
   return { kind: 'close' };
