@@ -4,7 +4,7 @@
  * a set event.
  */
 import { Op, UniqueConstraintError, type Order, type Transaction, type WhereOptions } from 'sequelize';
-import { addDays, dueState, limitFor, testDueOn, type SetRecord } from '@/lib/domain/equipment';
+import { addDays, dueState, limitFor, SET_FIELD_WORDS, testDueOn, type SetRecord } from '@/lib/domain/equipment';
 import type { CreateSetBody, ListSetsQuery, PatchSetBody, SetSort, SetTestBody } from '@/lib/schemas/equipment';
 import type { Db } from '@db/connection';
 import type { GroundingSet, SetEvent, SetTest } from '@db/models';
@@ -199,7 +199,7 @@ export async function updateSet(db: Db, organizationId: number, id: number, acto
         const { testIntervalMonths } = await getSettings(db, organizationId, t);
         const inServiceOn = record.inServiceOn ?? row.inServiceOn;
         await row.update({ ...record, testDueOn: testDueOn(row.lastTestedOn, inServiceOn, testIntervalMonths) }, { transaction: t });
-        await db.models.SetEvent.create(event(organizationId, id, actorId, { kind: 'edited', reason: `Changed ${Object.keys(record).join(', ')}` }), { transaction: t });
+        await db.models.SetEvent.create(event(organizationId, id, actorId, { kind: 'edited', reason: `Changed ${Object.keys(record).map((k) => SET_FIELD_WORDS[k] ?? k).join(', ')}` }), { transaction: t });
       }
       return { kind: 'ok' as const, value: setJson(row) };
     });

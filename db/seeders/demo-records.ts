@@ -9,6 +9,7 @@ import { inventorySetStatus, judgeAppend, judgeCloseOut, type EntryBody, type Fi
 import { objectStoreSettings } from '@/lib/server/object-store';
 import { putPhotoObjects } from '@/lib/server/photos';
 import type { Db } from '@db/connection';
+import type { FieldRecordEntry } from '@db/models';
 import { allSets } from '@db/repositories/equipment';
 import { addEntry, addPhoto, closeRecord, createRecord } from '@db/repositories/field-records';
 
@@ -80,6 +81,9 @@ export async function seedDemoRecords(db: Db, organizationId: number, planId: nu
   await photo(closedId, 205, 3, 'All three phases to the cluster bar (drawn for the demo)');
   const closed = await closeRecord(db, organizationId, closedId, leadId, judgeCloseOut);
   if (closed.kind !== 'ok') throw new Error(`demo record cannot be closed: ${closed.kind}`);
+  // Closed out on its own day, just after the last set came off, not when the demo is seeded.
+  const last = await db.models.FieldRecordEntry.max<Date, FieldRecordEntry>('at', { where: { recordId: closedId } });
+  await db.models.FieldRecord.update({ closedAt: new Date(new Date(last).getTime() + 8 * 60_000) }, { where: { id: closedId } });
 
   const openId = await open(today, 'HOLD-DEMO-0123');
   await write(openId, today, [...start, on('jN', 'LV-106'), on('jA', 'LV-105'), on('jB', 'LV-109')]);

@@ -39,9 +39,21 @@ it('shows a set with its tests and events, and 404 to another organisation', asy
   const page = await apprentice.get(`/equipment/${ids['P-OVER']}`);
   expect(page.status).toBe(200);
   expect(page.text).toContain('Set P-OVER');
-  expect(page.text).toContain('created');
+  expect(page.text).toMatch(/data-testid="set-events"[\s\S]*Added/);
   expect(page.text).not.toContain('Add a test');
   expect((await stranger.get(`/equipment/${ids['P-OVER']}`)).status).toBe(404);
+});
+
+it("tells a set's history in plain words: no field names or status codes", async () => {
+  const id = (await admin.post('/api/equipment', setBody())).body.set.id as number;
+  expect((await admin.patch(`/api/equipment/${id}`, { lengthM: 2.4, clampKa: 31, inServiceOn: monthsAgo(30) })).status).toBe(200);
+  expect((await admin.patch(`/api/equipment/${id}`, { status: 'out-of-service', statusReason: 'Invented: ferrule cracked' })).status).toBe(200);
+  const html = (await apprentice.get(`/equipment/${id}`)).text;
+  const events = (html.match(/<ol[^>]*data-testid="set-events"[\s\S]*?<\/ol>/)?.[0] ?? '').replace(/<[^>]+>/g, '');
+  expect(events).toContain('Changed the length, the clamp rating (kA), the date it went into service');
+  expect(events).toContain('Out of service: Invented: ferrule cracked');
+  expect(events).toContain('Added');
+  for (const code of ['lengthM', 'clampKa', 'inServiceOn', 'out-of-service', 'in-service', 'edited', 'created']) expect(events, code).not.toContain(code);
 });
 
 it('shows the admin the counts of overdue and due-soon sets on the home page', async () => {

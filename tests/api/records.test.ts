@@ -67,7 +67,14 @@ describe('the whole sequence', () => {
   it('signs on, briefs, tests, puts every set on and off, closes, and mails the summary', async () => {
     const id = await openRecord();
     await readyToInstall(lead, id, team.lead.id);
-    for (const link of JUMPERS) expect((await post(id, entry('install', { link, setTag: `SET-${link}`, groundEndFirst: true }))).status).toBe(201);
+    const installed: { flags: { code: string }[] }[] = [];
+    for (const link of JUMPERS) {
+      const response = await post(id, entry('install', { link, setTag: `SET-${link}`, groundEndFirst: true }));
+      expect(response.status).toBe(201);
+      installed.push(response.body.entry);
+    }
+    // Phase sets put on before the set from the cluster bar to the neutral: recorded, flagged.
+    expect(installed.map((e) => e.flags.map((f) => f.code))).toEqual([['installed-before-ground'], ['installed-before-ground'], ['installed-before-ground'], []]);
     let record = (await lead.get(`/api/records/${id}`)).body.record;
     expect(record.counts).toEqual({ on: 4, installed: 4, removed: 0 });
     expect(record.next).toEqual({ kind: 'remove', link: 'jN' });
@@ -97,6 +104,10 @@ describe('the whole sequence', () => {
     const flat = text.replace(/\s+/g, ' ');
     for (const part of ['Field record', 'Briefing', 'Invented detector 7', 'ON jA with set SET-jA', 'OFF jB', 'FLAG: Taken off out of order', 'Closed by', 'the clearance can be released', 'approved detector']) expect(flat).toContain(part);
     expect(flat.indexOf('ON jN')).toBeLessThan(flat.indexOf('OFF jA'));
+    // The install confirms "ground end first" (the crew ticks it); a removal records no such thing,
+    // so the sheet must not say which end came off first.
+    expect(flat).toContain('(ground end first)');
+    expect(flat).not.toMatch(/line end first/i);
   });
 });
 

@@ -1,7 +1,7 @@
 /** The device's view of a record: waiting entries replayed by the shared rules, judged with the server's words. */
 import { describe, expect, it } from 'vitest';
-import { judgingDay } from '@/components/records/SetChoice';
 import { judgeOnDevice, withPending } from '@/components/records/offline/local-view';
+import { judgingDay } from '@/components/records/SetChoice';
 import type { Pending } from '@/components/records/offline/outbox';
 import type { RecordView } from '@/components/records/types';
 import { REFUSALS, recordPlanFrom, type EntryBody } from '@/lib/domain/field-record';
@@ -19,7 +19,8 @@ const base: RecordView = {
 let seq = 0;
 const waiting = (body: EntryBody, refused?: Pending['refused']): Pending => ({ kind: 'entry', key: `k${(seq += 1)}`, personId: 'u1', recordId: 1, seq, entry: { ...body, clientId: `k${seq}`, at: `2026-05-04T07:${String(seq).padStart(2, '0')}:00.000Z` }, ...(refused ? { refused } : {}) });
 const test = (): EntryBody => ({ type: 'voltage-test', detector: 'D7', detectorCheckedBefore: true, detectorCheckedAfter: true, phases: Object.fromEntries(plan.phases.map((p) => [p, 'absent'])) });
-const link = plan.jumpers[0].id;
+// The set that grounds the cluster bar, so it is the one that may go on first.
+const link = 'jN';
 const install = (setTag: string): EntryBody => ({ type: 'install', link, setTag, groundEndFirst: true });
 const stamp = (body: EntryBody) => ({ ...body, clientId: 'new', at: '2026-05-04T08:00:00.000Z', actorId: 'u1' }) as Parameters<typeof judgeOnDevice>[1];
 
@@ -53,5 +54,16 @@ describe('the record on the device', () => {
     expect(judgingDay(base, at, 'UTC')).toBe('2026-05-04');
     // A device whose calendar is behind the server's day (UTC−12: still 2026-05-04 08:00) takes the server's day.
     expect(judgingDay({ ...base, inventory: { ...base.inventory!, today: '2026-05-05' } }, at, 'Etc/GMT+12')).toBe('2026-05-05');
+  });
+
+  it("judges a set on the organisation's day when it is later than UTC's, as the server does", () => {
+    // 12:00 UTC on 4 May is 02:00 on 5 May on an island fourteen hours ahead: a set due on 4 May is overdue there.
+    const ahead: RecordView = { ...base, inventory: { today: '2026-05-04', timeZone: 'Pacific/Kiritimati', sets: [{ tag: 'DUE-4', description: 'x', status: 'in-service', testDueOn: '2026-05-04' }] } };
+    const tested = withPending(ahead, [waiting({ type: 'sign-on', people: ['u1'], visitors: [] }), waiting(test())], me);
+    const noon = new Date('2026-05-04T12:00:00Z');
+    expect(judgeOnDevice(tested, stamp(install('DUE-4')), noon)).toMatchObject({ code: 'SET_NOT_USABLE' });
+    expect(judgingDay(ahead, noon)).toBe('2026-05-05');
+    // Without the zone (a copy from before it was sent) the day is the device's own (UTC here), never earlier than the server's.
+    expect(judgingDay({ ...base, inventory: { ...ahead.inventory!, timeZone: undefined } }, noon, 'UTC')).toBe('2026-05-04');
   });
 });

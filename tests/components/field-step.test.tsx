@@ -50,18 +50,29 @@ describe('the set picker', () => {
 });
 
 describe('the next-step panel', () => {
-  it('records a voltage test only when every phase has a result and the detector was proved before and after', async () => {
+  it('records a clear test only when every phase reads absent and the detector was proved before and after', async () => {
     const submit = vi.fn();
     render(<StepPanel record={record({ kind: 'voltage-test' })} people={[me]} me={me} busy={false} submit={submit} onClose={() => undefined} />);
     const button = screen.getByRole('button', { name: 'Record test' });
     await userEvent.click(screen.getByLabelText('Detector proved before'));
     await userEvent.click(screen.getAllByRole('button', { name: 'Absent' })[0]);
-    await userEvent.click(screen.getAllByRole('button', { name: 'Present' })[1]);
+    expect(button).toBeDisabled();
+    await userEvent.click(screen.getAllByRole('button', { name: 'Absent' })[1]);
     expect(button).toBeDisabled();
     await userEvent.click(screen.getByLabelText('Detector proved after'));
     expect(button).toBeEnabled();
     await userEvent.click(button);
-    expect(submit).toHaveBeenCalledWith({ type: 'voltage-test', detector: 'Detector 7', detectorCheckedBefore: true, detectorCheckedAfter: true, phases: { A: 'absent', B: 'present' } });
+    expect(submit).toHaveBeenCalledWith({ type: 'voltage-test', detector: 'Detector 7', detectorCheckedBefore: true, detectorCheckedAfter: true, phases: { A: 'absent', B: 'absent' } });
+  });
+
+  it('records voltage found at once: one phase reading present is enough, nothing else has to be ticked', async () => {
+    const submit = vi.fn();
+    render(<StepPanel record={record({ kind: 'voltage-test' })} people={[me]} me={me} busy={false} submit={submit} onClose={() => undefined} />);
+    const button = screen.getByRole('button', { name: 'Record test' });
+    await userEvent.click(screen.getAllByRole('button', { name: 'Present' })[0]);
+    expect(button).toBeEnabled();
+    await userEvent.click(button);
+    expect(submit).toHaveBeenCalledWith({ type: 'voltage-test', detector: 'Detector 7', detectorCheckedBefore: false, detectorCheckedAfter: false, phases: { A: 'present' } });
   });
 
   it('puts a set on only with a set picked and the ground-end-first confirmation', async () => {
@@ -77,6 +88,11 @@ describe('the next-step panel', () => {
     await userEvent.click(screen.getByLabelText(/Ground end on first/));
     await userEvent.click(button);
     expect(submit).toHaveBeenCalledWith({ type: 'install', link: 'jA', setTag: 'LV-07', groundEndFirst: true });
+  });
+
+  it('says who closed the record out and when, in the organisation\'s time zone', () => {
+    render(<StepPanel record={record({ kind: 'closed' }, { status: 'closed', closedAt: '2026-05-04T19:05:00.000Z', closedBy: me })} people={[me]} me={me} busy={false} submit={vi.fn()} onClose={() => undefined} timeZone="America/Chicago" />);
+    expect(screen.getByTestId('next-step').textContent).toBe('Closed out by Invented Lead at 2026-05-04 14:05 CDT. Nothing more can be recorded.');
   });
 
   it('after voltage was found offers no way to put a set on, only the stop', () => {

@@ -98,6 +98,10 @@ describe('the demo records', () => {
     const demoClosed = list.find((r) => r.clearanceRef === 'HOLD-DEMO-0117')!;
     expect(demoOpen).toMatchObject({ status: 'open', setsOn: 3 });
     expect(demoClosed).toMatchObject({ status: 'closed', setsOn: 0 });
+    // Closed out on its own work day, after the last set came off (not when the demo was seeded).
+    const closedDetail = (await (await page.request.get(`${BASE_URL}/api/records/${demoClosed.id}`)).json()).record as { workDate: string; closedAt: string; entries: { at: string }[] };
+    expect(closedDetail.closedAt.slice(0, 10)).toBe(closedDetail.workDate);
+    expect(Date.parse(closedDetail.closedAt)).toBeGreaterThan(Math.max(...closedDetail.entries.map((e) => Date.parse(e.at))));
     const rank = (r: { status: string; setsOn: number }) => (r.status === 'open' ? (r.setsOn > 0 ? 0 : 1) : 2);
     expect(list.map(rank)).toEqual(list.map(rank).sort());
     await page.goto(`${BASE_URL}/records`);

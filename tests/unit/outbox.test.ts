@@ -126,4 +126,28 @@ describe('the outbox', () => {
     await Promise.all([box.flush(), box.flush()]);
     expect(received).toEqual(['c1']);
   });
+
+  it('a flush asked for while one is sending also sends what was added since (close-out right after the last entry)', async () => {
+    let answerFirst: (r: ApiResult<unknown>) => void = () => undefined;
+    const received: string[] = [];
+    const transport: Transport = {
+      entry: (_id, entry) => {
+        received.push(entry.clientId);
+        return entry.clientId === 'c1' ? new Promise((r) => (answerFirst = r)) : Promise.resolve(ok);
+      },
+      photo: async () => ok,
+    };
+    const box = new Outbox(memoryStore(), transport, 'p1', 7, fakeClock().clock);
+    await box.addEntry(note(1));
+    const first = box.flush();
+    await new Promise((r) => setTimeout(r, 0));
+    await box.addEntry(note(2));
+    const second = box.flush();
+    answerFirst(ok);
+    expect(await second).toBe('done');
+    expect(await first).toBe('done');
+    expect(received).toEqual(['c1', 'c2']);
+    expect(await box.items()).toEqual([]);
+  });
 });
+

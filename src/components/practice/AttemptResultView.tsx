@@ -51,7 +51,7 @@ export function AttemptResultView({ result, doc, onRetry }: { result: AttemptRes
           ))}
         </ul>
         {explanation.teachingNote && <p><strong>Teaching note.</strong> {explanation.teachingNote}</p>}
-        <p><a className="link" href={explanation.original.href}>See the approved original: {explanation.original.title}, revision {explanation.original.revision}</a></p>
+        <p><a className="link inline-flex min-h-touch items-center" href={explanation.original.href}>See the approved original: {explanation.original.title}, revision {explanation.original.revision}</a></p>
       </section>
       <button type="button" className="btn" onClick={onRetry}>Try again</button>
     </div>

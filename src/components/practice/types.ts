@@ -1,4 +1,5 @@
 /** What the practice islands receive from their pages and the API (the learner's view, never the answer). */
+import { KIND_LABELS } from '@/components/editor/plan-ops';
 import type { Finding } from '@/lib/domain/report';
 import type { PlanDocument } from '@/lib/schemas/plan';
 
@@ -29,7 +30,7 @@ export interface AttemptResult {
 /** A short name for an element of the drawing: its label, or its kind and ends. */
 export function elementName(doc: PlanDocument, id: string): string {
   const node = doc.nodes.find((n) => n.id === id);
-  if (node) return node.label ? `${node.label} (${id})` : `${node.kind} ${id}`;
+  if (node) return node.label ? `${node.label} (${id})` : `${KIND_LABELS[node.kind] ?? node.kind} ${id}`;
   const link = doc.links.find((l) => l.id === id);
   if (!link) return id;
   const end = (n: string) => doc.nodes.find((x) => x.id === n)?.label ?? n;

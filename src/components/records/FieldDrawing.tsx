@@ -14,8 +14,14 @@ import { createEditorStore } from '@/components/editor/store';
 export function FieldDrawing({ document, on }: { document: PlanDocument; on: string[] }) {
   const [store] = useState(() => createEditorStore({ doc: document, baseRevision: 1, readOnly: true, report: null }));
   const key = on.join(',');
+  // The highlight is the sets on, nothing else: a tap on the drawing selects what it touched, so
+  // the selection is put back at once (else a tap showed a set as on, or the ones on as off).
   useEffect(() => {
-    store.setState({ selection: key ? key.split(',') : [] });
+    const shown = key ? key.split(',') : [];
+    store.setState({ selection: shown });
+    return store.subscribe((s) => {
+      if (s.selection.join(',') !== key) store.setState({ selection: shown });
+    });
   }, [store, key]);
   return (
     <EditorStoreContext.Provider value={store}>

@@ -51,11 +51,21 @@ export default function FieldRecord({ initial, people, me, canWrite, timeZone }:
     setProblem(refusal ? { ok: false, status: 409, code: refusal.code, message: refusal.message, items: refusal.items } : null);
     if (!refusal) void sync.addEntry(stamped);
   };
-  // The server closes out only when every set is off there: what waits here goes first.
+  // The server closes out only when every set is off there: what waits here goes first. An entry
+  // the server refused is not on its record, but what it says happened may have happened: a set
+  // put on here and refused there may still be on the line, so close-out waits until the crew has
+  // read each refusal and taken it off this device.
   const onClose = () =>
     void act(async () => {
-      const waiting = await sync.sendAll();
+      const { waiting, refused } = await sync.sendAll();
       if (waiting) return { ok: false, status: 0, code: 'OFFLINE', message: `${waiting} entries or photos still wait to be sent. Close out once they have gone (it needs a connection).` };
+      if (refused.length) {
+        const sets = refused.flatMap((p) => (p.kind === 'entry' && p.entry.type === 'install' ? [`${p.entry.setTag} on ${p.entry.link}`] : []));
+        const message = sets.length
+          ? `The server refused a set recorded on this device as going on (${sets.join(', ')}), so its record does not count it. Make sure it is off the line and record what happened as a deviation; then remove the refused entry from this device (in the log) and close out.`
+          : `The server refused ${refused.length === 1 ? 'an entry' : `${refused.length} entries`} made on this device. Read each refusal in the log and remove it from this device, then close out.`;
+        return { ok: false, status: 409, code: 'REFUSED_ON_DEVICE', message };
+      }
       return closeRecord(record.id);
     });
 
@@ -75,7 +85,7 @@ export default function FieldRecord({ initial, people, me, canWrite, timeZone }:
         </div>
       )}
 
-      {canWrite || record.status === 'closed' ? <StepPanel record={record} people={people} me={me} busy={busy} submit={submit} onClose={onClose} /> : <p className="text-note">Read only: your role may view this record.</p>}
+      {canWrite || record.status === 'closed' ? <StepPanel record={record} people={people} me={me} busy={busy} submit={submit} onClose={onClose} timeZone={timeZone} /> : <p className="text-note">Read only: your role may view this record.</p>}
 
       {/* A crew must always be able to take grounds off, whatever the next expected step is. */}
       {open && record.setsOn.some((s) => !('link' in record.next) || s.link !== record.next.link) && (

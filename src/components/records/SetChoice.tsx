@@ -6,14 +6,15 @@
  */
 import { useState } from 'react';
 import { inventoryStatusOf, usableSets } from '@/lib/domain/field-record';
-import { runtimeTimeZone, formatDate } from '@/lib/time-format';
+import { formatDate, runtimeTimeZone } from '@/lib/time-format';
 import type { RecordView } from './types';
 
 /**
- * The day sets are judged on here: the date on the device's own calendar (its zone, not UTC),
- * never earlier than the organisation's day the server gave when the copy was made.
+ * The day sets are judged on here: the date on the organisation's calendar (the zone the record's
+ * copy carries; the device's own zone for a copy from before it did), never earlier than the
+ * organisation's day the server gave when the copy was made.
  */
-export function judgingDay(record: RecordView, now = new Date(), zone = runtimeTimeZone()): string {
+export function judgingDay(record: RecordView, now = new Date(), zone = record.inventory?.timeZone ?? runtimeTimeZone()): string {
   const device = formatDate(now, zone);
   const server = record.inventory?.today ?? device;
   return device > server ? device : server;

@@ -4,6 +4,7 @@
  */
 import { useState, type ReactNode } from 'react';
 import { BRIEFING_LABELS, type EntryBody } from '@/lib/domain/field-record';
+import { formatDateTime } from '@/lib/time-format';
 import { firstChoice, SetChoice } from './SetChoice';
 import type { CrewPerson, RecordView } from './types';
 
@@ -28,6 +29,8 @@ export interface StepProps {
   busy: boolean;
   submit: (body: EntryBody) => void;
   onClose: () => void;
+  /** The organisation's time zone: the close-out time is read in it. */
+  timeZone?: string;
 }
 
 function SignOn({ people, me, busy, submit }: StepProps) {
@@ -65,13 +68,16 @@ function VoltageTest({ record, busy, submit }: StepProps) {
   const [phases, setPhases] = useState<Record<string, 'absent' | 'present'>>({});
   const [before, setBefore] = useState(false);
   const [after, setAfter] = useState(false);
-  const complete = record.plan.phases.every((p) => phases[p]) && detector.trim() && before && after;
+  // A clear test needs every phase absent and the detector proved before and after. Voltage found
+  // is recorded at once, as it stands: the crew stops, and nothing has to be ticked first.
+  const found = Object.values(phases).includes('present');
+  const complete = detector.trim() && (found || (record.plan.phases.every((p) => phases[p]) && before && after));
   return (
     <Card title="Test for voltage">
       <label className="block text-lg">Detector<input className="mt-1 min-h-[56px] w-full rounded-lg border-2 border-line px-3" value={detector} onChange={(e) => setDetector(e.target.value)} /></label>
       <label className={CHECK}><input type="checkbox" className="h-7 w-7" checked={before} onChange={(e) => setBefore(e.target.checked)} /> Detector proved before</label>
       {record.plan.phases.map((p) => (
-        <div key={p} className="grid grid-cols-[3rem_1fr_1fr] items-center gap-2" role="group" aria-label={`Phase ${p}`}>
+        <div key={p} className="grid grid-cols-[minmax(3rem,auto)_1fr_1fr] items-center gap-2" role="group" aria-label={`Phase ${p}`}>
           <span className="text-xl font-bold">{p}</span>
           {(['absent', 'present'] as const).map((r) => (
             <button key={r} type="button" aria-pressed={phases[p] === r} className={`${BIG} border-2 ${phases[p] === r ? (r === 'present' ? 'border-blocker bg-blocker text-white' : 'border-clear bg-clear text-white') : 'border-line bg-white'}`} onClick={() => setPhases((s) => ({ ...s, [p]: r }))}>
@@ -81,6 +87,7 @@ function VoltageTest({ record, busy, submit }: StepProps) {
         </div>
       ))}
       <label className={CHECK}><input type="checkbox" className="h-7 w-7" checked={after} onChange={(e) => setAfter(e.target.checked)} /> Detector proved after</label>
+      {found && <p className="rounded-lg bg-blocker p-3 text-lg font-bold text-white" role="alert">Voltage found. Record it now and stop: no set goes on.</p>}
       <button type="button" className={PRIMARY} disabled={busy || !complete} onClick={() => submit({ type: 'voltage-test', detector: detector.trim(), detectorCheckedBefore: before, detectorCheckedAfter: after, phases })}>Record test</button>
     </Card>
   );
@@ -131,6 +138,6 @@ export function StepPanel(props: StepProps) {
     case 'stop':
       return <p className="rounded-xl bg-blocker p-4 text-xl font-bold text-white" role="alert" data-testid="next-step">Voltage found. Stop: no set goes on. Call the system operator.</p>;
     case 'closed':
-      return <p className="rounded-xl border-2 border-clear bg-white p-4 text-xl font-bold" data-testid="next-step">Closed out by {record.closedBy?.name}. Nothing more can be recorded.</p>;
+      return <p className="rounded-xl border-2 border-clear bg-white p-4 text-xl font-bold" data-testid="next-step">Closed out by {record.closedBy?.name}{record.closedAt && props.timeZone ? ` at ${formatDateTime(new Date(record.closedAt), props.timeZone)}` : ''}. Nothing more can be recorded.</p>;
   }
 }

@@ -29,8 +29,8 @@ export interface RecordView {
   document: PlanDocument;
   entries: EntryView[];
   photos: { id: number; caption: string; width: number; height: number; url: string }[];
-  /** The organisation's sets and the server's day, sent with an open record (the device judges installs by them). */
-  inventory?: { today: string; sets: (InventorySet & { description: string })[] };
+  /** The organisation's sets, the server's judging day and the organisation's zone, sent with an open record (the device judges installs by them). */
+  inventory?: { today: string; timeZone?: string; sets: (InventorySet & { description: string })[] };
 }
 
 export interface CrewPerson {

@@ -7,6 +7,15 @@ import type { CableSize } from '@/lib/schemas/plan';
 
 export const SET_STATUSES = ['in-service', 'out-of-service', 'retired'] as const;
 export type SetStatus = (typeof SET_STATUSES)[number];
+/** A status as the pages say it. */
+export const SET_STATUS_WORDS: Record<SetStatus, string> = { 'in-service': 'In service', 'out-of-service': 'Out of service', retired: 'Retired' };
+/** What happened to a set, as its history says it (stored kinds: created, imported, edited, status, fault, test). */
+export const SET_EVENT_WORDS: Record<string, string> = { created: 'Added', imported: 'Imported', edited: 'Edited', status: 'Status changed', fault: 'Carried fault current', test: 'Tested' };
+/** The fields an edit can change, named as a crew reads them (for the history's "Changed …" line). */
+export const SET_FIELD_WORDS: Record<string, string> = {
+  tag: 'the tag', description: 'the description', cable: 'the cable size', lengthM: 'the length', clampKind: 'the clamp kind', clampKa: 'the clamp rating (kA)',
+  clampCycles: 'the clamp rating (cycles)', connection: 'the connection', inServiceOn: 'the date it went into service', notes: 'the notes',
+};
 export const CLAMP_KINDS = ['grounding', 'live-line'] as const;
 export type ClampKind = (typeof CLAMP_KINDS)[number];
 export const CONNECTIONS = ['ferrule', 'bare-strands'] as const;

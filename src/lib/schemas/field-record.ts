@@ -31,7 +31,8 @@ export const entryBody = z.discriminatedUnion(
       detector: nonEmpty(200),
       detectorCheckedBefore: z.boolean({ required_error: 'is required', invalid_type_error: 'must be true or false' }),
       detectorCheckedAfter: z.boolean({ required_error: 'is required', invalid_type_error: 'must be true or false' }),
-      phases: z.record(nonEmpty(40), z.enum(['absent', 'present'], { errorMap: () => ({ message: 'must be absent or present' }) })).refine((p) => Object.keys(p).length > 0, 'name at least one phase'),
+      // A key is a phase letter (up to 200 characters), with its conductor id (up to 64) when two share it.
+      phases: z.record(nonEmpty(270), z.enum(['absent', 'present'], { errorMap: () => ({ message: 'must be absent or present' }) })).refine((p) => Object.keys(p).length > 0, 'name at least one phase'),
     }),
     z.object({ ...common, type: z.literal('install'), link: nonEmpty(64), setTag: nonEmpty(80), groundEndFirst: z.literal(true, { errorMap: () => ({ message: 'must be true: the ground end goes on first' }) }) }),
     z.object({ ...common, type: z.literal('remove'), link: nonEmpty(64) }),

@@ -14,12 +14,13 @@ import { AppError } from './errors';
 import { roleRefusal } from './guards';
 import { queueMail } from './mail';
 import { closedMessages, deviationMessage } from './record-mail';
-import { organisationToday } from './organisation';
 import { publicUrl } from './settings';
+import { formatDate } from '@/lib/time-format';
 
-/** The organisation's sets as the record needs them, with the day they are judged on (the organisation's own). */
+/** The organisation's sets as the record needs them, with the day they are judged on (the organisation's own) and its zone. */
 export interface InventoryCopy {
   today: string;
+  timeZone: string;
   sets: (InventorySet & { description: string })[];
 }
 
@@ -29,7 +30,8 @@ export interface InventoryCopy {
  */
 export async function inventoryCopy(organizationId: number, now = new Date()): Promise<InventoryCopy> {
   const sets = (await allSets(getDb(), organizationId)).map((s) => ({ tag: s.tag, description: s.description, status: s.status, testDueOn: s.testDueOn, statusReason: s.statusReason }));
-  return { today: await organisationToday(organizationId, now), sets };
+  const { timeZone } = await getOrganisationSettings(getDb(), organizationId);
+  return { today: formatDate(now, timeZone), timeZone, sets };
 }
 
 /** Is a set fit to go on: a tag of the organisation's inventory, in service, not past its test date. */

@@ -133,7 +133,8 @@ export function recordPdf({ record, names, thumbs, paper, timeZone }: PdfInput):
   const log = record.entries.filter((e) => e.entry.type === 'install' || e.entry.type === 'remove');
   if (!log.length) sheet.line('No set went on.');
   for (const e of log) {
-    const text = e.entry.type === 'install' ? `ON  ${e.entry.link} with set ${e.entry.setTag} (ground end first)` : `OFF ${'link' in e.entry ? e.entry.link : ''} (line end first)`;
+    // "Ground end first" is confirmed by the crew for each set that goes on; nothing records which end came off first.
+    const text = e.entry.type === 'install' ? `ON  ${e.entry.link} with set ${e.entry.setTag} (ground end first)` : `OFF ${'link' in e.entry ? e.entry.link : ''}`;
     sheet.line(`${stamp(e.entry.at)} · ${text} · ${e.actorName}`);
     for (const f of e.flags) sheet.line(`FLAG: ${f.message}`, { bold: true, indent: 12 });
   }

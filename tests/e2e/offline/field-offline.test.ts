@@ -9,9 +9,10 @@ import { join } from 'node:path';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
 import sharp from 'sharp';
 import { describe, expect, it } from 'vitest';
-import { BASE_URL } from '../../helpers/api';
+import { BASE_URL, signedIn } from '../../helpers/api';
 import { CHROMIUM_PATH } from '../../helpers/browser';
 import { DEMO_PASSWORD, nextStepHeading, startRecordOnDemoPlan, useBrowser } from '../../helpers/e2e';
+import { setBody } from '../../helpers/equipment';
 
 const PHONE = { viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true };
 const browser = useBrowser();
@@ -192,5 +193,41 @@ describe('two devices on one record', () => {
     expect(log.slice(-2)).toEqual(['note', 'install']);
     expect(entries.slice(-2).map((e) => e.type)).toEqual(['install', 'note']);
     await expect.poll(() => phone.page.getByTestId('count-on').textContent()).toBe('1');
+  });
+});
+
+describe('a set the server refused after it went on offline', () => {
+  it('keeps close-out from saying every set is off while the refused set may still be on', async () => {
+    const admin = await signedIn('admin@demo.test', DEMO_PASSWORD);
+    const made = await admin.post('/api/equipment', setBody({ description: 'Invented set for the refusal test' }));
+    expect(made.status, made.text).toBe(201);
+    const tag = made.body.set.tag as string;
+
+    const { page, context } = await browser.signIn('lead@demo.test', { viewport: { width: 1024, height: 768 }, hasTouch: true });
+    const url = await openRecordOnline(page);
+    await upToTheTest(page);
+    const first = await putOn(page, 'LV-101');
+    await expect.poll(() => waiting(page), { timeout: 20_000 }).toBe('0/0');
+
+    // No signal: the set goes on (the device knows it in service), and the office takes it out of service.
+    await context.setOffline(true);
+    const second = await putOn(page, tag);
+    const patched = await admin.patch(`/api/equipment/${made.body.set.id}`, { status: 'out-of-service', statusReason: 'Invented: jacket cut' });
+    expect(patched.status, patched.text).toBe(200);
+    // Still without signal, the first set comes off; the device shows the second as on.
+    await page.getByRole('button', { name: `Set off ${first} (LV-101)` }).click();
+    await expect.poll(() => waiting(page)).toBe('2/0');
+    expect(await page.getByTestId('count-on').textContent()).toBe('1');
+
+    await context.setOffline(false);
+    await expect.poll(() => waiting(page), { timeout: 20_000 }).toBe('0/0');
+    await expect.poll(() => page.getByTestId('entry-refused').first().textContent()).toContain('out of service');
+    // The server never took the second set's "on": the screen now counts nothing on, yet that set
+    // went on the line and nothing says it came off. Close-out must not go through on that.
+    await expect.poll(() => heading(page)).toBe('Close out');
+    await page.getByRole('button', { name: 'Close out' }).click();
+    await expect.poll(() => page.getByTestId('problem').textContent()).toContain(second);
+    expect((await serverRecord(context, url) as unknown as { status: string }).status).toBe('open');
+    expect(await page.getByTestId('field-record').getAttribute('data-status')).toBe('open');
   });
 });

@@ -33,6 +33,28 @@ describe('the plan as the record sees it', () => {
   });
 });
 
+describe('a plan with two conductors of one phase letter (two circuits)', () => {
+  const doc = planDocument({ nodes: [...planDocument().nodes, { id: 'A2', kind: 'phase', phase: 'A' }, { id: 'B2', kind: 'phase', phase: 'B' }] });
+  const two = recordPlanFrom(doc);
+
+  it('asks the voltage test for every conductor, naming the repeated letters by their conductor', () => {
+    expect(two.phases).toEqual(['A (A)', 'B (B)', 'C', 'A (A2)', 'B (B2)']);
+  });
+
+  it('puts no set on after a test that left a conductor of a repeated letter out', () => {
+    let state = replay(two, []);
+    for (const body of [signOn, ...briefing]) state = applyEntry(two, state, entry(body), []);
+    // A, B and C read absent says nothing about the second A and B conductors.
+    const byLetter = passing;
+    expect(judgeEntry(two, state, byLetter, freeTextSetStatus)).toMatchObject({ ok: false, refusal: { code: 'PHASE_NOT_IN_PLAN' } });
+    const tested = applyEntry(two, state, entry(byLetter), []);
+    expect(judgeEntry(two, tested, install('jA'), freeTextSetStatus)).toMatchObject({ ok: false, refusal: { code: 'VOLTAGE_TEST_REQUIRED' } });
+    const all: EntryBody = { ...passing, phases: Object.fromEntries(two.phases.map((p) => [p, 'absent'])) } as EntryBody;
+    state = applyEntry(two, state, entry(all), []);
+    expect(judgeEntry(two, state, install('jA'), freeTextSetStatus).ok).toBe(true);
+  });
+});
+
 describe('installing', () => {
   const ready = () => run([signOn, ...briefing, passing]);
 
@@ -75,15 +97,65 @@ describe('installing', () => {
     const named = recordPlanFrom({ ...base, links: base.links.map((l) => (l.id === 'jA' ? { ...l, equipmentId: 'GS-12' } : l)) });
     expect(named.jumpers[0]).toMatchObject({ id: 'jA', plannedSet: 'GS-12' });
     let state = replay(named, []);
-    for (const body of [signOn, ...briefing, passing]) state = applyEntry(named, state, entry(body), []);
+    // The ground-side set first, so the phase sets below are judged on the set they carry alone.
+    for (const body of [signOn, ...briefing, passing, install('jN')]) state = applyEntry(named, state, entry(body), []);
     expect(judgeEntry(named, state, install('jA', 'GS-40'), freeTextSetStatus)).toEqual({ ok: true, flags: [expect.objectContaining({ code: 'set-not-as-planned' })] });
     expect(judgeEntry(named, state, install('jA', 'gs-12'), freeTextSetStatus)).toEqual({ ok: true, flags: [] });
     expect(judgeEntry(named, state, install('jB', 'GS-40'), freeTextSetStatus)).toEqual({ ok: true, flags: [] });
   });
 
+  it('needs a new passing test once every set has come off (no ground left in place)', () => {
+    // Test before installing any ground, unless a previously installed ground is in place
+    // [pub: OSHA 1910.269(n)(5), eTool]. With every set off the line is treated as energized again.
+    const allOff = run([signOn, ...briefing, passing, install('jA'), install('jB'), remove('jB'), remove('jA')]);
+    expect(judgeEntry(plan, allOff, install('jA'), freeTextSetStatus)).toMatchObject({ ok: false, refusal: { code: 'VOLTAGE_TEST_REQUIRED' } });
+    expect(nextStep(plan, allOff)).toEqual({ kind: 'close' });
+    const retested = run([signOn, ...briefing, passing, install('jA'), remove('jA'), passing]);
+    expect(judgeEntry(plan, retested, install('jA'), freeTextSetStatus).ok).toBe(true);
+    // One set still on keeps the zone: another may go on without a new test.
+    const oneLeft = run([signOn, ...briefing, passing, install('jA'), install('jB'), remove('jB')]);
+    expect(judgeEntry(plan, oneLeft, install('jB', 'S-other'), freeTextSetStatus).ok).toBe(true);
+  });
+
   it('flags a set put on before the briefing was complete (allowed, noticed)', () => {
-    const v = judgeEntry(plan, run([signOn, passing]), install('jA'), freeTextSetStatus);
+    const v = judgeEntry(plan, run([signOn, passing]), install('jN'), freeTextSetStatus);
     expect(v).toEqual({ ok: true, flags: [expect.objectContaining({ code: 'installed-before-briefing' })] });
+  });
+});
+
+describe('the ground side goes on first', () => {
+  const tested = () => run([signOn, ...briefing, passing]);
+
+  it('offers the set that grounds the cluster bar before the sets on the phases', () => {
+    const steps: string[] = [];
+    let state = tested();
+    for (let i = 0; i < 4; i += 1) {
+      const next = nextStep(plan, state);
+      if (next.kind !== 'install') throw new Error(`expected an install, got ${next.kind}`);
+      steps.push(next.link);
+      state = applyEntry(plan, state, entry(install(next.link)), []);
+    }
+    expect(steps).toEqual(['jN', 'jA', 'jB', 'jC']);
+  });
+
+  it('flags a set on a phase put on while its other end has no path to ground (allowed, noticed)', () => {
+    const v = judgeEntry(plan, tested(), install('jA'), freeTextSetStatus);
+    expect(v.ok && v.flags.map((f) => f.code)).toEqual(['installed-before-ground']);
+    expect(v.ok && v.flags[0].message).toContain('jA (A – CB)');
+    const grounded = run([signOn, ...briefing, passing, install('jN')]);
+    expect(judgeEntry(plan, grounded, install('jA'), freeTextSetStatus)).toEqual({ ok: true, flags: [] });
+  });
+
+  it('counts a permanent bond to ground as a path, and asks nothing of a plan copy without the ground data', () => {
+    const bonded = recordPlanFrom(planDocument({ links: [...planDocument().links, { id: 'bCB', kind: 'bond', from: 'CB', to: 'N' }] }));
+    let state = replay(bonded, []);
+    for (const body of [signOn, ...briefing, passing]) state = applyEntry(bonded, state, entry(body), []);
+    expect(judgeEntry(bonded, state, install('jA'), freeTextSetStatus)).toEqual({ ok: true, flags: [] });
+    expect(nextStep(bonded, state)).toEqual({ kind: 'install', link: 'jA' });
+    const old: RecordPlan = { phases: plan.phases, jumpers: plan.jumpers.map(({ id, label }) => ({ id, label })) };
+    let before = replay(old, []);
+    for (const body of [signOn, ...briefing, passing]) before = applyEntry(old, before, entry(body), []);
+    expect(judgeEntry(old, before, install('jA'), freeTextSetStatus)).toEqual({ ok: true, flags: [] });
   });
 });
 
@@ -91,7 +163,7 @@ describe('removing', () => {
   const allOn = () => run([signOn, ...briefing, passing, install('jA'), install('jB'), install('jC'), install('jN')]);
 
   it('in reverse order raises no flag', () => {
-    const state = run([signOn, ...briefing, passing, install('jA'), install('jB'), remove('jB'), remove('jA')]);
+    const state = run([signOn, ...briefing, passing, install('jN'), install('jA'), remove('jA'), remove('jN')]);
     expect(state.flags.flat()).toEqual([]);
     expect(state.on).toEqual([]);
   });
@@ -99,6 +171,14 @@ describe('removing', () => {
   it('out of order is flagged, never refused', () => {
     const v = judgeEntry(plan, allOn(), remove('jA'), freeTextSetStatus);
     expect(v).toEqual({ ok: true, flags: [expect.objectContaining({ code: 'removed-out-of-order' })] });
+  });
+
+  it('the out-of-order flag names the jumper the crew should have taken off by its ends and set', () => {
+    const labelled = recordPlanFrom(planDocument({ nodes: planDocument().nodes.map((x) => ({ ...x, label: x.kind === 'phase' ? `Phase ${x.id}` : x.kind === 'cluster-bar' ? 'Cluster bar' : x.id })) }));
+    let state = replay(labelled, []);
+    for (const body of [signOn, ...briefing, passing, install('jA', 'LV-1'), install('jB', 'LV-2')]) state = applyEntry(labelled, state, entry(body), []);
+    const v = judgeEntry(labelled, state, remove('jA'), freeTextSetStatus);
+    expect(v.ok && v.flags[0].message).toBe('Taken off out of order: jB (Phase B – Cluster bar, set LV-2) went on last and was expected off first.');
   });
 
   it('is allowed after voltage was found, so grounds can always come off', () => {
@@ -138,21 +218,21 @@ describe('close-out and the closed record', () => {
 });
 
 describe('the next expected step', () => {
-  it('walks sign-on, the briefing, the test, sets on in plan order, off in reverse, close', () => {
+  it('walks sign-on, the briefing, the test, sets on in plan order with the ground side first, off in reverse, close', () => {
     const steps: string[] = [];
-    const bodies = [signOn, ...briefing, passing, install('jA'), install('jB'), install('jC'), install('jN'), remove('jN'), remove('jC'), remove('jB'), remove('jA')];
+    const bodies = [signOn, ...briefing, passing, install('jN'), install('jA'), install('jB'), install('jC'), remove('jC'), remove('jB'), remove('jA'), remove('jN')];
     for (let i = 0; i <= bodies.length; i += 1) {
       const s = nextStep(plan, run(bodies.slice(0, i)));
       steps.push('link' in s ? `${s.kind}:${s.link}` : 'item' in s ? `${s.kind}:${s.item}` : s.kind);
     }
     expect(steps).toEqual([
       'sign-on', ...BRIEFING_ITEMS.map((i) => `briefing:${i}`), 'voltage-test',
-      'install:jA', 'install:jB', 'install:jC', 'install:jN', 'remove:jN', 'remove:jC', 'remove:jB', 'remove:jA', 'close', 'close',
+      'install:jN', 'install:jA', 'install:jB', 'install:jC', 'remove:jC', 'remove:jB', 'remove:jA', 'remove:jN', 'close', 'close',
     ].slice(0, bodies.length + 1));
   });
 
   it('replay recomputes the same flags the entries raised when recorded', () => {
-    const bodies = [signOn, passing, install('jA'), install('jB'), remove('jA'), remove('jB')];
+    const bodies = [signOn, passing, install('jN'), install('jA'), remove('jN'), remove('jA')];
     const live = run(bodies);
     const replayed = replay(plan, bodies.map(entry));
     expect(replayed.flags).toEqual(live.flags);

@@ -48,6 +48,14 @@ describe('gradeFix', () => {
     expect(g.wrong.map((f) => f.rule)).toContain('cable-below-minimum');
     expect(g.score).toBeLessThan(100);
   });
+  it('names what a fix changed in the drawing\'s words, not by element ids', () => {
+    const labelled: PlanDocument = { ...given, nodes: given.nodes.map((n) => ({ ...n, label: `Label of ${n.id}` })) };
+    const cheat = { ...labelled, links: labelled.links.filter((l) => l.kind !== 'reach') };
+    const messages = gradeFix(ex.key, labelled, blockers, cheat).wrong.filter((f) => f.rule === 'practice-changed-plan').map((f) => f.message);
+    const reaches = labelled.links.filter((l) => l.kind === 'reach');
+    expect(messages.length).toBe(reaches.length);
+    for (const r of reaches) expect(messages).toContain(`The reach from Label of ${r.from} to Label of ${r.to} was removed; what a worker can touch stays as given.`);
+  });
   it('deleting the worker or the reach line is not a fix', () => {
     const cheat = { ...given, nodes: given.nodes.filter((n) => n.id !== 'W1'), links: given.links.filter((l) => l.kind !== 'reach') };
     const g = gradeFix(ex.key, given, blockers, cheat);

@@ -63,6 +63,8 @@ export const LAST_RETRY_MS = 60_000;
 
 export class Outbox {
   private running: Promise<FlushOutcome> | null = null;
+  /** The pass queued behind the running one (at most one: later calls join it). */
+  private queued: Promise<FlushOutcome> | null = null;
   private cancelRetry: (() => void) | null = null;
   private failures = 0;
   private lastSeq = 0;
@@ -102,12 +104,25 @@ export class Outbox {
     this.changed();
   }
 
-  /** Sends what waits, in order; one flush at a time (a second call joins the one running). */
+  /**
+   * Sends what waits, in order; one send at a time. A call made while one is sending queues one
+   * more pass after it (never two at once), so what was added after that send listed its items
+   * goes too before the call answers: close-out right after the last entry waits for that entry.
+   */
   flush(): Promise<FlushOutcome> {
-    this.running ??= this.send().finally(() => {
-      this.running = null;
+    if (this.queued) return this.queued;
+    const before = this.running;
+    const run: Promise<FlushOutcome> = before
+      ? (this.queued = before.catch(() => 'done' as const).then(() => {
+          this.queued = null;
+          return this.send();
+        }))
+      : this.send();
+    this.running = run;
+    void run.catch(() => undefined).finally(() => {
+      if (this.running === run) this.running = null;
     });
-    return this.running;
+    return run;
   }
 
   stop(): void {

@@ -85,10 +85,14 @@ export function useFieldSync(initial: RecordView, me: CrewPerson) {
     void sync();
   };
   const dismiss = (key: string) => void outbox.dismiss(key);
-  /** Sends what waits and says how many items are still not recorded (close-out waits for none). */
+  /**
+   * Sends what waits and says what is still not recorded: items waiting, and items the server
+   * refused that are still on this device (close-out waits for neither).
+   */
   const sendAll = async () => {
     setSending(await outbox.flush());
-    return (await outbox.items()).filter((p) => !p.refused).length;
+    const items = await outbox.items();
+    return { waiting: items.filter((p) => !p.refused).length, refused: items.filter((p) => p.refused) };
   };
   return { record, pending, inStepAt, sending, reload, addEntry, addPhoto, dismiss, sendAll };
 }

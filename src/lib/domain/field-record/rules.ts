@@ -10,15 +10,64 @@ import { BRIEFING_ITEMS, type BriefingItem, type EntryBody, type FieldEntry, typ
 
 /** The phases and jumpers of a plan document, as the record uses them. */
 export function recordPlanFrom(doc: PlanDocument): RecordPlan {
-  const phases = doc.nodes.filter((n) => n.kind === 'phase').map((n) => ('phase' in n && typeof n.phase === 'string' && n.phase ? n.phase : n.id));
+  const conductors = doc.nodes.filter((n) => n.kind === 'phase').map((n) => ({ id: n.id, letter: 'phase' in n && typeof n.phase === 'string' && n.phase ? n.phase : n.id }));
+  // Every phase conductor gets its own result. A letter two conductors share (two circuits on the
+  // structure) is named with each conductor's id, as the drawing shows it: "A (A)", "A (A2)".
+  const count = new Map<string, number>();
+  for (const c of conductors) count.set(c.letter, (count.get(c.letter) ?? 0) + 1);
+  const phases = conductors.map((c) => ((count.get(c.letter) ?? 0) > 1 ? `${c.letter} (${c.id})` : c.letter));
   const labels = new Map(doc.nodes.map((n) => [n.id, n.label ?? n.id]));
   const jumpers = doc.links
     .filter((l) => l.kind === 'jumper')
     .map((l) => {
       const planned = 'equipmentId' in l && typeof l.equipmentId === 'string' && l.equipmentId.trim() ? l.equipmentId.trim() : undefined;
-      return { id: l.id, label: `${labels.get(l.from) ?? l.from} – ${labels.get(l.to) ?? l.to}`, ...(planned ? { plannedSet: planned } : {}) };
+      return { id: l.id, label: `${labels.get(l.from) ?? l.from} – ${labels.get(l.to) ?? l.to}`, from: l.from, to: l.to, ...(planned ? { plannedSet: planned } : {}) };
     });
-  return { phases: [...new Set(phases)], jumpers };
+  const grounds = doc.nodes.filter((n) => GROUND_KINDS.has(n.kind) || ('groundOhms' in n && typeof n.groundOhms === 'number'));
+  const ground = {
+    nodes: grounds.map((n) => n.id),
+    phases: conductors.map((c) => c.id),
+    bonds: doc.links.filter((l) => l.kind === 'bond').map((l): [string, string] => [l.from, l.to]),
+  };
+  return { phases: [...new Set(phases)], jumpers, ground };
+}
+
+/** Nodes that are a ground in themselves. */
+const GROUND_KINDS = new Set(['neutral', 'shield-wire', 'ground-rod', 'earth', 'pole-ground']);
+
+/** The nodes joined to a ground now: through the plan's bonds and the sets on. */
+function groundedNow(plan: RecordPlan, on: readonly SetOn[]): Set<string> | null {
+  if (!plan.ground) return null;
+  const edges: [string, string][] = [...plan.ground.bonds];
+  for (const s of on) {
+    const j = plan.jumpers.find((x) => x.id === s.link);
+    if (j?.from && j.to) edges.push([j.from, j.to]);
+  }
+  const reached = new Set(plan.ground.nodes);
+  for (let grew = true; grew; ) {
+    grew = false;
+    for (const [a, b] of edges) {
+      if (reached.has(a) !== reached.has(b)) {
+        reached.add(a);
+        reached.add(b);
+        grew = true;
+      }
+    }
+  }
+  return reached;
+}
+
+/**
+ * A set for a jumper on a phase goes on only once its other end has a path to ground (the ground
+ * end first, for the zone as for each set): true when it may, or when the plan copy cannot say.
+ */
+function groundReady(plan: RecordPlan, on: readonly SetOn[], link: string): boolean {
+  const grounded = groundedNow(plan, on);
+  const j = plan.jumpers.find((x) => x.id === link);
+  if (!grounded || !plan.ground || !j?.from || !j.to) return true;
+  const phases = new Set(plan.ground.phases);
+  if (!phases.has(j.from) && !phases.has(j.to)) return true;
+  return grounded.has(j.from) || grounded.has(j.to);
 }
 
 export interface SetOn {
@@ -33,7 +82,7 @@ export interface RecordState {
   people: string[];
   visitors: string[];
   briefing: Partial<Record<BriefingItem, { by: string; at: string }>>;
-  /** Whether the latest test passed for every phase, and whether any test ever found voltage. */
+  /** Whether the latest test passed for every phase (and still covers a set going on), and whether any test ever found voltage. */
   testPassed: boolean;
   voltageFound: boolean;
   /** Sets on now, in the order they went on. */
@@ -71,8 +120,15 @@ function flagsFor(plan: RecordPlan, state: RecordState, entry: EntryBody): Flag[
   if (entry.type === 'remove') {
     const last = state.on[state.on.length - 1];
     if (last && last.link !== entry.link) {
-      flags.push({ code: 'removed-out-of-order', message: `Taken off out of order: ${last.link} went on last and was expected off first.` });
+      // Named as the drawing names it (its tag), with its ends and the set on it, so the crew can find it.
+      const ends = plan.jumpers.find((j) => j.id === last.link)?.label;
+      const which = `${last.link} (${ends ? `${ends}, ` : ''}set ${last.setTag})`;
+      flags.push({ code: 'removed-out-of-order', message: `Taken off out of order: ${which} went on last and was expected off first.` });
     }
+  }
+  if (entry.type === 'install' && !groundReady(plan, state.on, entry.link)) {
+    const j = plan.jumpers.find((x) => x.id === entry.link);
+    flags.push({ code: 'installed-before-ground', message: `Put on before its other end had a path to ground: ${entry.link}${j ? ` (${j.label})` : ''} went on before the set that grounds it; the ground-side set goes on first.` });
   }
   if (entry.type === 'install' && BRIEFING_ITEMS.some((item) => !state.briefing[item])) {
     flags.push({ code: 'installed-before-briefing', message: 'Put on before every briefing item was ticked.' });
@@ -140,6 +196,9 @@ export function applyEntry(plan: RecordPlan, state: RecordState, entry: FieldEnt
     case 'remove':
       next.on = next.on.filter((s) => s.link !== entry.link);
       next.removed += 1;
+      // A test only covers grounds put on while a ground is in place: with every set off the line
+      // is treated as energized again, and the next set needs a new passing test.
+      if (next.on.length === 0) next.testPassed = false;
       break;
     default:
       break;
@@ -175,7 +234,7 @@ export type NextStep =
 
 /**
  * The step the crew is expected to take next: sign on, the briefing in order, the test, the sets
- * in plan order, then off in reverse order, then close-out. After voltage is found: stop (or take
+ * in plan order with the ground side first, then off in reverse order, then close-out. After voltage is found: stop (or take
  * off anything already on).
  */
 export function nextStep(plan: RecordPlan, state: RecordState): NextStep {
@@ -187,8 +246,10 @@ export function nextStep(plan: RecordPlan, state: RecordState): NextStep {
   if (item) return { kind: 'briefing', item };
   if (!state.testPassed && state.installed === 0) return { kind: 'voltage-test' };
   if (state.testPassed && state.removed === 0) {
-    const pending = plan.jumpers.find((j) => !state.on.some((s) => s.link === j.id));
-    if (pending) return { kind: 'install', link: pending.id };
+    // In plan order, but a set on a phase waits until its other end has a path to ground.
+    const pending = plan.jumpers.filter((j) => !state.on.some((s) => s.link === j.id));
+    const next = pending.find((j) => groundReady(plan, state.on, j.id)) ?? pending[0];
+    if (next) return { kind: 'install', link: next.id };
   }
   if (last) return { kind: 'remove', link: last.link };
   return { kind: 'close' };

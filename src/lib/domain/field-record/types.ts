@@ -34,12 +34,21 @@ export type FieldEntry = EntryBody & { clientId: string; at: string; actorId: st
 export interface RecordPlan {
   /** Phase keys the voltage test must cover, e.g. ["A", "B", "C"]. */
   phases: string[];
-  /** Jumpers of the plan, in drawing order: each gets a set on the day (the plan's own set by tag, when it names one). */
-  jumpers: { id: string; label: string; plannedSet?: string }[];
+  /**
+   * Jumpers of the plan, in drawing order: each gets a set on the day (the plan's own set by tag,
+   * when it names one; ends absent in copies made before they were sent).
+   */
+  jumpers: { id: string; label: string; from?: string; to?: string; plannedSet?: string }[];
+  /**
+   * Where the zone gets its ground, for the order sets go on: the nodes that are a ground in
+   * themselves (neutral, shield wire, rod, earth, pole ground, anything with a ground resistance),
+   * the phase conductors, and the permanent bonds. Absent in copies made before they were sent.
+   */
+  ground?: { nodes: string[]; phases: string[]; bonds: [string, string][] };
 }
 
 /** A flag is recorded with an entry: something a reader of the record should notice. */
-export type FlagCode = 'removed-out-of-order' | 'installed-before-briefing' | 'set-not-as-planned';
+export type FlagCode = 'removed-out-of-order' | 'installed-before-briefing' | 'installed-before-ground' | 'set-not-as-planned';
 export interface Flag {
   code: FlagCode;
   message: string;

@@ -62,8 +62,9 @@ export function fixIntegrity(given: PlanDocument, fixed: PlanDocument): Finding[
     else if (strip(now) !== strip(node)) out.push(changed(`${node.label ?? node.id} was changed; a fix adds grounding, it does not change the structure, the people or what they stand on.`, [node.id]));
   }
   const reaches = new Set(fixed.links.filter((l) => l.kind === 'reach').map((l) => `${l.from}>${l.to}`));
+  const name = (id: string) => given.nodes.find((n) => n.id === id)?.label ?? id;
   for (const reach of given.links.filter((l) => l.kind === 'reach')) {
-    if (!reaches.has(`${reach.from}>${reach.to}`)) out.push(changed(`The reach from ${reach.from} to ${reach.to} was removed; what a worker can touch stays as given.`, [reach.id]));
+    if (!reaches.has(`${reach.from}>${reach.to}`)) out.push(changed(`The reach from ${name(reach.from)} to ${name(reach.to)} was removed; what a worker can touch stays as given.`, [reach.id]));
   }
   if (canonicalJson(given.system) !== canonicalJson(fixed.system) || canonicalJson(given.criteria ?? {}) !== canonicalJson(fixed.criteria ?? {})) {
     out.push(changed('The system data or criteria were changed; the fault and the people are what they are.'));
