@@ -1,7 +1,8 @@
 /**
- * The day a set is judged on for the field record is the organisation's day: in a time zone ahead
- * of UTC, a set whose test fell due yesterday (there) is overdue, even while it is still that day in
- * UTC. The copy the record sends to the device carries the same day and the zone.
+ * The day a set is judged on for the field record is the organisation's calendar day: in a time
+ * zone ahead of UTC, a set whose test fell due yesterday (there) is overdue, even while it is still
+ * that day in UTC; behind UTC, a set due today (there) is still in date. The copy the record sends
+ * to the device carries the same day and the zone, and the equipment pages count the same days.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb } from '@db/connection';
@@ -31,7 +32,7 @@ afterAll(async () => {
 });
 
 describe('the day sets are judged on for a field record', () => {
-  it('is the organisation\'s day when that is later than UTC\'s, and the copy names the zone', async () => {
+  it('is the organisation\'s day ahead of UTC, and the copy names the zone', async () => {
     const copy = await inventoryCopy(team.organizationId, NOW);
     expect(copy.today).toBe('2026-05-05');
     expect(copy.timeZone).toBe('Pacific/Kiritimati');
@@ -39,11 +40,14 @@ describe('the day sets are judged on for a field record', () => {
     expect(status).toMatchObject({ usable: false, reason: 'overdue' });
   });
 
-  it('never goes back behind UTC\'s day in a zone behind UTC', async () => {
+  it('is the organisation\'s day behind UTC too: a set due today there is still in date', async () => {
     await saveOrganisationSettings(testDb(), team.organizationId, team.admin.id, { timeZone: 'Pacific/Pago_Pago', paperSize: 'a4', units: 'metric' });
-    // 05:00 UTC on 5 May is still 4 May in Pago Pago: the set stays overdue.
+    // 05:00 UTC on 5 May is 18:00 on 4 May in Pago Pago (UTC−11): the set is due today there, not overdue.
     const later = new Date('2026-05-05T05:00:00Z');
-    expect((await inventoryCopy(team.organizationId, later)).today).toBe('2026-05-05');
-    expect((await setStatusLookupFor(team.organizationId, later)).statusOf(tag)).toMatchObject({ usable: false, reason: 'overdue' });
+    expect((await inventoryCopy(team.organizationId, later)).today).toBe('2026-05-04');
+    expect((await setStatusLookupFor(team.organizationId, later)).statusOf(tag)).toMatchObject({ usable: true });
+    // An hour after midnight there (12:00 UTC on 5 May is 01:00 on 5 May), it is overdue.
+    const nextDay = new Date('2026-05-05T12:00:00Z');
+    expect((await setStatusLookupFor(team.organizationId, nextDay)).statusOf(tag)).toMatchObject({ usable: false, reason: 'overdue' });
   });
 });

@@ -67,3 +67,25 @@ export async function mailTo(reader: Client, address: string, subjectPart: strin
   if (names.length) throw new Error(`mail "${mail.subject}" to ${address} says program names: ${names.join(', ')}`);
   return mail;
 }
+
+/**
+ * Sends health requests one after another for as long as `work` runs: on a free event loop each
+ * answers at once, while work done on the main thread would hold one of them for its whole length.
+ * Every health answer must be 200; returns the work's answer, each health latency and the work's time.
+ */
+export async function healthWhile<T>(work: Promise<T>, health: () => Promise<{ status: number }>): Promise<{ answer: T; latencies: number[]; tookMs: number }> {
+  let done = false;
+  const started = performance.now();
+  const tracked = work.finally(() => {
+    done = true;
+  });
+  const latencies: number[] = [];
+  while (!done) {
+    const sent = performance.now();
+    const { status } = await health();
+    if (status !== 200) throw new Error(`health answered ${status} while the work ran`);
+    latencies.push(performance.now() - sent);
+  }
+  const answer = await tracked;
+  return { answer, latencies, tookMs: performance.now() - started };
+}
