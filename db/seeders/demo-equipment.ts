@@ -5,6 +5,7 @@
  * them. Resistances are invented demo figures, recorded as the tester's pass/fail (no limits ship).
  */
 import { addDays, addMonths, type Connection, type ClampKind } from '@/lib/domain/equipment';
+import { metresFromFeet } from '@/lib/domain/units';
 import { checkPlan } from '@/lib/domain/checker';
 import type { CableSize, PlanDocument } from '@/lib/schemas/plan';
 import type { Db } from '@db/connection';
@@ -12,31 +13,31 @@ import { inventoryFor, recordTest, saveSets, updateSet } from '@db/repositories/
 import { getPlan, saveDraft } from '@db/repositories/plans';
 
 type Story = 'in-date' | { soonDays: number } | 'overdue' | 'fault' | 'retired';
-interface DemoSet { tag: string; description: string; cable: CableSize; lengthM: number; lastTestMonthsAgo?: number; story: Story; clampKind?: ClampKind; connection?: Connection }
+interface DemoSet { tag: string; description: string; cable: CableSize; /** Round feet, as the demo co-operative buys its sets. */ lengthFt: number; lastTestMonthsAgo?: number; story: Story; clampKind?: ClampKind; connection?: Connection }
 
 const CLAMP: Partial<Record<CableSize, number>> = { '1/0': 21, '2/0': 27, '4/0': 43 };
 
 const SETS: DemoSet[] = [
-  { tag: 'LV-101', description: 'Phase set, truck 4', cable: '2/0', lengthM: 2.4, lastTestMonthsAgo: 2, story: 'in-date' },
-  { tag: 'LV-102', description: 'Phase set, truck 4', cable: '2/0', lengthM: 2.4, lastTestMonthsAgo: 2, story: 'in-date' },
-  { tag: 'LV-103', description: 'Phase set, truck 4', cable: '2/0', lengthM: 1.8, lastTestMonthsAgo: 2, story: 'in-date' },
-  { tag: 'LV-104', description: 'Neutral set, truck 4', cable: '2/0', lengthM: 1.8, lastTestMonthsAgo: 5, story: 'in-date' },
-  { tag: 'LV-105', description: 'Phase set, truck 7', cable: '2/0', lengthM: 1.5, lastTestMonthsAgo: 5, story: 'in-date' },
-  { tag: 'LV-106', description: 'Neutral set, truck 7', cable: '2/0', lengthM: 1.2, lastTestMonthsAgo: 7, story: 'in-date' },
-  { tag: 'LV-107', description: 'Bucket bond, truck 7', cable: '2/0', lengthM: 3, lastTestMonthsAgo: 7, story: 'in-date' },
-  { tag: 'LV-108', description: 'Bucket bond, truck 4', cable: '2/0', lengthM: 3, lastTestMonthsAgo: 9, story: 'in-date' },
-  { tag: 'LV-109', description: 'Phase set, truck 7', cable: '2/0', lengthM: 2.4, lastTestMonthsAgo: 9, story: 'in-date' },
-  { tag: 'LV-110', description: 'Phase set, truck 7', cable: '2/0', lengthM: 1.8, lastTestMonthsAgo: 10, story: 'in-date' },
-  { tag: 'LV-111', description: 'Substation set', cable: '4/0', lengthM: 4.5, lastTestMonthsAgo: 4, story: 'in-date' },
-  { tag: 'LV-112', description: 'Substation set', cable: '4/0', lengthM: 4.5, lastTestMonthsAgo: 4, story: 'in-date' },
-  { tag: 'LV-113', description: 'Long set, transmission kit', cable: '4/0', lengthM: 6, lastTestMonthsAgo: 8, story: 'in-date' },
-  { tag: 'LV-114', description: 'Spare phase set', cable: '2/0', lengthM: 2.4, story: { soonDays: 6 } },
-  { tag: 'LV-115', description: 'Spare bucket bond', cable: '2/0', lengthM: 3, story: { soonDays: 14 } },
-  { tag: 'LV-116', description: 'Long set, transmission kit', cable: '4/0', lengthM: 6, story: { soonDays: 25 } },
-  { tag: 'LV-117', description: 'Spare phase set', cable: '2/0', lengthM: 2.4, story: 'overdue' },
-  { tag: 'LV-118', description: 'Phase set, truck 9', cable: '2/0', lengthM: 1.8, lastTestMonthsAgo: 6, story: 'fault' },
-  { tag: 'LV-119', description: 'Old phase set', cable: '1/0', lengthM: 3, lastTestMonthsAgo: 3, story: 'retired' },
-  { tag: 'LV-120', description: 'Live-line clamp set', cable: '2/0', lengthM: 1.2, lastTestMonthsAgo: 3, story: 'in-date', clampKind: 'live-line' },
+  { tag: 'LV-101', description: 'Phase set, truck 4', cable: '2/0', lengthFt: 8, lastTestMonthsAgo: 2, story: 'in-date' },
+  { tag: 'LV-102', description: 'Phase set, truck 4', cable: '2/0', lengthFt: 8, lastTestMonthsAgo: 2, story: 'in-date' },
+  { tag: 'LV-103', description: 'Phase set, truck 4', cable: '2/0', lengthFt: 6, lastTestMonthsAgo: 2, story: 'in-date' },
+  { tag: 'LV-104', description: 'Neutral set, truck 4', cable: '2/0', lengthFt: 6, lastTestMonthsAgo: 5, story: 'in-date' },
+  { tag: 'LV-105', description: 'Phase set, truck 7', cable: '2/0', lengthFt: 5, lastTestMonthsAgo: 5, story: 'in-date' },
+  { tag: 'LV-106', description: 'Neutral set, truck 7', cable: '2/0', lengthFt: 4, lastTestMonthsAgo: 7, story: 'in-date' },
+  { tag: 'LV-107', description: 'Bucket bond, truck 7', cable: '2/0', lengthFt: 10, lastTestMonthsAgo: 7, story: 'in-date' },
+  { tag: 'LV-108', description: 'Bucket bond, truck 4', cable: '2/0', lengthFt: 10, lastTestMonthsAgo: 9, story: 'in-date' },
+  { tag: 'LV-109', description: 'Phase set, truck 7', cable: '2/0', lengthFt: 8, lastTestMonthsAgo: 9, story: 'in-date' },
+  { tag: 'LV-110', description: 'Phase set, truck 7', cable: '2/0', lengthFt: 6, lastTestMonthsAgo: 10, story: 'in-date' },
+  { tag: 'LV-111', description: 'Substation set', cable: '4/0', lengthFt: 15, lastTestMonthsAgo: 4, story: 'in-date' },
+  { tag: 'LV-112', description: 'Substation set', cable: '4/0', lengthFt: 15, lastTestMonthsAgo: 4, story: 'in-date' },
+  { tag: 'LV-113', description: 'Long set, transmission kit', cable: '4/0', lengthFt: 20, lastTestMonthsAgo: 8, story: 'in-date' },
+  { tag: 'LV-114', description: 'Spare phase set', cable: '2/0', lengthFt: 8, story: { soonDays: 6 } },
+  { tag: 'LV-115', description: 'Spare bucket bond', cable: '2/0', lengthFt: 10, story: { soonDays: 14 } },
+  { tag: 'LV-116', description: 'Long set, transmission kit', cable: '4/0', lengthFt: 20, story: { soonDays: 25 } },
+  { tag: 'LV-117', description: 'Spare phase set', cable: '2/0', lengthFt: 8, story: 'overdue' },
+  { tag: 'LV-118', description: 'Phase set, truck 9', cable: '2/0', lengthFt: 6, lastTestMonthsAgo: 6, story: 'fault' },
+  { tag: 'LV-119', description: 'Old phase set', cable: '1/0', lengthFt: 10, lastTestMonthsAgo: 3, story: 'retired' },
+  { tag: 'LV-120', description: 'Live-line clamp set', cable: '2/0', lengthFt: 4, lastTestMonthsAgo: 3, story: 'in-date', clampKind: 'live-line' },
 ];
 
 /** Test dates, oldest first: yearly back from the last one, never before the set entered service. */
@@ -47,11 +48,11 @@ function testDates(last: string, inServiceOn: string): string[] {
 }
 
 /** An invented reading for a cable length, varied a little per test. */
-const reading = (set: DemoSet, i: number) => Math.round((0.3 * set.lengthM + 0.25 + ((i * 7 + set.tag.charCodeAt(5)) % 5) * 0.03) * 100) / 100;
+const reading = (set: DemoSet, i: number) => Math.round((0.3 * metresFromFeet(set.lengthFt) + 0.25 + ((i * 7 + set.tag.charCodeAt(5)) % 5) * 0.03) * 100) / 100;
 
 async function seedSet(db: Db, organizationId: number, adminId: string, leadId: string, set: DemoSet, today: string): Promise<void> {
   const inServiceOn = addMonths(today, -(30 + (set.tag.charCodeAt(5) % 3) * 6));
-  const saved = await saveSets(db, organizationId, adminId, [{ tag: set.tag, description: set.description, cable: set.cable, lengthM: set.lengthM, clampKind: set.clampKind ?? 'grounding', clampKa: CLAMP[set.cable] ?? 27, clampCycles: 15, connection: set.connection ?? 'ferrule', inServiceOn, status: 'in-service' }], 'create');
+  const saved = await saveSets(db, organizationId, adminId, [{ tag: set.tag, description: set.description, cable: set.cable, lengthM: metresFromFeet(set.lengthFt), clampKind: set.clampKind ?? 'grounding', clampKa: CLAMP[set.cable] ?? 27, clampCycles: 15, connection: set.connection ?? 'ferrule', inServiceOn, status: 'in-service' }], 'create');
   if (saved.kind !== 'ok') throw new Error(`demo set ${set.tag}: ${saved.kind}`);
   const id = saved.value.created[0].id;
   const story = set.story;

@@ -4,10 +4,13 @@
  */
 import type { PlanDocument, PlanLink, PlanNode } from '@/lib/schemas/plan';
 import type { PlanStatus } from '@/lib/domain/plan-status';
+import { metresFromFeet } from '@/lib/domain/units';
 
-const system = { nominalKv: 12.47, frequencyHz: 60 as const, faultKa: 8, clearingCycles: 15, xOverR: 8, phaseSpacingM: 0.9 };
+// The demo co-operative works in feet: lengths are round feet, stored in metres as every plan is.
+const system = { nominalKv: 12.47, frequencyHz: 60 as const, faultKa: 8, clearingCycles: 15, xOverR: 8, phaseSpacingM: metresFromFeet(3) };
 
-const jumper = (id: string, from: string, to: string, cable: '2/0' | '4/0' | '2', lengthM: number, spanM: number): PlanLink => ({ id, kind: 'jumper', from, to, cable, lengthM, spanM, clampKa: 30, clampCycles: 15 });
+/** A jumper of `lengthFt` feet of lead over a `spanFt` gap. */
+const jumper = (id: string, from: string, to: string, cable: '2/0' | '4/0' | '2', lengthFt: number, spanFt: number): PlanLink => ({ id, kind: 'jumper', from, to, cable, lengthM: metresFromFeet(lengthFt), spanM: metresFromFeet(spanFt), clampKa: 30, clampCycles: 15 });
 const reach = (id: string, from: string, to: string): PlanLink => ({ id, kind: 'reach', from, to });
 
 function document(title: string, nodes: PlanNode[], links: PlanLink[]): PlanDocument {
@@ -48,11 +51,11 @@ export const DEMO_PLANS: DemoPlan[] = [
         { id: 'W1', kind: 'worker', standsOn: 'BK', label: 'Lineworker in bucket', position: { x: 760, y: 140 } },
       ],
       [
-        jumper('jA', 'A', 'CB', '2/0', 2.4, 2.0),
-        jumper('jB', 'B', 'CB', '2/0', 1.8, 1.5),
-        jumper('jC', 'C', 'CB', '2/0', 2.4, 2.0),
-        jumper('jN', 'CB', 'N', '2/0', 1.8, 1.5),
-        jumper('jBK', 'BK', 'CB', '2/0', 3.0, 2.5),
+        jumper('jA', 'A', 'CB', '2/0', 8, 6.5),
+        jumper('jB', 'B', 'CB', '2/0', 6, 5),
+        jumper('jC', 'C', 'CB', '2/0', 8, 6.5),
+        jumper('jN', 'CB', 'N', '2/0', 6, 5),
+        jumper('jBK', 'BK', 'CB', '2/0', 10, 8),
         reach('rA', 'W1', 'A'),
         reach('rB', 'W1', 'B'),
         reach('rC', 'W1', 'C'),
@@ -74,10 +77,10 @@ export const DEMO_PLANS: DemoPlan[] = [
         { id: 'W1', kind: 'worker', standsOn: 'CB', label: 'Climber', position: { x: 540, y: 260 } },
       ],
       [
-        jumper('jA', 'A', 'CB', '2/0', 2.4, 2.0),
-        jumper('jB', 'B', 'CB', '2/0', 1.5, 1.2),
-        jumper('jC', 'C', 'CB', '2/0', 2.4, 2.0),
-        jumper('jN', 'CB', 'N', '2/0', 1.2, 1.0),
+        jumper('jA', 'A', 'CB', '2/0', 8, 6.5),
+        jumper('jB', 'B', 'CB', '2/0', 5, 4),
+        jumper('jC', 'C', 'CB', '2/0', 8, 6.5),
+        jumper('jN', 'CB', 'N', '2/0', 4, 3.5),
         reach('rA', 'W1', 'A'),
         reach('rC', 'W1', 'C'),
       ],
@@ -101,12 +104,12 @@ export const DEMO_PLANS: DemoPlan[] = [
         { id: 'W2', kind: 'worker', standsOn: 'M', label: 'Ground worker at the truck', position: { x: 800, y: 400 } },
       ],
       [
-        jumper('jA', 'A', 'CB', '2/0', 2.4, 2.0),
-        jumper('jB', 'B', 'CB', '2/0', 1.8, 1.5),
-        jumper('jC', 'C', 'CB', '2/0', 2.4, 2.0),
-        jumper('jN', 'CB', 'N', '2/0', 1.8, 1.5),
-        jumper('jTR', 'TR', 'CB', '2/0', 12, 9),
-        jumper('jM', 'M', 'TR', '2/0', 1.5, 1.2),
+        jumper('jA', 'A', 'CB', '2/0', 8, 6.5),
+        jumper('jB', 'B', 'CB', '2/0', 6, 5),
+        jumper('jC', 'C', 'CB', '2/0', 8, 6.5),
+        jumper('jN', 'CB', 'N', '2/0', 6, 5),
+        jumper('jTR', 'TR', 'CB', '2/0', 40, 30),
+        jumper('jM', 'M', 'TR', '2/0', 5, 4),
         reach('rTR', 'W2', 'TR'),
       ],
     ),
@@ -124,7 +127,7 @@ export const DEMO_PLANS: DemoPlan[] = [
         { id: 'CB', kind: 'cluster-bar', label: 'Cluster bar', position: { x: 300, y: 200 } },
         { id: 'W1', kind: 'worker', standsOn: 'P22', label: 'Climber', position: { x: 540, y: 260 } },
       ],
-      [jumper('jA', 'A', 'CB', '2/0', 2.4, 2.0), jumper('jN', 'CB', 'N', '2/0', 1.8, 1.5), reach('rA', 'W1', 'A'), reach('rB', 'W1', 'B')],
+      [jumper('jA', 'A', 'CB', '2/0', 8, 6.5), jumper('jN', 'CB', 'N', '2/0', 6, 5), reach('rA', 'W1', 'A'), reach('rB', 'W1', 'B')],
     ),
   },
 ];
@@ -142,9 +145,9 @@ export const OTHER_ORG_PLAN: DemoPlan = {
       { id: 'W1', kind: 'worker', standsOn: 'T3', label: 'Climber on the tower', position: { x: 560, y: 200 } },
     ],
     [
-      jumper('jA', 'A', 'T3', '4/0', 3, 2.5),
-      jumper('jB', 'B', 'T3', '4/0', 3, 2.5),
-      jumper('jC', 'C', 'T3', '4/0', 3, 2.5),
+      jumper('jA', 'A', 'T3', '4/0', 10, 8),
+      jumper('jB', 'B', 'T3', '4/0', 10, 8),
+      jumper('jC', 'C', 'T3', '4/0', 10, 8),
       { id: 'bSW', kind: 'bond', from: 'SW', to: 'T3' },
       reach('rB', 'W1', 'B'),
     ],

@@ -3,6 +3,7 @@
  * workflow, five exercises (a different gap each, all three kinds) and a few of the demo
  * apprentice's attempts. Everything is made up. Runs once: skipped when exercises exist.
  */
+import { metresFromFeet } from '@/lib/domain/units';
 import type { Db } from '@db/connection';
 import { createPlan, describeStructure } from '@db/repositories/plans';
 import { decidePlan, submitPlan } from '@db/repositories/review';
@@ -12,8 +13,9 @@ import { fingerprint } from '@/lib/server/fingerprint';
 import { gradeFind, gradeNumbers, prepareExercise, type ExerciseKind, type Modifications } from '@/lib/domain/practice';
 import type { PlanDocument, PlanLink, PlanNode } from '@/lib/schemas/plan';
 
-const system = { nominalKv: 12.47, frequencyHz: 60 as const, faultKa: 9, clearingCycles: 15, xOverR: 9, phaseSpacingM: 0.9 };
-const jumper = (id: string, from: string, to: string, lengthM: number, spanM: number): PlanLink => ({ id, kind: 'jumper', from, to, cable: '2/0', lengthM, spanM, clampKa: 30, clampCycles: 15 });
+const system = { nominalKv: 12.47, frequencyHz: 60 as const, faultKa: 9, clearingCycles: 15, xOverR: 9, phaseSpacingM: metresFromFeet(3) };
+/** A jumper of `lengthFt` feet over a `spanFt` gap (the demo co-operative works in feet). */
+const jumper = (id: string, from: string, to: string, lengthFt: number, spanFt: number): PlanLink => ({ id, kind: 'jumper', from, to, cable: '2/0', lengthM: metresFromFeet(lengthFt), spanM: metresFromFeet(spanFt), clampKa: 30, clampCycles: 15 });
 const reach = (id: string, from: string, to: string): PlanLink => ({ id, kind: 'reach', from, to });
 const doc = (title: string, nodes: PlanNode[], links: PlanLink[]): PlanDocument => ({ format: 'bondmap-plan', version: 1, title, system, criteria: { bodyKg: 50, bodyOhms: 1000 }, nodes, links });
 const phases: PlanNode[] = [
@@ -21,7 +23,7 @@ const phases: PlanNode[] = [
   { id: 'B', kind: 'phase', phase: 'B', label: 'Phase B', position: { x: 300, y: 40 } },
   { id: 'C', kind: 'phase', phase: 'C', label: 'Phase C', position: { x: 540, y: 40 } },
 ];
-const phaseJumpers = [jumper('jA', 'A', 'CB', 2.4, 2.0), jumper('jB', 'B', 'CB', 1.8, 1.5), jumper('jC', 'C', 'CB', 2.4, 2.0)];
+const phaseJumpers = [jumper('jA', 'A', 'CB', 8, 6.5), jumper('jB', 'B', 'CB', 6, 5), jumper('jC', 'C', 'CB', 8, 6.5)];
 
 const GROUND_CREW: PlanDocument = doc('Riser pole 9 at Cobbler\'s Ford, ground crew on the mat', [
   ...phases,
@@ -31,7 +33,7 @@ const GROUND_CREW: PlanDocument = doc('Riser pole 9 at Cobbler\'s Ford, ground c
   { id: 'TR', kind: 'truck', label: 'Line truck', position: { x: 560, y: 420 } },
   { id: 'M', kind: 'mat', label: 'Mat at the truck', position: { x: 780, y: 540 } },
   { id: 'W2', kind: 'worker', standsOn: 'M', label: 'Ground worker at the controls', position: { x: 800, y: 380 } },
-], [...phaseJumpers, jumper('jN', 'CB', 'N', 1.8, 1.5), jumper('jTR', 'TR', 'N', 4, 3.5), jumper('jM', 'M', 'TR', 1.5, 1.2), reach('rTR', 'W2', 'TR')]);
+], [...phaseJumpers, jumper('jN', 'CB', 'N', 6, 5), jumper('jTR', 'TR', 'N', 13, 11.5), jumper('jM', 'M', 'TR', 5, 4), reach('rTR', 'W2', 'TR')]);
 
 const POLE_GROUND: PlanDocument = doc('Pole 40 on Saltmarsh Lane, climber beside the pole ground', [
   ...phases,
@@ -40,7 +42,7 @@ const POLE_GROUND: PlanDocument = doc('Pole 40 on Saltmarsh Lane, climber beside
   { id: 'CB', kind: 'cluster-bar', label: 'Cluster bar at the climber\'s feet', position: { x: 300, y: 200 } },
   { id: 'PG', kind: 'pole-ground', label: 'Pole ground wire', position: { x: 540, y: 360 } },
   { id: 'W1', kind: 'worker', standsOn: 'CB', label: 'Climber', position: { x: 560, y: 220 } },
-], [...phaseJumpers, jumper('jN', 'CB', 'N', 1.2, 1.0), jumper('jPG', 'CB', 'PG', 1.5, 1.2), reach('rA', 'W1', 'A'), reach('rB', 'W1', 'B'), reach('rC', 'W1', 'C')]);
+], [...phaseJumpers, jumper('jN', 'CB', 'N', 4, 3.5), jumper('jPG', 'CB', 'PG', 5, 4), reach('rA', 'W1', 'A'), reach('rB', 'W1', 'B'), reach('rC', 'W1', 'C')]);
 
 export const DEMO_PRACTICE_PLANS = [GROUND_CREW, POLE_GROUND];
 
