@@ -60,13 +60,12 @@ function groundedNow(plan: RecordPlan, on: readonly SetOn[]): Set<string> | null
 /**
  * A set for a jumper on a phase goes on only once its other end has a path to ground (the ground
  * end first, for the zone as for each set): true when it may, or when the plan copy cannot say.
+ * `grounded` is groundedNow for the sets on, worked out once by the caller.
  */
-function groundReady(plan: RecordPlan, on: readonly SetOn[], link: string): boolean {
-  const grounded = groundedNow(plan, on);
+function groundReady(plan: RecordPlan, grounded: Set<string> | null, link: string): boolean {
   const j = plan.jumpers.find((x) => x.id === link);
   if (!grounded || !plan.ground || !j?.from || !j.to) return true;
-  const phases = new Set(plan.ground.phases);
-  if (!phases.has(j.from) && !phases.has(j.to)) return true;
+  if (!plan.ground.phases.includes(j.from) && !plan.ground.phases.includes(j.to)) return true;
   return grounded.has(j.from) || grounded.has(j.to);
 }
 
@@ -126,7 +125,7 @@ function flagsFor(plan: RecordPlan, state: RecordState, entry: EntryBody): Flag[
       flags.push({ code: 'removed-out-of-order', message: `Taken off out of order: ${which} went on last and was expected off first.` });
     }
   }
-  if (entry.type === 'install' && !groundReady(plan, state.on, entry.link)) {
+  if (entry.type === 'install' && !groundReady(plan, groundedNow(plan, state.on), entry.link)) {
     const j = plan.jumpers.find((x) => x.id === entry.link);
     flags.push({ code: 'installed-before-ground', message: `Put on before its other end had a path to ground: ${entry.link}${j ? ` (${j.label})` : ''} went on before the set that grounds it; the ground-side set goes on first.` });
   }
@@ -248,7 +247,8 @@ export function nextStep(plan: RecordPlan, state: RecordState): NextStep {
   if (state.testPassed && state.removed === 0) {
     // In plan order, but a set on a phase waits until its other end has a path to ground.
     const pending = plan.jumpers.filter((j) => !state.on.some((s) => s.link === j.id));
-    const next = pending.find((j) => groundReady(plan, state.on, j.id)) ?? pending[0];
+    const grounded = groundedNow(plan, state.on);
+    const next = pending.find((j) => groundReady(plan, grounded, j.id)) ?? pending[0];
     if (next) return { kind: 'install', link: next.id };
   }
   if (last) return { kind: 'remove', link: last.link };
