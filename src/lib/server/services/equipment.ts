@@ -15,16 +15,25 @@ import { AppError } from '@/lib/server/errors';
 import { assertCan } from '@/lib/server/guards';
 import { organisationToday } from '@/lib/server/organisation';
 
-/** A date a person says something happened on cannot be after today where the organisation works. */
-async function notInFuture(person: Person, path: string, day: string | null | undefined): Promise<void> {
-  if (day && day > (await organisationToday(person.organizationId))) throw new AppError('VALIDATION', { issues: [{ path, message: 'must not be in the future' }] });
+/** The dates given (by path) that lie after `today`, each named. */
+function futureIssues(dates: Record<string, string | null | undefined>, today: string) {
+  return Object.entries(dates).filter(([, day]) => day && day > today).map(([path]) => ({ path, message: 'must not be in the future' }));
+}
+
+/**
+ * Dates a person says something happened on cannot be after today where the organisation works:
+ * every such field is named, and the organisation's day is read once, only when a date was given.
+ */
+async function notInFuture(person: Person, dates: Record<string, string | null | undefined>): Promise<void> {
+  if (!Object.values(dates).some(Boolean)) return;
+  const issues = futureIssues(dates, await organisationToday(person.organizationId));
+  if (issues.length) throw new AppError('VALIDATION', { issues });
 }
 
 /** Adds a set; a tag the organisation already uses is SET_TAG_TAKEN naming it. */
 export async function addSet(person: Person, input: CreateSetBody): Promise<SetJson> {
   assertCan(person, 'sets.manage');
-  await notInFuture(person, 'inServiceOn', input.inServiceOn);
-  await notInFuture(person, 'lastTestedOn', input.lastTestedOn);
+  await notInFuture(person, { inServiceOn: input.inServiceOn, lastTestedOn: input.lastTestedOn });
   const { created } = unwrap(await saveSets(getDb(), person.organizationId, person.id, [input], 'create'));
   return created[0];
 }
@@ -39,9 +48,9 @@ export async function importSets(person: Person, csv: string): Promise<{ created
     new AppError('VALIDATION', { message: 'Some rows are not valid; nothing was imported. Fix the cells listed and import the whole file again.', issues });
   const parsed = parseInventoryCsv(csv);
   if (!parsed.ok) throw invalid(parsed.issues);
-  const day = await organisationToday(person.organizationId);
   // A set never tested is due one interval after it went into service: a day to come would keep it "in date" for that long.
-  const future = parsed.rows.flatMap((r) => (['inServiceOn', 'lastTestedOn'] as const).filter((key) => (r.body[key] ?? '') > day).map((key) => ({ path: `line ${r.line}.${key}`, message: 'must not be in the future' })));
+  const dates = Object.fromEntries(parsed.rows.flatMap((r) => (['inServiceOn', 'lastTestedOn'] as const).map((key) => [`line ${r.line}.${key}`, r.body[key]])));
+  const future = futureIssues(dates, await organisationToday(person.organizationId));
   if (future.length) throw invalid(future);
   const outcome = await saveSets(getDb(), person.organizationId, person.id, parsed.rows.map((r) => r.body), 'upsert');
   if (outcome.kind === 'needs-test') {
@@ -55,15 +64,14 @@ export async function importSets(person: Person, csv: string): Promise<{ created
 /** Records an in-service test; a pass can put the set back in service. */
 export async function recordSetTest(person: Person, setId: number, input: SetTestBody) {
   assertCan(person, 'sets.test');
-  await notInFuture(person, 'testedOn', input.testedOn);
+  await notInFuture(person, { testedOn: input.testedOn });
   return unwrap(await recordTest(getDb(), person.organizationId, setId, person.id, input));
 }
 
 /** Edits a set, changes its status (a reason is required out of service) or records a fault. */
 export async function changeSet(person: Person, setId: number, input: PatchSetBody): Promise<SetJson> {
   assertCan(person, 'sets.manage');
-  await notInFuture(person, 'inServiceOn', input.inServiceOn);
-  await notInFuture(person, 'faultOn', input.faultOn);
+  await notInFuture(person, { inServiceOn: input.inServiceOn, faultOn: input.faultOn });
   return unwrap(await updateSet(getDb(), person.organizationId, setId, person.id, input));
 }
 
